@@ -1,0 +1,19 @@
+// A signal as the spec names it and as Structured Text names it.
+
+export interface Signal {
+  /** The header text as written in the spec table. */
+  readonly header: string;
+  /** A valid IEC 61131-3 identifier derived from the header (DESIGN.md section 3). */
+  readonly identifier: string;
+}
+
+/**
+ * Index of the signal a name refers to: header or identifier, case-insensitively
+ * (headers also with surrounding blanks trimmed). -1 when none does.
+ */
+export function signalIndex(signals: readonly Signal[], name: string): number {
+  const key = name.trim().toLowerCase();
+  const byId = signals.findIndex((s) => s.identifier.toLowerCase() === key);
+  if (byId >= 0) return byId;
+  return signals.findIndex((s) => s.header.trim().toLowerCase() === key);
+}
