@@ -1,0 +1,19 @@
+// One interface over the workbook, whether it is the live sheet in Excel or an .xlsx file.
+import type { SheetBlock } from '../report/sheet-block.js';
+import type { Grid } from '../spec/types.js';
+
+export interface WriteReport {
+  /** The sheet actually written (a suffix is added when the wanted name is taken). */
+  readonly sheet: string;
+  /** A1 range written. */
+  readonly range: string;
+  readonly cells: number;
+}
+
+export interface WorkbookHost {
+  listSheets(): Promise<string[]>;
+  /** The used range of a sheet, or the given A1 range of it. */
+  readGrid(sheet: string, range?: string): Promise<Grid>;
+  /** Add a new sheet with the block; never writes into a non-empty cell of an existing sheet. */
+  writeSheet(block: SheetBlock): Promise<WriteReport>;
+}

@@ -1,0 +1,25 @@
+// A sheet to write, independent of the host that writes it (SheetJS file or Office.js).
+
+export type CellStyle = 'title' | 'heading' | 'label' | 'code' | 'caution' | 'status' | 'input' | 'number';
+
+export interface BlockCell {
+  readonly value: string | number | boolean | null;
+  /**
+   * An Excel formula without the leading '=', with function names as a user types them
+   * (`XOR(...)`). The file host stores XOR as `_xlfn.XOR`; Office.js takes it as typed.
+   * `value` is the value the formula is expected to compute (written as the cached value).
+   */
+  readonly formula?: string;
+  readonly style?: CellStyle;
+}
+
+export interface SheetBlock {
+  /** Wanted sheet name (at most 31 characters); a host adds a suffix if it is taken. */
+  readonly name: string;
+  /** Rows from A1 downwards; a null entry is an empty cell. */
+  readonly rows: readonly (readonly (BlockCell | null)[])[];
+  /** Column widths in characters, from column A. */
+  readonly columnWidths?: readonly number[];
+  /** A1 ranges of status cells that read OK / DIFFERS, for a conditional format. */
+  readonly statusRanges?: readonly string[];
+}

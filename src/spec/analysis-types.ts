@@ -1,0 +1,72 @@
+// The result of analysing one spec table: what the CLI prints, the pane shows and the
+// report writes. Built by analyse.ts; plain data, so that it crosses a worker boundary.
+import type { Combination } from '../logic/bits.js';
+import type { Monomial } from '../logic/anf.js';
+import type { Cube } from '../logic/cube.js';
+import type { Signal } from '../logic/signals.js';
+import type { TestStep } from '../logic/steps.js';
+import type { Expr } from '../logic/expr/ast.js';
+import type { Problem, SpecTable } from './types.js';
+
+export interface FormProof {
+  readonly combinations: number;
+  readonly mismatchCount: number;
+  readonly mismatches: readonly Combination[];
+}
+
+export interface AndOrForm {
+  readonly cubes: readonly Cube[];
+  readonly expr: Expr;
+  /** Structured Text. */
+  readonly text: string;
+  readonly proven: boolean;
+  readonly terms: number;
+  readonly literals: number;
+  readonly proof: FormProof;
+  /** Don't-care combinations this form turns ON. */
+  readonly permitsAlso: readonly Combination[];
+}
+
+export interface XorForm {
+  readonly monomials: readonly Monomial[];
+  /** Bit set in Combination positions: that input appears complemented. 0 for the plain ANF. */
+  readonly polarity: number;
+  readonly expr: Expr;
+  readonly text: string;
+  readonly terms: number;
+  /** Best-polarity search covered all 2^n polarities. */
+  readonly exhaustive: boolean;
+  readonly proof: FormProof;
+  readonly permitsAlso: readonly Combination[];
+}
+
+export interface ConflictReport {
+  readonly rowCellsA: string;
+  readonly rowCellsB: string;
+  readonly example: Combination;
+  readonly combinations: number;
+}
+
+export interface OutputAnalysis {
+  readonly signal: Signal;
+  readonly safe: 0 | 1;
+  readonly andOr: AndOrForm;
+  readonly xor: XorForm;
+  readonly bestXor: XorForm;
+  readonly degree: number;
+  /** Inputs that appear in no ANF monomial (do not matter), by index. */
+  readonly unusedInputs: readonly number[];
+  /** Combinations no row covers, as cubes (they take the safe value). */
+  readonly gaps: readonly Cube[];
+  readonly gapCount: number;
+  readonly conflicts: readonly ConflictReport[];
+  readonly dontCareCount: number;
+  readonly steps: readonly TestStep[];
+}
+
+export interface TableAnalysis {
+  readonly table: SpecTable;
+  readonly inputs: readonly Signal[];
+  readonly outputs: readonly OutputAnalysis[];
+  readonly problems: readonly Problem[];
+}
