@@ -5,7 +5,7 @@ import type { BlockCell, SheetBlock } from '../report/sheet-block.js';
 import type { CellValue } from '../spec/types.js';
 
 /** Excel's error codes as stored in a file (SheetJS writes `{ t: 'e', v: code }`). */
-const ERROR_CODES: Readonly<Record<string, number>> = {
+export const ERROR_CODES: Readonly<Record<string, number>> = {
   '#NULL!': 0x00,
   '#DIV/0!': 0x07,
   '#VALUE!': 0x0f,
