@@ -1,0 +1,264 @@
+// The Excel host against the strict Office.js double: what it reads, what it writes and where,
+// in requests that fit Excel on the web's 5 MB limit.
+import fc from 'fast-check';
+import { describe, expect, test } from 'vitest';
+import { createExcelHost, ExcelHostError } from '../../src/hosts/excel-host.js';
+import { cellFromExcel, isDateFormat, rowBlocks } from '../../src/hosts/excel-cells.js';
+import type { BlockCell, SheetBlock } from '../../src/report/sheet-block.js';
+import { column, DoubleError, ExcelDouble, LIMIT, type SeedCell } from './excel-double.js';
+
+function setup(sheets: Record<string, { rows: SeedCell[][]; origin?: string }> = {}) {
+  const double = new ExcelDouble();
+  for (const [name, { rows, origin }] of Object.entries(sheets)) double.addSheet(name, rows, origin);
+  return { double, host: createExcelHost(double.run) };
+}
+
+const cell = (value: BlockCell['value'], extra: Partial<BlockCell> = {}): BlockCell => ({ value, ...extra });
+
+describe('the double is as strict as Office.js', () => {
+  test('reading a property before load and sync throws PropertyNotLoaded', async () => {
+    const { double } = setup({ S: { rows: [[1]] } });
+    await double.run(async (context) => {
+      const range = context.workbook.worksheets.getItem('S').getRange('A1');
+      expect(() => range.values).toThrow(expect.objectContaining({ code: 'PropertyNotLoaded' }));
+      range.load('values');
+      expect(() => range.values).toThrow(expect.objectContaining({ code: 'PropertyNotLoaded' }));
+      await context.sync();
+      expect(range.values).toEqual([[1]]);
+    });
+  });
+
+  test('values of the wrong shape fail the sync with InvalidArgument', async () => {
+    const { double } = setup({ S: { rows: [] } });
+    await double.run(async (context) => {
+      context.workbook.worksheets.getItem('S').getRange('A1:B2').values = [[1, 2]];
+      await expect(context.sync()).rejects.toMatchObject({ code: 'InvalidArgument' });
+    });
+  });
+
+  test('a request over 5 MB fails the sync', async () => {
+    const { double } = setup({ S: { rows: [] } });
+    const big = Array.from({ length: 60_000 }, () => ['x'.repeat(100)]);
+    await double.run(async (context) => {
+      context.workbook.worksheets.getItem('S').getRange('A1:A60000').values = big;
+      await expect(context.sync()).rejects.toBeInstanceOf(DoubleError);
+    });
+    expect(double.syncs.at(-1)!.failed).toBe('RequestPayloadSizeLimitExceeded');
+    expect(double.read('S', 'A1')).toEqual([['']]);
+  });
+
+  test('a sheet that does not exist fails the sync with ItemNotFound', async () => {
+    const { double } = setup();
+    await double.run(async (context) => {
+      context.workbook.worksheets.getItem('Nowhere').getRange('A1').load('values');
+      await expect(context.sync()).rejects.toMatchObject({ code: 'ItemNotFound' });
+    });
+  });
+});
+
+describe('reading', () => {
+  test('lists the sheets in workbook order', async () => {
+    const { host } = setup({ Capper: { rows: [[1]] }, Notes: { rows: [] } });
+    expect(await host.listSheets()).toEqual(['Capper', 'Notes']);
+  });
+
+  test('reads the used range with its top-left address', async () => {
+    const { host } = setup({ Capper: { rows: [['Guard', 'Run'], [1, 0]], origin: 'B3' } });
+    expect(await host.readGrid('Capper')).toEqual({ sheet: 'Capper', origin: 'B3', cells: [['Guard', 'Run'], [1, 0]] });
+  });
+
+  test('keeps the kind of each cell: empty, text, number, boolean, error, date', async () => {
+    const { host } = setup({ S: { rows: [['a', null, 2, true, { error: '#N/A' }, { date: 45000 }]] } });
+    const grid = await host.readGrid('S');
+    expect(grid.cells).toEqual([['a', null, 2, true, { error: '#N/A' }, { date: 45000 }]]);
+  });
+
+  test('reads only the A1 range asked for', async () => {
+    const { host } = setup({ S: { rows: [[1, 2, 3], [4, 5, 6], [7, 8, 9]] } });
+    expect(await host.readGrid('S', 'B2:C3')).toEqual({ sheet: 'S', origin: 'B2', cells: [[5, 6], [8, 9]] });
+  });
+
+  test('an empty sheet reads as an empty grid', async () => {
+    const { host } = setup({ Empty: { rows: [] } });
+    expect(await host.readGrid('Empty')).toEqual({ sheet: 'Empty', origin: 'A1', cells: [] });
+  });
+
+  test('a missing sheet rejects with a message naming it', async () => {
+    const { host } = setup({ S: { rows: [] } });
+    await expect(host.readGrid('Capper')).rejects.toThrow(/sheet Capper/);
+  });
+
+  test('a big range is read in several requests, each under 5 MB', async () => {
+    const rows = Array.from({ length: 16_000 }, (_, r) => [`row ${r}`, r % 2, r % 3 === 0, 'long text '.repeat(40)]);
+    const { double, host } = setup({ Big: { rows } });
+    const grid = await host.readGrid('Big');
+    expect(grid.cells.length).toBe(16_000);
+    expect(grid.cells[15_999]).toEqual(rows[15_999]);
+    const ok = double.syncs.filter((s) => !s.failed);
+    expect(ok.length).toBeGreaterThan(2);
+    expect(Math.max(...ok.map((s) => s.responseBytes))).toBeLessThanOrEqual(LIMIT);
+  });
+
+  test('a block Excel finds too large is read again in halves', async () => {
+    const wide = 'w'.repeat(2000);
+    const rows = Array.from({ length: 6000 }, () => [wide, wide]);
+    const { double, host } = setup({ Wide: { rows } });
+    const grid = await host.readGrid('Wide');
+    expect(grid.cells.length).toBe(6000);
+    expect(double.syncs.some((s) => s.failed === 'ResponsePayloadSizeLimitExceeded')).toBe(true);
+  });
+
+  test('the selection comes back as sheet and A1 range', async () => {
+    const { double, host } = setup({ 'Capper cell': { rows: [[1]] } });
+    double.selection = { sheet: 'Capper cell', range: 'B2:D9' };
+    expect(await host.selection()).toEqual({ sheet: 'Capper cell', range: 'B2:D9', cells: 24 });
+  });
+
+  test('lists Excel tables with their sheet and range', async () => {
+    const { double, host } = setup({ Capper: { rows: [[1]] } });
+    double.tables.push({ name: 'CapperSpec', sheet: 'Capper', range: 'A1:F12' });
+    expect(await host.listTables()).toEqual([{ name: 'CapperSpec', sheet: 'Capper', range: 'A1:F12' }]);
+  });
+
+  test('selecting a problem cell activates its sheet and selects the cell', async () => {
+    const { double, host } = setup({ A: { rows: [] }, Capper: { rows: [] } });
+    await host.selectCell('Capper', 'D7');
+    expect(double.activeSheet).toBe('Capper');
+    expect(double.selection).toEqual({ sheet: 'Capper', range: 'D7' });
+  });
+});
+
+describe('writing', () => {
+  const block: SheetBlock = {
+    name: 'Results',
+    rows: [
+      [cell('Results', { style: 'title' })],
+      [cell('Input', { style: 'heading' }), cell('Form', { style: 'heading' }), cell('Status', { style: 'heading' })],
+      [cell(1), cell(true, { formula: 'AND(A3=1,NOT(B3))' }), cell('OK', { formula: 'IF(B3,"OK","DIFFERS")', style: 'status' })],
+      [cell('1'), null, cell('=not a formula')],
+    ],
+    columnWidths: [12, 30],
+    statusRanges: ['C3:C3'],
+  };
+
+  test('adds a new sheet with values and live formulas, and says where', async () => {
+    const { double, host } = setup({ Capper: { rows: [[1]] } });
+    const report = await host.writeSheet(block);
+    expect(report).toEqual({ sheet: 'Results', range: 'A1:C4', cells: 9 });
+    expect(double.read('Results', 'A3:C3')).toEqual([[1, '=AND(A3=1,NOT(B3))', '=IF(B3,"OK","DIFFERS")']]);
+    expect(double.activeSheet).toBe('Results');
+  });
+
+  test('text that Excel would take for a number or a formula stays text', async () => {
+    const { double, host } = setup();
+    await host.writeSheet(block);
+    expect(double.read('Results', 'A4:C4')).toEqual([['1', '', '=not a formula']]);
+    expect(await host.readGrid('Results', 'A4:C4')).toMatchObject({ cells: [['1', null, '=not a formula']] });
+  });
+
+  test('a taken sheet name gets a suffix and the user sheet is left as it was', async () => {
+    const { double, host } = setup({ results: { rows: [['mine']] } });
+    const report = await host.writeSheet(block);
+    expect(report.sheet).toBe('Results (2)');
+    expect(double.read('results', 'A1:C4')).toEqual([['mine', '', ''], ['', '', ''], ['', '', ''], ['', '', '']]);
+  });
+
+  test('values and formulas are all written before any format', async () => {
+    const { double, host } = setup();
+    await host.writeSheet(block);
+    const lastValue = double.log.findLastIndex((l) => l.startsWith('formulas') || l.startsWith('values'));
+    const firstFormat = double.log.findIndex((l) => l.startsWith('format') || l.startsWith('conditionalFormat'));
+    expect(lastValue).toBeGreaterThanOrEqual(0);
+    expect(firstFormat).toBeGreaterThan(lastValue);
+  });
+
+  test('styles become formats: title large, headings bold on a fill', async () => {
+    const { double, host } = setup();
+    await host.writeSheet(block);
+    expect(double.cellFormat('Results', 'A1')).toMatchObject({ 'font.bold': true, 'font.size': 14 });
+    expect(double.cellFormat('Results', 'B2')).toMatchObject({ 'font.bold': true, 'fill.color': '#DCE6F0' });
+  });
+
+  test('column widths follow the block', async () => {
+    const { double, host } = setup();
+    await host.writeSheet(block);
+    const sheet = double.sheet('Results')!;
+    expect(sheet.columnWidths.get(column('A'))).toBeGreaterThan(0);
+    expect(sheet.columnWidths.get(column('B'))!).toBeGreaterThan(sheet.columnWidths.get(column('A'))!);
+  });
+
+  test('status cells get a conditional format: DIFFERS red, OK green', async () => {
+    const { double, host } = setup();
+    await host.writeSheet(block);
+    const rules = double.sheet('Results')!.conditionalFormats;
+    expect(rules).toEqual([
+      { range: 'C3', text: 'DIFFERS', fill: '#F4C7C3', font: '#8B0000' },
+      { range: 'C3', text: 'OK', fill: '#CDE8C5', font: '#1E5B1E' },
+    ]);
+  });
+
+  test('a big block is written in several requests, each under 5 MB', async () => {
+    const rows = Array.from({ length: 40_000 }, (_, r) => [cell(r), cell(`step ${r} text `.repeat(4)), cell(r % 2 === 0, { formula: `ISEVEN(A${r + 1})` })]);
+    const { double, host } = setup();
+    const report = await host.writeSheet({ name: 'Steps', rows });
+    expect(report.range).toBe('A1:C40000');
+    expect(double.read('Steps', 'A40000:B40000')).toEqual([[39_999, rows[39_999]![1]!.value]]);
+    const writes = double.syncs.filter((s) => s.commands.some((c) => c.startsWith('formulas')));
+    expect(writes.length).toBeGreaterThan(1);
+    expect(double.syncs.every((s) => !s.failed && s.requestBytes <= LIMIT)).toBe(true);
+  });
+
+  test('an unusable sheet name is cleaned rather than refused', async () => {
+    const { host } = setup();
+    const report = await host.writeSheet({ name: 'Results: capper/cell [draft] for the night shift', rows: [[cell(1)]] });
+    expect(report.sheet.length).toBeLessThanOrEqual(31);
+    expect(report.sheet).not.toMatch(/[\\/?*[\]:]/);
+  });
+
+  test('writing then reading gives the same values back (any text, number or boolean)', async () => {
+    const value = fc.oneof(
+      fc.integer({ min: -1e6, max: 1e6 }),
+      fc.boolean(),
+      fc.string({ minLength: 1, maxLength: 8 }).filter((s) => s.trim() !== ''),
+      fc.constantFrom('1', 'TRUE', '=A1', "'x", '+1', '-', '2024-01-02', '12:30'),
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.array(value, { minLength: 1, maxLength: 4 }), { minLength: 1, maxLength: 5 }), async (rows) => {
+        const { host } = setup();
+        const width = Math.max(...rows.map((r) => r.length));
+        await host.writeSheet({ name: 'R', rows: rows.map((r) => r.map((v) => cell(v))) });
+        const grid = await host.readGrid('R', `A1:${String.fromCharCode(64 + width)}${rows.length}`);
+        expect(grid.cells).toEqual(rows.map((r) => Array.from({ length: width }, (_, c) => (c < r.length ? r[c] : null))));
+      }),
+      { numRuns: 60 },
+    );
+  });
+});
+
+describe('cells and blocks', () => {
+  test('date formats are told from number formats', () => {
+    expect(['yyyy-mm-dd', 'd/m/yy', 'h:mm', '[$-409]mmm d', 'dd"."mm'].map(isDateFormat)).toEqual([true, true, true, true, true]);
+    expect(['General', '0.00', '#,##0', '"days"0', '@'].map(isDateFormat)).toEqual([false, false, false, false, false]);
+  });
+
+  test('an Office.js error value keeps its text', () => {
+    expect(cellFromExcel('#DIV/0!', 'Error', 'General')).toEqual({ error: '#DIV/0!' });
+  });
+
+  test('row blocks stay within the budget and cover every row once, in order', () => {
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: 1, max: 500 }), { maxLength: 200 }), fc.integer({ min: 500, max: 3000 }), (bytes, budget) => {
+        const blocks = rowBlocks(bytes, budget);
+        expect(blocks.flatMap((b) => Array.from({ length: b.count }, (_, i) => b.start + i))).toEqual(bytes.map((_, i) => i));
+        for (const b of blocks) expect(bytes.slice(b.start, b.start + b.count).reduce((x, y) => x + y, 0)).toBeLessThanOrEqual(budget);
+      }),
+    );
+  });
+
+  test('a host error is an ExcelHostError carrying the Office.js code', async () => {
+    const { host } = setup();
+    const failure = await host.readGrid('Missing', 'A1').catch((e: unknown) => e);
+    expect(failure).toBeInstanceOf(ExcelHostError);
+    expect(failure).toMatchObject({ code: 'ItemNotFound' });
+  });
+});
