@@ -166,7 +166,7 @@ describe('writing', () => {
   test('values and formulas are all written before any format', async () => {
     const { double, host } = setup();
     await host.writeSheet(block);
-    const lastValue = double.log.findLastIndex((l) => l.startsWith('formulas') || l.startsWith('values'));
+    const lastValue = double.log.map((l) => l.startsWith('formulas') || l.startsWith('values')).lastIndexOf(true);
     const firstFormat = double.log.findIndex((l) => l.startsWith('format') || l.startsWith('conditionalFormat'));
     expect(lastValue).toBeGreaterThanOrEqual(0);
     expect(firstFormat).toBeGreaterThan(lastValue);
