@@ -50,7 +50,8 @@ describe('truth tables of expressions', () => {
     fc.assert(
       fc.property(exprArb(sigs), (expr) => {
         const table = truthTable(expr, 7);
-        for (let k = 0; k < 128; k++) expect(has(table, k)).toBe(valueAt(expr, 7, k));
+        const wrong = Array.from({ length: 128 }, (_, k) => k).filter((k) => has(table, k) !== valueAt(expr, 7, k));
+        expect(wrong).toEqual([]);
       }),
       { numRuns: 200 },
     );
