@@ -1,0 +1,519 @@
+// Structured Text read back: POUs, their declarations, and their statements executed
+// symbolically into one Boolean expression per assigned BOOL. Expressions go to the engine's
+// parser; this file only finds statements and the parts a truth table cannot judge.
+import type { Expr } from '../logic/expr/ast.js';
+import { FALSE, TRUE } from '../logic/expr/ast.js';
+import { parseExpression } from '../logic/expr/parse.js';
+import { fail, ok, type Result } from '../logic/result.js';
+import type { Signal } from '../logic/signals.js';
+import { blockKind, kindWord } from './constructs.js';
+import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
+import { PouBuilder, type PouHeader } from './symbolic.js';
+import type { ImplPou, ImplProgram, ImplVariable, PouKind, VarSection } from './types.js';
+
+/** What an ST body is read against: its file, text, and what the rest of the project declares. */
+export interface StContext {
+  readonly file: string;
+  /** The text the tokens' offsets point into. */
+  readonly source: string;
+  readonly globals: readonly ImplVariable[];
+  /** Names of function block types the project defines (upper case). */
+  readonly blockTypes: ReadonlySet<string>;
+}
+
+class StError {
+  constructor(
+    readonly line: number,
+    readonly message: string,
+  ) {}
+}
+
+const SECTIONS: Readonly<Record<string, VarSection>> = {
+  VAR_INPUT: 'input',
+  VAR_OUTPUT: 'output',
+  VAR_IN_OUT: 'in-out',
+  VAR: 'local',
+  VAR_TEMP: 'temp',
+  VAR_EXTERNAL: 'external',
+  VAR_GLOBAL: 'global',
+};
+
+const POU_END: Readonly<Record<PouKind, string>> = {
+  PROGRAM: 'END_PROGRAM',
+  FUNCTION_BLOCK: 'END_FUNCTION_BLOCK',
+  FUNCTION: 'END_FUNCTION',
+};
+
+const OPENERS: Readonly<Record<string, string>> = {
+  IF: 'END_IF',
+  CASE: 'END_CASE',
+  FOR: 'END_FOR',
+  WHILE: 'END_WHILE',
+  REPEAT: 'END_REPEAT',
+};
+const CLOSERS = new Set(Object.values(OPENERS));
+
+/** Words that end or structure statements: never part of an expression. */
+const STATEMENT_WORDS = new Set([
+  ...Object.keys(OPENERS),
+  ...CLOSERS,
+  'THEN', 'ELSIF', 'ELSE', 'OF', 'TO', 'BY', 'DO', 'UNTIL', 'RETURN', 'EXIT', 'CONTINUE',
+  ...Object.keys(SECTIONS), 'END_VAR', ...Object.values(POU_END), ...Object.keys(POU_END),
+]);
+
+const LOGIC_FUNCTIONS = new Set(['AND', 'OR', 'XOR', 'NOT']);
+const BOOL_WORDS = new Set(['TRUE', 'FALSE']);
+
+/** Read a whole .st file: every PROGRAM, FUNCTION_BLOCK and FUNCTION in it. */
+export function readStFile(file: string, text: string): Result<ImplProgram> {
+  const lexed = tokenize(text);
+  if (!lexed.ok) return fail({ message: `${file} ${lexed.error.message}` });
+  const tokens = lexed.value;
+  try {
+    const found = findPous(tokens, text);
+    const blockTypes = new Set(found.pous.filter((p) => p.kind === 'FUNCTION_BLOCK').map((p) => p.name.toUpperCase()));
+    const context: StContext = { file, source: text, globals: found.globals, blockTypes };
+    const pous: ImplPou[] = [];
+    for (const p of found.pous) {
+      const read = readStBody(context, p, tokens.slice(p.bodyStart, p.bodyEnd));
+      if (!read.ok) return read;
+      pous.push(read.value);
+    }
+    if (pous.length === 0) return fail({ message: `${file}: no PROGRAM, FUNCTION_BLOCK or FUNCTION found` });
+    return ok({ file, format: 'st', pous });
+  } catch (e) {
+    if (e instanceof StError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
+    throw e;
+  }
+}
+
+interface FoundPou extends PouHeader {
+  readonly bodyStart: number;
+  readonly bodyEnd: number;
+}
+
+/** POU headers, declarations and body extents; global variables of the whole file. */
+function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[]; globals: ImplVariable[] } {
+  const pous: FoundPou[] = [];
+  const globals: ImplVariable[] = [];
+  let i = 0;
+  while (i < tokens.length) {
+    const t = tokens[i]!;
+    const word = t.kind === 'ident' ? t.text.toUpperCase() : '';
+    if (word === 'PROGRAM' || word === 'FUNCTION_BLOCK' || word === 'FUNCTION') {
+      const kind = word as PouKind;
+      const nameToken = tokens[i + 1];
+      if (nameToken?.kind !== 'ident') throw new StError(t.line, `expected a name after ${word}`);
+      i += 2;
+      const variables: ImplVariable[] = [];
+      if (kind === 'FUNCTION') {
+        if (!isOp(tokens[i], ':')) throw new StError(nameToken.line, `expected ': <type>' after FUNCTION ${nameToken.text}`);
+        const typeToken = tokens[i + 1];
+        if (!typeToken) throw new StError(nameToken.line, 'expected the return type');
+        variables.push({ name: nameToken.text, section: 'output', type: typeToken.text, line: nameToken.line });
+        i += 2;
+      }
+      while (i < tokens.length && tokens[i]!.kind === 'ident' && Object.hasOwn(SECTIONS, tokens[i]!.text.toUpperCase())) {
+        i = readSection(tokens, i, source, variables);
+      }
+      const end = POU_END[kind];
+      const bodyStart = i;
+      while (i < tokens.length && !isWord(tokens[i], end)) {
+        if (isWord(tokens[i], 'PROGRAM', 'FUNCTION_BLOCK', 'FUNCTION')) {
+          throw new StError(tokens[i]!.line, `${word} ${nameToken.text} (line ${t.line}) has no ${end} before this`);
+        }
+        i++;
+      }
+      if (i >= tokens.length) throw new StError(t.line, `${word} ${nameToken.text} has no ${end}`);
+      pous.push({ name: nameToken.text, kind, language: 'ST', line: t.line, variables, bodyStart, bodyEnd: i });
+      i++;
+    } else if (word === 'VAR_GLOBAL') {
+      i = readSection(tokens, i, source, globals);
+    } else if (word === 'TYPE' || word === 'CONFIGURATION') {
+      // Type definitions say nothing about the logic; a configuration may hold global variables.
+      const end = `END_${word}`;
+      i++;
+      while (i < tokens.length && !isWord(tokens[i], end)) {
+        if (isWord(tokens[i], 'VAR_GLOBAL')) i = readSection(tokens, i, source, globals);
+        else i++;
+      }
+      if (i >= tokens.length) throw new StError(t.line, `${word} has no ${end}`);
+      i++;
+    } else if (isOp(t, ';')) i++;
+    else throw new StError(t.line, `expected PROGRAM, FUNCTION_BLOCK or FUNCTION, found '${t.text}'`);
+  }
+  return { pous, globals };
+}
+
+/** One VAR_xxx ... END_VAR section; returns the index after END_VAR. */
+function readSection(tokens: readonly Token[], start: number, source: string, into: ImplVariable[]): number {
+  const head = tokens[start]!;
+  const section = SECTIONS[head.text.toUpperCase()]!;
+  let i = start + 1;
+  while (isWord(tokens[i], 'CONSTANT', 'RETAIN', 'NON_RETAIN', 'PERSISTENT')) i++;
+  while (!isWord(tokens[i], 'END_VAR')) {
+    if (i >= tokens.length) throw new StError(head.line, `${head.text} has no END_VAR`);
+    const names: Token[] = [];
+    for (;;) {
+      const name = tokens[i];
+      if (name?.kind !== 'ident' || STATEMENT_WORDS.has(name.text.toUpperCase())) {
+        throw new StError(name?.line ?? head.line, `expected a variable name in ${head.text}`);
+      }
+      names.push(name);
+      i++;
+      if (isWord(tokens[i], 'AT')) i += 2;
+      if (!isOp(tokens[i], ',')) break;
+      i++;
+    }
+    if (!isOp(tokens[i], ':')) throw new StError(names[0]!.line, `expected ':' and a type after ${names.map((n) => n.text).join(', ')}`);
+    i++;
+    const typeStart = i;
+    i = skipTo(tokens, i, (t) => isOp(t, ':=') || isOp(t, ';'), head.line, 'declaration');
+    if (i === typeStart) throw new StError(names[0]!.line, `expected a type for ${names[0]!.text}`);
+    const type = sourceOf(source, tokens, typeStart, i);
+    let initial: string | undefined;
+    if (isOp(tokens[i], ':=')) {
+      const initStart = ++i;
+      i = skipTo(tokens, i, (t) => isOp(t, ';'), head.line, 'declaration');
+      initial = sourceOf(source, tokens, initStart, i);
+    }
+    i++;
+    for (const n of names) into.push({ name: n.text, section, type, line: n.line, ...(initial !== undefined ? { initial } : {}) });
+  }
+  return i + 1;
+}
+
+/** Index of the first token at bracket depth 0 that satisfies `stop`. */
+function skipTo(tokens: readonly Token[], from: number, stop: (t: Token) => boolean, line: number, what: string): number {
+  let depth = 0;
+  for (let i = from; i < tokens.length; i++) {
+    const t = tokens[i]!;
+    if (depth === 0 && stop(t)) return i;
+    if (isOp(t, '(') || isOp(t, '[')) depth++;
+    else if (isOp(t, ')') || isOp(t, ']')) depth--;
+  }
+  throw new StError(line, `${what} starting on line ${line} is not finished (missing ';' or keyword)`);
+}
+
+function sourceOf(source: string, tokens: readonly Token[], from: number, to: number): string {
+  return from >= to ? '' : source.slice(tokens[from]!.start, tokens[to - 1]!.end);
+}
+
+/** Read one POU's statements (tokens between its declarations and its END_xxx). */
+export function readStBody(context: StContext, header: PouHeader, tokens: readonly Token[]): Result<ImplPou> {
+  try {
+    const builder = new PouBuilder(header, context.globals, assignedNames(tokens));
+    new BodyReader(context, builder, tokens).run();
+    return ok(builder.finish());
+  } catch (e) {
+    if (e instanceof StError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
+    throw e;
+  }
+}
+
+/** Every name the body assigns: `x :=`, `x S=`, `x R=`, and call outputs `=> x`. */
+function assignedNames(tokens: readonly Token[]): Set<string> {
+  const out = new Set<string>();
+  tokens.forEach((t, i) => {
+    if (t.kind !== 'ident') return;
+    const prev = tokens[i - 1];
+    const next = tokens[i + 1];
+    const named = isOp(prev, '(') || isOp(prev, ',') || isOp(prev, '.');
+    if ((isOp(next, ':=') && !named) || isOp(prev, '=>') || (isWord(next, 'S', 'R') && isOp(tokens[i + 2], '='))) {
+      out.add(t.text.toLowerCase());
+    }
+  });
+  return out;
+}
+
+class BodyReader {
+  private i = 0;
+
+  constructor(
+    private readonly context: StContext,
+    private readonly b: PouBuilder,
+    private readonly tokens: readonly Token[],
+  ) {}
+
+  run(): void {
+    this.statements([]);
+    if (this.i < this.tokens.length) throw new StError(this.tokens[this.i]!.line, `unexpected '${this.tokens[this.i]!.text}'`);
+  }
+
+  private get t(): Token | undefined {
+    return this.tokens[this.i];
+  }
+
+  /** Statements until one of the words `until` (not consumed) or the end. */
+  private statements(until: readonly string[]): void {
+    while (this.i < this.tokens.length && !isWord(this.t, ...until)) this.statement();
+  }
+
+  private statement(): void {
+    const t = this.t!;
+    if (isOp(t, ';')) {
+      this.i++;
+      return;
+    }
+    if (t.kind !== 'ident') throw new StError(t.line, `expected a statement, found '${t.text}'`);
+    const word = t.text.toUpperCase();
+    if (word === 'IF') return this.ifStatement();
+    if (word === 'CASE' || word === 'FOR' || word === 'WHILE' || word === 'REPEAT') return this.flowBlock();
+    if (word === 'RETURN' || word === 'EXIT' || word === 'CONTINUE') {
+      this.i++;
+      if (isOp(this.t, ';')) this.i++;
+      const last = this.i >= this.tokens.length;
+      if (!(word === 'RETURN' && last)) this.b.taintEveryOutput('control-flow', `${word} at line ${t.line}`, t.line);
+      return;
+    }
+    if (STATEMENT_WORDS.has(word)) throw new StError(t.line, `unexpected ${t.text}`);
+    this.targetStatement();
+  }
+
+  private ifStatement(): void {
+    const line = this.t!.line;
+    const chain = this.b.beginIf();
+    let keyword = 'IF';
+    while (keyword === 'IF' || keyword === 'ELSIF') {
+      this.i++;
+      chain.enter();
+      const thenAt = skipTo(this.tokens, this.i, (x) => isWord(x, 'THEN'), line, `${keyword} condition`);
+      const cond = this.expression(this.i, thenAt);
+      this.i = thenAt + 1;
+      this.statements(['ELSIF', 'ELSE', 'END_IF']);
+      chain.leave(cond);
+      if (this.i >= this.tokens.length) throw new StError(line, 'IF has no END_IF');
+      keyword = this.t!.text.toUpperCase();
+    }
+    if (keyword === 'ELSE') {
+      this.i++;
+      chain.enter();
+      this.statements(['END_IF']);
+      chain.leave(null);
+      if (this.i >= this.tokens.length) throw new StError(line, 'IF has no END_IF');
+    }
+    this.i++;
+    if (isOp(this.t, ';')) this.i++;
+    chain.end(line);
+  }
+
+  /** CASE and loops: what they assign takes a value a truth table cannot judge. */
+  private flowBlock(): void {
+    const open = this.t!;
+    const word = open.text.toUpperCase();
+    let depth = 0;
+    const start = this.i;
+    for (; this.i < this.tokens.length; this.i++) {
+      const x = this.tokens[this.i]!;
+      if (x.kind !== 'ident') continue;
+      const w = x.text.toUpperCase();
+      if (Object.hasOwn(OPENERS, w)) depth++;
+      else if (CLOSERS.has(w) && --depth === 0) break;
+    }
+    if (this.i >= this.tokens.length) throw new StError(open.line, `${word} has no ${OPENERS[word]}`);
+    const inside = this.tokens.slice(start, this.i);
+    this.i++;
+    if (isOp(this.t, ';')) this.i++;
+    for (const name of assignedNames(inside)) {
+      const v = this.b.variable(name, open.line);
+      if (!this.b.isBool(v.name, open.line)) continue;
+      this.b.assign(v.name, this.b.opaque('control-flow', `${word} at line ${open.line} assigns ${v.name}`, open.line), open.line);
+    }
+  }
+
+  /** `x := e;`, `x S= e;`, `x R= e;`, `inst(...);`, `f(...);`. */
+  private targetStatement(): void {
+    const first = this.t!;
+    let end = this.i + 1;
+    while (isOp(this.tokens[end], '.') || isOp(this.tokens[end], '[')) {
+      end = isOp(this.tokens[end], '.') ? end + 2 : skipTo(this.tokens, end + 1, (x) => isOp(x, ']'), first.line, 'index') + 1;
+    }
+    const simple = end === this.i + 1;
+    const target = this.tokens.slice(this.i, end).map((x) => x.text).join('');
+    const after = this.tokens[end];
+    this.i = end;
+    if (isOp(after, ':=')) {
+      const semi = skipTo(this.tokens, end + 1, (x) => isOp(x, ';'), first.line, 'assignment');
+      if (simple && this.b.isBool(first.text, first.line)) this.b.assign(first.text, this.expression(end + 1, semi), first.line);
+      else if (!simple) this.b.cannotJudge('unsupported', `assignment to ${target} at line ${first.line}`, first.line);
+      this.i = semi + 1;
+    } else if (isWord(after, 'S', 'R') && isOp(this.tokens[end + 1], '=')) {
+      const semi = skipTo(this.tokens, end + 2, (x) => isOp(x, ';'), first.line, 'assignment');
+      const op = `${after!.text.toUpperCase()}=`;
+      const value = this.b.opaque('set-reset', `${op} on ${target} at line ${first.line}`, first.line);
+      if (simple) this.b.assign(target, value, first.line);
+      this.i = semi + 1;
+    } else if (isOp(after, '(') && simple) {
+      const close = skipTo(this.tokens, end + 1, (x) => isOp(x, ')'), first.line, 'call');
+      this.call(first, end + 1, close);
+      this.i = close + 1;
+      if (isOp(this.t, ';')) this.i++;
+    } else {
+      throw new StError(first.line, `expected ':=' or a call after ${target}`);
+    }
+  }
+
+  /** A call statement: an instance of a timer, counter... or a function. Outputs `=> x` become opaque. */
+  private call(name: Token, from: number, to: number): void {
+    const declared = this.b.variable(name.text, name.line);
+    const kind = declared.section === 'undeclared' ? 'function-call' : blockKind(declared.type, this.context.blockTypes);
+    const what =
+      kind === 'function-call'
+        ? `call of ${name.text} at line ${name.line}`
+        : `${kindWord(kind)} ${name.text} (${declared.type}) called at line ${name.line}`;
+    const item = this.b.cannotJudge(kind, what, name.line);
+    for (let k = from; k < to; k++) {
+      const out = this.tokens[k + 1];
+      if (isOp(this.tokens[k], '=>') && out?.kind === 'ident' && this.b.isBool(out.text, out.line)) {
+        this.b.assign(out.text, this.b.leafFor(item, `${name.text}=>${out.text}`), out.line);
+      }
+    }
+  }
+
+  /**
+   * The value of the expression in tokens [from, to): the parts a truth table cannot judge
+   * are replaced by opaque placeholders, the rest handed to the engine's parser, and every
+   * variable substituted by its current value.
+   */
+  private expression(from: number, to: number): Expr {
+    const tokens = this.tokens;
+    const first = tokens[from];
+    if (!first || from >= to) throw new StError(tokens[from - 1]?.line ?? 1, 'expected an expression');
+    const text = this.context.source.slice(first.start, tokens[to - 1]!.end);
+    const lineAt = (k: number): number => tokens[k]!.line;
+
+    const whole = this.wholeOpaque(from, to);
+    if (whole) return this.b.opaque(whole.kind, `${whole.why} "${clip(text)}" at line ${first.line}`, first.line);
+
+    // Rewrite: pieces of text, each remembering where it came from in the source.
+    let rewritten = '';
+    const anchors: { at: number; source: number }[] = [];
+    const signals: Signal[] = [];
+    const values: Expr[] = [];
+    let copiedTo = first.start;
+    const replace = (a: number, b: number, value: Expr | string): void => {
+      const startTok = tokens[a]!;
+      rewritten += this.context.source.slice(copiedTo, startTok.start);
+      anchors.push({ at: rewritten.length, source: startTok.start });
+      if (typeof value === 'string') rewritten += value;
+      else {
+        const placeholder = `__p${signals.length}`;
+        signals.push({ header: placeholder, identifier: placeholder });
+        values.push(value);
+        rewritten += placeholder;
+      }
+      copiedTo = tokens[b - 1]!.end;
+    };
+
+    for (let k = from; k < to; k++) {
+      const x = tokens[k]!;
+      const next = tokens[k + 1];
+      const upper = x.text.toUpperCase();
+      if (x.kind === 'literal') {
+        replace(k, k + 1, /^(BOOL#)?(1|TRUE)$/i.test(x.text) ? 'TRUE' : 'FALSE');
+      } else if (x.kind === 'address') {
+        replace(k, k + 1, this.b.read(x.text, x.line));
+      } else if (x.kind !== 'ident' || LOGIC_FUNCTIONS.has(upper) || BOOL_WORDS.has(upper)) {
+        continue;
+      } else if (k + 1 < to && isOp(next, '(')) {
+        const close = skipTo(tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
+        replace(k, close + 1, this.b.opaque('function-call', `function ${x.text}(...) at line ${x.line}`, x.line));
+        k = close;
+      } else if (k + 1 < to && (isOp(next, '.') || isOp(next, '['))) {
+        const end = this.accessEnd(k, to);
+        replace(k, end, this.access(k, this.context.source.slice(x.start, tokens[end - 1]!.end)));
+        k = end - 1;
+      } else {
+        replace(k, k + 1, this.b.read(x.text, lineAt(k)));
+      }
+    }
+    rewritten += this.context.source.slice(copiedTo, tokens[to - 1]!.end);
+
+    const parsed = parseExpression(rewritten, signals);
+    if (!parsed.ok) {
+      const pos = parsed.error.position ?? 0;
+      const anchor = [...anchors].reverse().find((a) => a.at <= pos);
+      const sourcePos = anchor ? anchor.source + (pos - anchor.at) : first.start + pos;
+      const at = [...tokens.slice(from, to)].reverse().find((y) => y.start <= sourcePos) ?? first;
+      const expected = parsed.error.expected ? `expected ${parsed.error.expected}` : parsed.error.message;
+      throw new StError(at.line, `in "${clip(text)}": ${expected} near '${this.context.source.slice(at.start, at.end)}'`);
+    }
+    return substitute(parsed.value, values);
+  }
+
+  /** End (exclusive) of an access path a.b.c or a[i].b starting at token k. */
+  private accessEnd(k: number, to: number): number {
+    let end = k + 1;
+    while (end < to && (isOp(this.tokens[end], '.') || isOp(this.tokens[end], '['))) {
+      end = isOp(this.tokens[end], '.')
+        ? end + 2
+        : skipTo(this.tokens, end + 1, (x) => isOp(x, ']'), this.tokens[k]!.line, 'index') + 1;
+    }
+    return Math.min(end, to);
+  }
+
+  /** An instance output (T1.Q), a structure member or an array element: opaque. */
+  private access(at: number, path: string): Expr {
+    const base = this.tokens[at]!;
+    const declared = this.b.variable(base.text, base.line);
+    const isIndex = isOp(this.tokens[at + 1], '[');
+    const kind = isIndex ? 'unsupported' : blockKind(declared.type, this.context.blockTypes);
+    const what =
+      kind === 'unsupported' || kind === 'function-call'
+        ? `${isIndex ? 'array element' : 'member'} ${path} at line ${base.line}`
+        : `${kindWord(kind)} ${base.text} (${declared.type}): ${path} at line ${base.line}`;
+    return this.b.opaque(kind === 'function-call' ? 'unsupported' : kind, what, base.line);
+  }
+
+  /**
+   * Whether the whole expression is beyond a truth table: comparisons, arithmetic, numbers,
+   * strings, or non-BOOL variables (outside the arguments of calls, which are opaque anyway).
+   */
+  private wholeOpaque(from: number, to: number): { kind: 'non-bool' | 'unsupported'; why: string } | undefined {
+    for (let k = from; k < to; k++) {
+      const x = this.tokens[k]!;
+      const upper = x.text.toUpperCase();
+      if (x.kind === 'ident') {
+        if (STATEMENT_WORDS.has(upper)) throw new StError(x.line, `unexpected ${x.text} in an expression`);
+        if (upper === 'MOD') return { kind: 'non-bool', why: 'arithmetic' };
+        if (LOGIC_FUNCTIONS.has(upper) || BOOL_WORDS.has(upper)) continue;
+        if (isOp(this.tokens[k + 1], '(') && k + 1 < to) {
+          k = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
+        } else if (isOp(this.tokens[k + 1], '.') || isOp(this.tokens[k + 1], '[')) {
+          k = this.accessEnd(k, to) - 1;
+        } else if (!this.b.isBool(x.text, x.line)) {
+          return { kind: 'non-bool', why: `uses ${x.text} (${this.b.variable(x.text, x.line).type})` };
+        }
+      } else if (x.kind === 'literal') {
+        if (!/^BOOL#(0|1|TRUE|FALSE)$/i.test(x.text) && x.text !== '0' && x.text !== '1') {
+          return { kind: 'non-bool', why: 'uses a non-BOOL value' };
+        }
+      } else if (x.kind === 'string') return { kind: 'non-bool', why: 'uses a string' };
+      else if (x.kind === 'op') {
+        if (['=', '<>', '<', '>', '<=', '>='].includes(x.text)) return { kind: 'non-bool', why: 'comparison' };
+        if (['+', '-', '*', '/', '**'].includes(x.text)) return { kind: 'non-bool', why: 'arithmetic' };
+        if (!['(', ')', ',', '&'].includes(x.text)) return { kind: 'unsupported', why: `'${x.text}' in an expression` };
+      }
+    }
+    return undefined;
+  }
+}
+
+function clip(text: string): string {
+  const flat = text.replace(/\s+/g, ' ').trim();
+  return flat.length > 60 ? `${flat.slice(0, 57)}...` : flat;
+}
+
+/** Replace each placeholder variable (index into values) by its value. */
+function substitute(e: Expr, values: readonly Expr[]): Expr {
+  switch (e.kind) {
+    case 'const':
+      return e.value ? TRUE : FALSE;
+    case 'var':
+      return values[e.input]!;
+    case 'not':
+      return { kind: 'not', arg: substitute(e.arg, values) };
+    default:
+      return { kind: e.kind, args: e.args.map((a) => substitute(a, values)) };
+  }
+}

@@ -1,0 +1,84 @@
+// Implemented PLC logic as read back from a file: per POU, the Boolean expression each
+// assigned variable ends a scan with, and what a truth table cannot judge.
+import type { Expr } from '../logic/expr/ast.js';
+
+/** Why an output cannot be checked against a truth table. */
+export type CannotJudgeKind =
+  /** The variable's new value depends on its own previous value (latch, self-holding rung). */
+  | 'seal-in'
+  /** Reads another variable before this scan assigns it (its value from the previous scan). */
+  | 'previous-scan'
+  | 'timer'
+  | 'counter'
+  /** Rising/falling edge detection (R_TRIG, F_TRIG, edge contacts). */
+  | 'edge'
+  /** Set/reset storage (S=/R=, set/reset coils, SR/RS blocks). */
+  | 'set-reset'
+  | 'function-call'
+  | 'function-block'
+  /** Comparisons, arithmetic or other non-BOOL values. */
+  | 'non-bool'
+  /** CASE, loops, RETURN, jumps: the flow itself is not a Boolean function. */
+  | 'control-flow'
+  /** Array elements, structure members, bodies in languages not read. */
+  | 'unsupported';
+
+/** One construct a truth table cannot judge, where it is. */
+export interface CannotJudge {
+  readonly kind: CannotJudgeKind;
+  readonly pou: string;
+  /** 1-based line in the file. */
+  readonly line: number;
+  /** What it is, in words: "timer T_Clamp (TON)". */
+  readonly what: string;
+}
+
+export type VarSection = 'input' | 'output' | 'in-out' | 'local' | 'temp' | 'external' | 'global' | 'undeclared';
+
+export interface ImplVariable {
+  readonly name: string;
+  readonly section: VarSection;
+  /** Declared type as written ("BOOL", "TON", "INT"); "" when undeclared. */
+  readonly type: string;
+  /** Initial value as written after `:=`, if any. */
+  readonly initial?: string;
+  readonly line: number;
+}
+
+export interface ImplOutput {
+  /** The assigned variable, as declared. */
+  readonly name: string;
+  readonly section: VarSection;
+  /** Line of its last assignment (or coil). */
+  readonly line: number;
+  /**
+   * Its value at the end of a scan over the POU's `inputs` (a var's `input` indexes them).
+   * Absent when it cannot be judged.
+   */
+  readonly expr?: Expr;
+  /** Why it cannot be judged; empty when `expr` is present. */
+  readonly cannotJudge: readonly CannotJudge[];
+}
+
+export type PouKind = 'PROGRAM' | 'FUNCTION_BLOCK' | 'FUNCTION';
+
+export interface ImplPou {
+  readonly name: string;
+  readonly kind: PouKind;
+  readonly language: 'ST' | 'LD' | 'FBD' | 'IL' | 'SFC';
+  readonly line: number;
+  readonly variables: readonly ImplVariable[];
+  /** Variables read but never assigned in the POU: the inputs of its outputs' expressions. */
+  readonly inputs: readonly string[];
+  readonly outputs: readonly ImplOutput[];
+  /** Every construct found that a truth table cannot judge, whether or not an output uses it. */
+  readonly cannotJudge: readonly CannotJudge[];
+  /** Things worth knowing that are not faults: undeclared names taken as BOOL, and so on. */
+  readonly notes: readonly string[];
+}
+
+export interface ImplProgram {
+  readonly file: string;
+  readonly format: 'st' | 'plcopen';
+  readonly pous: readonly ImplPou[];
+}

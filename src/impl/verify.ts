@@ -1,0 +1,291 @@
+// Implementation check of a whole program: each spec output matched to the variable that
+// implements it, its inputs matched to the program's, and the two functions compared on every
+// input combination. Don't-cares, gaps and conflicts are reported beside, never as differences.
+import type { Monomial } from '../logic/anf.js';
+import { count, intersect, members, minus, union, type Combination } from '../logic/bits.js';
+import type { BoolFunction } from '../logic/boolfn.js';
+import { cubeContains } from '../logic/cube.js';
+import { variable, type Expr } from '../logic/expr/ast.js';
+import { truthTable } from '../logic/expr/evaluate.js';
+import { checkImplementation } from '../logic/implcheck.js';
+import { LISTED } from '../logic/proof.js';
+import { signalIndex, type Signal } from '../logic/signals.js';
+import { qualifiedAddress } from '../spec/grid.js';
+import type { SpecTable } from '../spec/types.js';
+import type { NameMapping, NamePair } from './mapping.js';
+import type { CannotJudge, ImplOutput, ImplPou, ImplProgram } from './types.js';
+
+export type VerifyStatus = 'equal' | 'differs' | 'unchecked' | 'not-found';
+
+export interface CounterexampleRow {
+  readonly combination: Combination;
+  /** Spec input values, leftmost input first. */
+  readonly inputs: readonly (0 | 1)[];
+  readonly expected: 0 | 1;
+  readonly actual: 0 | 1;
+  /** The spec row that asks for `expected` here: its cells, and its cell for this output. */
+  readonly specRow?: { readonly cells: string; readonly outputCell: string };
+}
+
+/** Combinations the spec leaves open, and what the implementation does with them. */
+export interface OpenCombinations {
+  readonly count: number;
+  /** Of them, how many the implementation turns ON. */
+  readonly implementationOn: number;
+}
+
+export interface OutputVerdict {
+  /** "Sheet!A3:H13". */
+  readonly table: string;
+  readonly output: Signal;
+  /** Header cell of the output, sheet-qualified. */
+  readonly cell: string;
+  readonly status: VerifyStatus;
+  /** The implementing variable, "Pou.Variable", and the line of its last assignment. */
+  readonly variable?: string;
+  readonly line?: number;
+  readonly combinations: number;
+  readonly mismatchCount: number;
+  /** The first 50 disagreements. */
+  readonly counterexamples: readonly CounterexampleRow[];
+  /** ANF monomials of spec XOR implementation, printed ("Jog AND Mode_setup"), first 50. */
+  readonly differenceMonomials: readonly string[];
+  readonly differenceMonomialCount: number;
+  readonly dontCare: OpenCombinations;
+  /** Gaps take the safe value in the spec; those where the implementation is not safe are counted. */
+  readonly gaps: OpenCombinations & { readonly safe: 0 | 1; readonly unsafe: number; readonly unsafeExamples: readonly Combination[] };
+  /** Combinations the spec asks to be both 1 and 0. */
+  readonly conflicted: number;
+  /** Why the output is unchecked or not found. */
+  readonly reasons: readonly string[];
+  readonly cannotJudge: readonly CannotJudge[];
+}
+
+export interface VerifyReport {
+  readonly file: string;
+  readonly mapping?: string;
+  readonly outputs: readonly OutputVerdict[];
+  /** Input headers per table ("Sheet!range" -> headers), for printing counterexamples. */
+  readonly inputs: Readonly<Record<string, readonly Signal[]>>;
+  /** Spec signals that no program variable implements or feeds. */
+  readonly unmatchedSpec: readonly string[];
+  /** Program inputs and outputs that match no spec signal. */
+  readonly unmatchedProgram: readonly string[];
+  /** Mapping pairs that name a spec signal or a program variable that does not exist. */
+  readonly unusedMapping: readonly string[];
+  /** Everything in the program that a truth table cannot judge. */
+  readonly cannotJudge: readonly CannotJudge[];
+  readonly notes: readonly string[];
+}
+
+const same = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase();
+
+/** Split "Pou.Var" into its POU and variable; a plain name has no POU. */
+function qualified(name: string): { pou?: string; name: string } {
+  const dot = name.indexOf('.');
+  return dot < 0 || name.startsWith('%') ? { name } : { pou: name.slice(0, dot), name: name.slice(dot + 1) };
+}
+
+function pairFor(mapping: NameMapping | undefined, signal: Signal): NamePair | undefined {
+  return mapping?.pairs.find((p) => signalIndex([signal], p.spec) === 0);
+}
+
+/** Does program name `name` (in `pou`) stand for `signal`, by the mapping or by its name? */
+function stands(mapping: NameMapping | undefined, signal: Signal, pou: ImplPou, name: string): boolean {
+  const pair = pairFor(mapping, signal);
+  if (pair) {
+    const q = qualified(pair.program);
+    return same(q.name, name) && (q.pou === undefined || same(q.pou, pou.name));
+  }
+  return signalIndex([signal], name) === 0;
+}
+
+export function verifyImplementation(tables: readonly SpecTable[], impl: ImplProgram, mapping?: NameMapping): VerifyReport {
+  const outputs: OutputVerdict[] = [];
+  const inputs: Record<string, readonly Signal[]> = {};
+  const usedProgram = new Set<string>();
+  const unmatchedSpec: string[] = [];
+  for (const table of tables) {
+    const where = qualifiedAddress(table.sheet, table.range);
+    inputs[where] = table.inputs;
+    table.outputs.forEach((spec, o) => {
+      const verdict = verifyOutput(table, o, impl, mapping);
+      outputs.push(verdict);
+      if (verdict.variable) usedProgram.add(verdict.variable.toLowerCase());
+      if (verdict.status === 'not-found') unmatchedSpec.push(`${where}: output ${spec.signal.header}`);
+    });
+    table.inputs.forEach((signal) => {
+      const feeds = impl.pous.flatMap((p) => p.inputs.filter((n) => stands(mapping, signal, p, n)).map((n) => `${p.name}.${n}`));
+      feeds.forEach((f) => usedProgram.add(f.toLowerCase()));
+      if (feeds.length === 0) unmatchedSpec.push(`${where}: input ${signal.header}`);
+    });
+  }
+  const unmatchedProgram: string[] = [];
+  for (const pou of impl.pous) {
+    for (const n of pou.inputs) if (!usedProgram.has(`${pou.name}.${n}`.toLowerCase())) unmatchedProgram.push(`${pou.name}.${n} (input)`);
+    for (const out of pou.outputs) {
+      if (out.section === 'local' || out.section === 'temp') continue;
+      if (!usedProgram.has(`${pou.name}.${out.name}`.toLowerCase())) unmatchedProgram.push(`${pou.name}.${out.name} (output, line ${out.line})`);
+    }
+  }
+  return {
+    file: impl.file,
+    ...(mapping ? { mapping: mapping.source } : {}),
+    outputs,
+    inputs,
+    unmatchedSpec,
+    unmatchedProgram,
+    unusedMapping: mapping ? unusedPairs(tables, impl, mapping) : [],
+    cannotJudge: impl.pous.flatMap((p) => p.cannotJudge),
+    notes: impl.pous.flatMap((p) => p.notes.map((n) => `${p.name}: ${n}`)),
+  };
+}
+
+function unusedPairs(tables: readonly SpecTable[], impl: ImplProgram, mapping: NameMapping): string[] {
+  const signals = tables.flatMap((t) => [...t.inputs, ...t.outputs.map((o) => o.signal)]);
+  const out: string[] = [];
+  for (const pair of mapping.pairs) {
+    if (signalIndex(signals, pair.spec) < 0) out.push(`${pair.where}: no spec table has a signal '${pair.spec}'`);
+    const q = qualified(pair.program);
+    const known = impl.pous.some(
+      (p) =>
+        (q.pou === undefined || same(q.pou, p.name)) &&
+        (p.inputs.some((n) => same(n, q.name)) || p.variables.some((v) => same(v.name, q.name))),
+    );
+    if (!known) out.push(`${pair.where}: the program has no variable '${pair.program}'`);
+  }
+  return out;
+}
+
+function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: NameMapping | undefined): OutputVerdict {
+  const spec = table.outputs[o]!;
+  const n = table.inputs.length;
+  const base = {
+    table: qualifiedAddress(table.sheet, table.range),
+    output: spec.signal,
+    cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
+    combinations: 2 ** n,
+    mismatchCount: 0,
+    counterexamples: [],
+    differenceMonomials: [],
+    differenceMonomialCount: 0,
+    dontCare: { count: 0, implementationOn: 0 },
+    gaps: { count: 0, implementationOn: 0, safe: spec.safe, unsafe: 0, unsafeExamples: [] },
+    conflicted: 0,
+    cannotJudge: [],
+  };
+  const candidates = impl.pous.flatMap((pou) => pou.outputs.filter((out) => stands(mapping, spec.signal, pou, out.name)).map((out) => ({ pou, out })));
+  const pair = pairFor(mapping, spec.signal);
+  if (candidates.length === 0) {
+    const reason = pair
+      ? `the mapping (${pair.where}) names ${pair.program}, which no POU assigns`
+      : `no POU assigns a variable named ${spec.signal.identifier} or "${spec.signal.header}"; map it in a mapping table`;
+    return { ...base, status: 'not-found', reasons: [reason] };
+  }
+  if (candidates.length > 1) {
+    const names = candidates.map((c) => `${c.pou.name}.${c.out.name} (line ${c.out.line})`).join(', ');
+    return { ...base, status: 'unchecked', reasons: [`assigned in more than one place: ${names}; name one as Pou.Variable in a mapping table`] };
+  }
+  const { pou, out } = candidates[0]!;
+  const found = { ...base, variable: `${pou.name}.${out.name}`, line: out.line };
+  if (!out.expr) {
+    return { ...found, status: 'unchecked', cannotJudge: out.cannotJudge, reasons: out.cannotJudge.map((c) => `${c.what} (${c.pou}, line ${c.line})`) };
+  }
+  const remapped = toSpecInputs(out, pou, table, mapping);
+  if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons };
+  return { ...found, ...compare(remapped.expr, table, o) };
+}
+
+/** The output's expression over the spec's inputs, or why its inputs do not all match. */
+function toSpecInputs(
+  out: ImplOutput,
+  pou: ImplPou,
+  table: SpecTable,
+  mapping: NameMapping | undefined,
+): { ok: true; expr: Expr } | { ok: false; reasons: string[] } {
+  const index: number[] = [];
+  const reasons: string[] = [];
+  pou.inputs.forEach((name, j) => {
+    const matches = table.inputs.map((s, i) => (stands(mapping, s, pou, name) ? i : -1)).filter((i) => i >= 0);
+    if (matches.length > 1) reasons.push(`${name} stands for more than one spec input (${matches.map((i) => table.inputs[i]!.header).join(', ')})`);
+    index[j] = matches.length === 1 ? matches[0]! : -1;
+  });
+  const used = new Set<number>();
+  const walk = (e: Expr): void => {
+    if (e.kind === 'var') used.add(e.input);
+    else if (e.kind === 'not') walk(e.arg);
+    else if (e.kind !== 'const') e.args.forEach(walk);
+  };
+  walk(out.expr!);
+  for (const j of [...used].sort((a, b) => a - b)) {
+    if (index[j] === -1 && !reasons.some((r) => r.startsWith(`${pou.inputs[j]} `))) {
+      reasons.push(`${out.name} uses ${pou.inputs[j]}, which matches no input of the spec table (map it in a mapping table)`);
+    }
+  }
+  if (reasons.length > 0) return { ok: false, reasons };
+  const go = (e: Expr): Expr => {
+    switch (e.kind) {
+      case 'const':
+        return e;
+      case 'var':
+        return variable(index[e.input]!, table.inputs[index[e.input]!]!.identifier);
+      case 'not':
+        return { kind: 'not', arg: go(e.arg) };
+      default:
+        return { kind: e.kind, args: e.args.map(go) };
+    }
+  };
+  return { ok: true, expr: go(out.expr!) };
+}
+
+function compare(expr: Expr, table: SpecTable, o: number): Pick<OutputVerdict, 'status' | 'mismatchCount' | 'counterexamples' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'> {
+  const spec = table.outputs[o]!;
+  const { fn, gaps, conflicted } = spec.built;
+  const n = fn.n;
+  // Gaps and conflicts are the spec's own business: they join the don't-cares for the check.
+  const open = union(gaps, conflicted);
+  const judged: BoolFunction = { n, on: minus(fn.on, open), dc: union(fn.dc, open) };
+  const check = checkImplementation(expr, judged);
+  const values = truthTable(expr, n);
+  const dc = minus(fn.dc, open);
+  const unsafeGaps = spec.safe === 1 ? minus(gaps, values) : intersect(gaps, values);
+  const counterexamples = check.counterexamples.map((c) => {
+    const row = table.rows.find((r) => cubeContains(r.cube, c.combination) && r.values[o] === c.expected);
+    return {
+      combination: c.combination,
+      inputs: c.inputs,
+      expected: c.expected,
+      actual: c.actual,
+      ...(row ? { specRow: { cells: qualifiedAddress(table.sheet, row.cells), outputCell: qualifiedAddress(table.sheet, row.outputCells[o] ?? '') } } : {}),
+    };
+  });
+  return {
+    status: check.equal ? 'equal' : 'differs',
+    mismatchCount: check.mismatchCount,
+    counterexamples,
+    differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
+    differenceMonomialCount: check.differenceMonomialCount,
+    dontCare: { count: count(dc), implementationOn: count(intersect(dc, values)) },
+    gaps: {
+      count: count(gaps),
+      implementationOn: count(intersect(gaps, values)),
+      safe: spec.safe,
+      unsafe: count(unsafeGaps),
+      unsafeExamples: members(unsafeGaps, LISTED),
+    },
+    conflicted: count(conflicted),
+    reasons: [],
+  };
+}
+
+/** A monomial as an AND of identifiers (TRUE for the constant monomial). */
+export function printMonomial(m: Monomial, inputs: readonly Signal[]): string {
+  const n = inputs.length;
+  const names = inputs.filter((_, i) => (m >>> (n - 1 - i)) & 1).map((s) => s.identifier);
+  return names.length === 0 ? 'TRUE' : names.join(' AND ');
+}
+
+/** 0 when every output is equal to its spec; 1 when any differs, is unchecked or is not found. */
+export function verifyExitCode(report: VerifyReport): 0 | 1 {
+  return report.outputs.length > 0 && report.outputs.every((o) => o.status === 'equal') ? 0 : 1;
+}

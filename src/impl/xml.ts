@@ -1,0 +1,259 @@
+// A small XML reader for PLCopen files. It never fetches anything and never expands
+// user-defined entities: a DOCTYPE that declares entities is refused outright (this closes
+// external-entity reads and entity-expansion bombs), and only the five predefined entities
+// and numeric character references are decoded.
+import { fail, ok, type Result } from '../logic/result.js';
+
+export interface XmlElement {
+  /** Qualified name as written (`ppx:pou` keeps its prefix; see localName). */
+  readonly name: string;
+  readonly attrs: Readonly<Record<string, string>>;
+  readonly children: readonly XmlElement[];
+  /** The character data directly inside this element (CDATA included), entities decoded. */
+  readonly text: string;
+  /** 1-based line of the element's `<`. */
+  readonly line: number;
+  /** 1-based line just after the start tag, where `text` begins. */
+  readonly contentLine: number;
+}
+
+interface Building {
+  name: string;
+  attrs: Record<string, string>;
+  children: XmlElement[];
+  text: string;
+  line: number;
+  contentLine: number;
+}
+
+const PREDEFINED: Readonly<Record<string, string>> = { lt: '<', gt: '>', amp: '&', quot: '"', apos: "'" };
+const NAME_START = /[A-Za-z_:\u00C0-\uFFFF]/;
+const NAME_CHAR = /[-A-Za-z0-9_:.\u00B7\u00C0-\uFFFF]/;
+
+/** The name without its namespace prefix: `ppx:pou` -> `pou`. */
+export function localName(name: string): string {
+  const i = name.indexOf(':');
+  return i < 0 ? name : name.slice(i + 1);
+}
+
+/** Children with the given local name. */
+export function childrenNamed(el: XmlElement, name: string): XmlElement[] {
+  return el.children.filter((c) => localName(c.name) === name);
+}
+
+export function childNamed(el: XmlElement, name: string): XmlElement | undefined {
+  return el.children.find((c) => localName(c.name) === name);
+}
+
+/** All character data inside the element and its descendants, in document order. */
+export function textContent(el: XmlElement): string {
+  return el.children.length === 0 ? el.text : el.text + el.children.map(textContent).join('');
+}
+
+class XmlError {
+  constructor(
+    readonly line: number,
+    readonly message: string,
+  ) {}
+}
+
+/** Parse a whole document; the result is its root element. */
+export function parseXml(text: string): Result<XmlElement> {
+  try {
+    return ok(new Reader(text).document());
+  } catch (e) {
+    if (e instanceof XmlError) return fail({ message: `line ${e.line}: ${e.message}` });
+    throw e;
+  }
+}
+
+class Reader {
+  private pos = 0;
+  private line = 1;
+
+  constructor(private readonly src: string) {}
+
+  document(): XmlElement {
+    if (this.src.charCodeAt(0) === 0xfeff) this.pos = 1;
+    let root: XmlElement | undefined;
+    const stack: Building[] = [];
+    while (this.pos < this.src.length) {
+      const lt = this.src.indexOf('<', this.pos);
+      const textEnd = lt < 0 ? this.src.length : lt;
+      if (textEnd > this.pos) {
+        const startLine = this.line;
+        const raw = this.take(textEnd);
+        const top = stack[stack.length - 1];
+        if (top) top.text += this.decode(raw, startLine);
+        else if (raw.trim() !== '') throw new XmlError(startLine, 'text outside the root element');
+      }
+      if (lt < 0) break;
+      if (this.src.startsWith('<!--', lt)) this.skipPast('-->', 'comment');
+      else if (this.src.startsWith('<![CDATA[', lt)) {
+        const top = stack[stack.length - 1];
+        if (!top) throw new XmlError(this.line, 'CDATA outside the root element');
+        this.pos += 9;
+        const end = this.src.indexOf(']]>', this.pos);
+        if (end < 0) throw new XmlError(this.line, 'CDATA section is not closed');
+        top.text += this.take(end);
+        this.pos += 3;
+      } else if (this.src.startsWith('<?', lt)) this.skipPast('?>', 'processing instruction');
+      else if (this.src.startsWith('<!DOCTYPE', lt)) {
+        if (root || stack.length > 0) throw new XmlError(this.line, 'DOCTYPE after the root element started');
+        this.doctype();
+      } else if (this.src.startsWith('<!', lt)) throw new XmlError(this.line, 'unexpected markup declaration');
+      else if (this.src.startsWith('</', lt)) {
+        const line = this.line;
+        this.pos += 2;
+        const name = this.name();
+        this.space();
+        this.expect('>');
+        const open = stack.pop();
+        if (!open) throw new XmlError(line, `closing tag </${name}> without an opening tag`);
+        if (open.name !== name) {
+          throw new XmlError(line, `closing tag </${name}> does not match <${open.name}> opened on line ${open.line}`);
+        }
+        const done: XmlElement = open;
+        const parent = stack[stack.length - 1];
+        if (parent) parent.children.push(done);
+        else root = done;
+      } else {
+        if (root) throw new XmlError(this.line, 'a second root element');
+        const el = this.startTag();
+        if (el.selfClosing) {
+          const parent = stack[stack.length - 1];
+          if (parent) parent.children.push(el.element);
+          else root = el.element;
+        } else stack.push(el.element);
+      }
+    }
+    const open = stack.pop();
+    if (open) throw new XmlError(open.line, `<${open.name}> is not closed`);
+    if (!root) throw new XmlError(this.line, 'no root element');
+    return root;
+  }
+
+  /** Advance to `end`, counting lines; returns the text passed over. */
+  private take(end: number): string {
+    const s = this.src.slice(this.pos, end);
+    for (let i = s.indexOf('\n'); i >= 0; i = s.indexOf('\n', i + 1)) this.line++;
+    this.pos = end;
+    return s;
+  }
+
+  private skipPast(end: string, what: string): void {
+    const line = this.line;
+    const i = this.src.indexOf(end, this.pos);
+    if (i < 0) throw new XmlError(line, `${what} is not closed`);
+    this.take(i + end.length);
+  }
+
+  /** Skip a DOCTYPE, refusing any entity declaration in its internal subset. Nothing is fetched. */
+  private doctype(): void {
+    const line = this.line;
+    let i = this.pos + 9;
+    let quote = '';
+    let depth = 0;
+    for (; i < this.src.length; i++) {
+      const c = this.src[i]!;
+      if (quote) {
+        if (c === quote) quote = '';
+      } else if (c === '"' || c === "'") quote = c;
+      else if (c === '[') depth++;
+      else if (c === ']') depth--;
+      else if (c === '<' && depth > 0 && this.src.startsWith('<!ENTITY', i)) {
+        throw new XmlError(line, 'DOCTYPE with entity declarations is not accepted');
+      } else if (c === '>' && depth === 0) break;
+    }
+    if (i >= this.src.length) throw new XmlError(line, 'DOCTYPE is not closed');
+    this.take(i + 1);
+  }
+
+  private startTag(): { element: Building; selfClosing: boolean } {
+    const line = this.line;
+    this.pos++;
+    const name = this.name();
+    const attrs: [string, string][] = [];
+    const seen = new Set<string>();
+    for (;;) {
+      const spaced = this.space();
+      const c = this.src[this.pos];
+      if (c === '>' || c === '/') break;
+      if (c === undefined) throw new XmlError(line, `<${name}> is not closed`);
+      if (!spaced) throw new XmlError(this.line, `expected a space before attribute in <${name}>`);
+      const attrLine = this.line;
+      const key = this.name();
+      if (seen.has(key)) throw new XmlError(attrLine, `attribute ${key} given twice in <${name}>`);
+      seen.add(key);
+      this.space();
+      this.expect('=');
+      this.space();
+      attrs.push([key, this.attrValue()]);
+    }
+    const selfClosing = this.src[this.pos] === '/';
+    if (selfClosing) this.pos++;
+    this.expect('>');
+    const element: Building = {
+      name,
+      attrs: Object.fromEntries(attrs),
+      children: [],
+      text: '',
+      line,
+      contentLine: this.line,
+    };
+    return { element, selfClosing };
+  }
+
+  private attrValue(): string {
+    const line = this.line;
+    const q = this.src[this.pos];
+    if (q !== '"' && q !== "'") throw new XmlError(line, 'attribute value must be quoted');
+    const end = this.src.indexOf(q, this.pos + 1);
+    if (end < 0) throw new XmlError(line, 'attribute value is not closed');
+    this.pos++;
+    const raw = this.take(end);
+    this.pos++;
+    if (raw.includes('<')) throw new XmlError(line, "'<' inside an attribute value");
+    return this.decode(raw, line).replace(/[\t\n\r]/g, ' ');
+  }
+
+  private name(): string {
+    const start = this.pos;
+    if (!NAME_START.test(this.src[this.pos] ?? '')) throw new XmlError(this.line, 'expected a name');
+    this.pos++;
+    while (this.pos < this.src.length && NAME_CHAR.test(this.src[this.pos]!)) this.pos++;
+    return this.src.slice(start, this.pos);
+  }
+
+  private space(): boolean {
+    let end = this.pos;
+    while (end < this.src.length && /\s/.test(this.src[end]!)) end++;
+    if (end === this.pos) return false;
+    this.take(end);
+    return true;
+  }
+
+  private expect(c: string): void {
+    if (this.src[this.pos] !== c) throw new XmlError(this.line, `expected '${c}'`);
+    this.pos++;
+  }
+
+  private decode(raw: string, line: number): string {
+    if (!raw.includes('&')) return raw;
+    return raw.replace(/&([^;\s&<]*);?/g, (whole, ref: string) => {
+      if (!whole.endsWith(';')) throw new XmlError(line, `'&' must start an entity reference ending in ';'`);
+      const named = PREDEFINED[ref];
+      if (named !== undefined && Object.hasOwn(PREDEFINED, ref)) return named;
+      const num = /^#(?:x([0-9A-Fa-f]+)|([0-9]+))$/.exec(ref);
+      if (num) {
+        const code = num[1] !== undefined ? parseInt(num[1], 16) : parseInt(num[2]!, 10);
+        if (code > 0 && code <= 0x10ffff && !(code >= 0xd800 && code <= 0xdfff)) return String.fromCodePoint(code);
+        throw new XmlError(line, `character reference &${ref}; is not a valid character`);
+      }
+      throw new XmlError(
+        line,
+        `unknown entity &${ref}; (only &lt; &gt; &amp; &quot; &apos; and numeric references are accepted)`,
+      );
+    });
+  }
+}
