@@ -1,0 +1,212 @@
+// The results sheet of one spec table: caution, per output its forms with cost and proof,
+// inputs that do not matter, gaps, conflicts and don't-cares turned on; the signal names; the
+// test steps; and, for up to 12 inputs, a live check that recomputes every form with Excel
+// formulas from the input cells, one row per combination, with a status that reads OK/DIFFERS.
+import { has, type Combination } from '../logic/bits.js';
+import { cubeToPattern } from '../logic/cube.js';
+import { printExcel } from '../logic/expr/print-excel.js';
+import { truthTable } from '../logic/expr/evaluate.js';
+import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
+import { cellAddress, qualifiedAddress } from '../spec/grid.js';
+import { CAUTION_LINES } from './caution.js';
+import type { BlockCell, SheetBlock } from './sheet-block.js';
+import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
+import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
+
+/** The live check writes one row per combination up to this many inputs (4,096 rows). */
+export const LIVE_CHECK_MAX_INPUTS = 12;
+/** Combinations or patterns listed by name in one cell; the count is always complete. */
+const LISTED = 20;
+/** Excel holds at most 32,767 characters in a cell (Microsoft support, "Excel specifications and limits"; from memory). */
+const CELL_CHARS = 32_000;
+
+const FORMS: readonly FormChoice[] = ['andOr', 'xor', 'bestXor'];
+const SHORT: Readonly<Record<FormChoice, string>> = { andOr: 'AND/OR', xor: 'XOR', bestXor: 'best XOR' };
+
+type Row = (BlockCell | null)[];
+
+export function resultsSheet(analysis: TableAnalysis, options: { source?: string } = {}): SheetBlock {
+  const { table } = analysis;
+  const n = analysis.inputs.length;
+  const rows: Row[] = [];
+  rows.push([{ value: `Interlock Algebra results: ${qualifiedAddress(table.sheet, table.range)}`, style: 'title' }]);
+  if (options.source) rows.push([label('Source'), { value: options.source }]);
+  for (const line of CAUTION_LINES) rows.push([{ value: line, style: 'caution' }]);
+  rows.push([]);
+  const summaryRow = rows.length;
+  rows.push([]); // filled in once the live check's place is known
+  rows.push([]);
+
+  if (analysis.problems.length > 0) {
+    rows.push([heading('Spec problems')], [heading('Severity'), heading('Cell'), heading('Message')]);
+    for (const p of analysis.problems) rows.push([{ value: p.severity }, { value: qualifiedAddress(p.sheet, p.cell) }, { value: p.message }]);
+    rows.push([]);
+  }
+  for (const output of analysis.outputs) rows.push(...outputSection(analysis, output), []);
+
+  rows.push([heading('Signals')], [heading('Header'), heading('Identifier'), heading('Role')]);
+  for (const s of analysis.inputs) rows.push([{ value: s.header }, code(s.identifier), { value: 'input' }]);
+  for (const o of analysis.outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
+  rows.push([]);
+
+  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis)), []);
+
+  const statusRanges: string[] = [];
+  if (n <= LIVE_CHECK_MAX_INPUTS) {
+    const live = liveCheck(analysis, rows.length);
+    rows.push(...live.rows);
+    statusRanges.push(live.statusRange);
+    rows[summaryRow] = [
+      label('Combinations that differ (live check)'),
+      { value: live.differs, formula: `COUNTIF(${live.statusRange},"DIFFERS")`, style: 'status' },
+    ];
+  } else {
+    const reason = `Live check left out: ${n} inputs give ${2 ** n} combinations; the live check is written for tables of up to ${LIVE_CHECK_MAX_INPUTS} inputs (${2 ** LIVE_CHECK_MAX_INPUTS} rows).`;
+    rows[summaryRow] = [label('Live check'), { value: reason }];
+  }
+  return {
+    name: sheetName(table.sheet, ' results'),
+    rows,
+    columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: n + 4 * analysis.outputs.length }, () => 12)],
+    statusRanges,
+  };
+}
+
+function outputSection(analysis: TableAnalysis, o: OutputAnalysis): Row[] {
+  const n = analysis.inputs.length;
+  const rows: Row[] = [
+    [heading(`Output ${o.signal.header} (${o.signal.identifier}), safe value ${o.safe}`)],
+    [heading('Form'), heading('Structured Text'), heading('Cost'), heading('Minimum'), heading('Proof')],
+  ];
+  for (const form of FORMS) {
+    const f = chosenForm(o, form);
+    const cost = form === 'andOr' ? `${o.andOr.terms} terms, ${o.andOr.literals} literals` : `${f.terms} terms`;
+    rows.push([label(FORM_LABEL[form]), code(cellText(f.text)), { value: cost }, { value: minimumText(o, form, n) }, { value: proofCell(f.proof) }]);
+  }
+  const unused = o.unusedInputs.map((i) => analysis.inputs[i]!.header);
+  rows.push([label('Inputs that do not matter'), { value: unused.length === 0 ? 'none' : unused.join(', ') }]);
+  rows.push([
+    label('Gaps (take the safe value)'),
+    { value: o.gapCount === 0 ? 'none' : `${o.gapCount} combination(s): ${listed(o.gaps.map((c) => cubeToPattern(n, c)), o.gaps.length)}` },
+  ]);
+  if (o.conflicts.length === 0) rows.push([label('Conflicts'), { value: 'none' }]);
+  for (const c of o.conflicts) {
+    rows.push([
+      label('Conflict (takes the safe value)'),
+      { value: `rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 on ${c.combinations} combination(s), e.g. ${combinationText(n, c.example)}` },
+    ]);
+  }
+  rows.push([label("Don't-care combinations"), { value: `${o.dontCareCount}` }]);
+  for (const form of FORMS) {
+    const f = chosenForm(o, form);
+    if (f.permitsAlsoCount === 0) continue;
+    rows.push([label(`${FORM_LABEL[form]} turns on`), { value: listed(f.permitsAlso.map((k) => combinationText(n, k)), f.permitsAlsoCount) }]);
+  }
+  return rows;
+}
+
+function minimumText(o: OutputAnalysis, form: FormChoice, n: number): string {
+  if (form === 'andOr') return o.andOr.proven ? 'proven minimum' : 'heuristic (minimum not proven)';
+  if (form === 'xor') return 'unique (algebraic normal form)';
+  const complemented = [];
+  for (let i = 0; i < n; i++) if (o.bestXor.polarity & (1 << (n - 1 - i))) complemented.push(i);
+  const which = complemented.length === 0 ? 'no input complemented' : `${complemented.length} input(s) complemented`;
+  return `${which}; ${o.bestXor.exhaustive ? `fewest terms of all 2^${n} polarities` : 'best found, not all polarities searched'}`;
+}
+
+function proofCell(p: { combinations: number; mismatchCount: number }): string {
+  return `${p.combinations} combinations checked, ${p.mismatchCount} mismatch${p.mismatchCount === 1 ? '' : 'es'}`;
+}
+
+interface LiveCheck {
+  readonly rows: Row[];
+  readonly statusRange: string;
+  readonly differs: number;
+}
+
+/**
+ * The live check, starting at 0-based sheet row `top`: a heading, an explanation, column
+ * titles, then one row per combination: its number, the inputs (0/1), and per output the
+ * spec value and one formula per form; then a status formula and a note on gaps.
+ */
+function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
+  const n = analysis.inputs.length;
+  const outputs = analysis.outputs;
+  const specs = analysis.table.outputs;
+  const rows: Row[] = [
+    [heading('Live check')],
+    [{ value: "Each row recomputes every form from its input cells. Status reads OK when every form equals the spec value ('-' = don't-care: any value is OK); the spec column shows the safe value where the spec leaves a gap or conflict." }],
+  ];
+  const titles: Row = [heading('#'), ...analysis.inputs.map((s) => heading(s.identifier))];
+  for (const o of outputs) {
+    titles.push(heading(`${o.signal.identifier} spec`), ...FORMS.map((f) => heading(`${o.signal.identifier} ${SHORT[f]}`)));
+  }
+  titles.push(heading('Status'), heading('Note'));
+  rows.push(titles);
+
+  const values = outputs.map((o) => FORMS.map((f) => truthTable(chosenForm(o, f).expr, n)));
+  const statusCol = 1 + n + 4 * outputs.length;
+  const firstRow = top + rows.length;
+  let differs = 0;
+  for (let k: Combination = 0; k < 2 ** n; k++) {
+    const r = firstRow + k;
+    const row: Row = [{ value: k, style: 'number' }];
+    for (let i = 0; i < n; i++) row.push({ value: (k >>> (n - 1 - i)) & 1, style: 'input' });
+    const conditions: string[] = [];
+    let ok = true;
+    const notes: string[] = [];
+    outputs.forEach((o, j) => {
+      const spec = specs[j]!.built;
+      const specCol = 1 + n + 4 * j;
+      const specRef = cellAddress(r, specCol);
+      const dontCare = has(spec.fn.dc, k);
+      const specValue = dontCare ? '-' : has(spec.fn.on, k) ? 1 : 0;
+      row.push({ value: specValue, style: 'number' });
+      if (has(spec.gaps, k)) notes.push(`${o.signal.identifier}: gap, safe value`);
+      if (has(spec.conflicted, k)) notes.push(`${o.signal.identifier}: conflict, safe value`);
+      const equal: string[] = [];
+      FORMS.forEach((form, f) => {
+        const value = has(values[j]![f]!, k) ? 1 : 0;
+        if (!dontCare && value !== specValue) ok = false;
+        const excel = printExcel(chosenForm(o, form).expr, (input) => cellAddress(r, 1 + input));
+        if (excel.ok) {
+          row.push({ value, formula: `IF(${excel.value},1,0)`, style: 'number' });
+          equal.push(`${cellAddress(r, specCol + 1 + f)}=${specRef}`);
+        } else row.push({ value: `not written as a formula: ${excel.error.message}` });
+      });
+      if (equal.length > 0) conditions.push(`OR(${specRef}="-",${equal.length === 1 ? equal[0] : `AND(${equal.join(',')})`})`);
+    });
+    if (!ok) differs++;
+    const test = conditions.length === 0 ? 'TRUE' : conditions.length === 1 ? conditions[0] : `AND(${conditions.join(',')})`;
+    row.push({ value: ok ? 'OK' : 'DIFFERS', formula: `IF(${test},"OK","DIFFERS")`, style: 'status' });
+    row.push(notes.length > 0 ? { value: notes.join('; ') } : null);
+    rows.push(row);
+  }
+  const statusRange = `${cellAddress(firstRow, statusCol)}:${cellAddress(firstRow + 2 ** n - 1, statusCol)}`;
+  return { rows, statusRange, differs };
+}
+
+function combinationText(n: number, k: Combination): string {
+  return k.toString(2).padStart(n, '0');
+}
+
+function listed(items: readonly string[], total: number): string {
+  const shown = items.slice(0, LISTED).join(', ');
+  return total > LISTED ? `${shown} and ${total - LISTED} more` : shown;
+}
+
+function cellText(s: string): string {
+  return s.length <= CELL_CHARS ? s : `${s.slice(0, CELL_CHARS)} … (cut at ${CELL_CHARS} of ${s.length} characters; see the Structured Text export)`;
+}
+
+function label(value: string): BlockCell {
+  return { value, style: 'label' };
+}
+
+function heading(value: string): BlockCell {
+  return { value, style: 'heading' };
+}
+
+function code(value: string): BlockCell {
+  return { value, style: 'code' };
+}
