@@ -228,12 +228,18 @@ function assignedNames(tokens: readonly Token[]): Set<string> {
 
 class BodyReader {
   private i = 0;
+  /** The source with everything outside tokens (comments) blanked: expression text comes from here. */
+  private readonly clean: string;
 
   constructor(
     private readonly context: StContext,
     private readonly b: PouBuilder,
     private readonly tokens: readonly Token[],
-  ) {}
+  ) {
+    const chars = context.source.replace(/[^\n]/g, ' ').split('');
+    for (const t of tokens) for (let k = t.start; k < t.end; k++) chars[k] = context.source[k]!;
+    this.clean = chars.join('');
+  }
 
   run(): void {
     this.statements([]);
@@ -379,7 +385,7 @@ class BodyReader {
     const tokens = this.tokens;
     const first = tokens[from];
     if (!first || from >= to) throw new StError(tokens[from - 1]?.line ?? 1, 'expected an expression');
-    const text = this.context.source.slice(first.start, tokens[to - 1]!.end);
+    const text = this.clean.slice(first.start, tokens[to - 1]!.end);
     const lineAt = (k: number): number => tokens[k]!.line;
 
     const whole = this.wholeOpaque(from, to);
@@ -393,7 +399,7 @@ class BodyReader {
     let copiedTo = first.start;
     const replace = (a: number, b: number, value: Expr | string): void => {
       const startTok = tokens[a]!;
-      rewritten += this.context.source.slice(copiedTo, startTok.start);
+      rewritten += this.clean.slice(copiedTo, startTok.start);
       anchors.push({ at: rewritten.length, source: startTok.start });
       if (typeof value === 'string') rewritten += value;
       else {
@@ -403,6 +409,7 @@ class BodyReader {
         rewritten += placeholder;
       }
       copiedTo = tokens[b - 1]!.end;
+      anchors.push({ at: rewritten.length, source: copiedTo });
     };
 
     for (let k = from; k < to; k++) {
@@ -421,13 +428,13 @@ class BodyReader {
         k = close;
       } else if (k + 1 < to && (isOp(next, '.') || isOp(next, '['))) {
         const end = this.accessEnd(k, to);
-        replace(k, end, this.access(k, this.context.source.slice(x.start, tokens[end - 1]!.end)));
+        replace(k, end, this.access(k, this.clean.slice(x.start, tokens[end - 1]!.end)));
         k = end - 1;
       } else {
         replace(k, k + 1, this.b.read(x.text, lineAt(k)));
       }
     }
-    rewritten += this.context.source.slice(copiedTo, tokens[to - 1]!.end);
+    rewritten += this.clean.slice(copiedTo, tokens[to - 1]!.end);
 
     const parsed = parseExpression(rewritten, signals);
     if (!parsed.ok) {
@@ -436,7 +443,7 @@ class BodyReader {
       const sourcePos = anchor ? anchor.source + (pos - anchor.at) : first.start + pos;
       const at = [...tokens.slice(from, to)].reverse().find((y) => y.start <= sourcePos) ?? first;
       const expected = parsed.error.expected ? `expected ${parsed.error.expected}` : parsed.error.message;
-      throw new StError(at.line, `in "${clip(text)}": ${expected} near '${this.context.source.slice(at.start, at.end)}'`);
+      throw new StError(at.line, `in "${clip(text)}": ${expected} near '${this.clean.slice(at.start, at.end)}'`);
     }
     return substitute(parsed.value, values);
   }

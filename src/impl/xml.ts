@@ -240,18 +240,20 @@ class Reader {
 
   private decode(raw: string, line: number): string {
     if (!raw.includes('&')) return raw;
-    return raw.replace(/&([^;\s&<]*);?/g, (whole, ref: string) => {
-      if (!whole.endsWith(';')) throw new XmlError(line, `'&' must start an entity reference ending in ';'`);
+    return raw.replace(/&([^;\s&<]*);?/g, (whole: string, ref: string, offset: number) => {
+      // The line is only worked out for an error: most texts hold many entities.
+      const at = (): number => line + (raw.slice(0, offset).match(/\n/g)?.length ?? 0);
+      if (!whole.endsWith(';')) throw new XmlError(at(), `'&' must start an entity reference ending in ';'`);
       const named = PREDEFINED[ref];
       if (named !== undefined && Object.hasOwn(PREDEFINED, ref)) return named;
       const num = /^#(?:x([0-9A-Fa-f]+)|([0-9]+))$/.exec(ref);
       if (num) {
         const code = num[1] !== undefined ? parseInt(num[1], 16) : parseInt(num[2]!, 10);
         if (code > 0 && code <= 0x10ffff && !(code >= 0xd800 && code <= 0xdfff)) return String.fromCodePoint(code);
-        throw new XmlError(line, `character reference &${ref}; is not a valid character`);
+        throw new XmlError(at(), `character reference &${ref}; is not a valid character`);
       }
       throw new XmlError(
-        line,
+        at(),
         `unknown entity &${ref}; (only &lt; &gt; &amp; &quot; &apos; and numeric references are accepted)`,
       );
     });

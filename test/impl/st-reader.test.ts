@@ -1,0 +1,277 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { equals } from '../../src/logic/bits.js';
+import { and, not, or, variable, xor, type Expr } from '../../src/logic/expr/ast.js';
+import { truthTable } from '../../src/logic/expr/evaluate.js';
+import { parseExpression } from '../../src/logic/expr/parse.js';
+import { printSt } from '../../src/logic/expr/print-st.js';
+import { readStFile } from '../../src/impl/st-reader.js';
+import type { CannotJudgeKind, ImplOutput, ImplPou } from '../../src/impl/types.js';
+
+function pouOf(text: string, index = 0): ImplPou {
+  const r = readStFile('t.st', text);
+  if (!r.ok) throw new Error(r.error.message);
+  return r.value.pous[index]!;
+}
+
+function errorOf(text: string): string {
+  const r = readStFile('t.st', text);
+  if (r.ok) throw new Error('expected a failure');
+  return r.error.message;
+}
+
+function output(pou: ImplPou, name: string): ImplOutput {
+  const out = pou.outputs.find((o) => o.name === name);
+  if (!out) throw new Error(`no output ${name} in ${pou.outputs.map((o) => o.name).join(', ')}`);
+  return out;
+}
+
+/** The output's function equals the expected expression, over the POU's inputs. */
+function expectFunction(pou: ImplPou, name: string, expected: string): void {
+  const out = output(pou, name);
+  expect(out.cannotJudge).toEqual([]);
+  const signals = pou.inputs.map((n) => ({ header: n, identifier: n }));
+  const want = parseExpression(expected, signals);
+  if (!want.ok) throw new Error(want.error.message);
+  const n = Math.max(1, pou.inputs.length);
+  expect(equals(truthTable(out.expr!, n), truthTable(want.value, n)), `${name}: ${printSt(out.expr!)} vs ${expected}`).toBe(true);
+}
+
+function kinds(out: ImplOutput): CannotJudgeKind[] {
+  return out.cannotJudge.map((c) => c.kind);
+}
+
+const program = (vars: string, body: string): string =>
+  `PROGRAM P\nVAR_INPUT\n  a, b, c, d : BOOL;\nEND_VAR\nVAR_OUTPUT\n  q, r : BOOL;\nEND_VAR\n${vars}\n${body}\nEND_PROGRAM\n`;
+
+describe('Structured Text reader: declarations and comments', () => {
+  it('reads every variable section with its type, initial value and line', () => {
+    const pou = pouOf(`FUNCTION_BLOCK Fb
+VAR_INPUT x AT %IX0.1 : BOOL; n : INT := 3; END_VAR
+VAR_OUTPUT RETAIN y : BOOL := TRUE; END_VAR
+VAR_TEMP t : BOOL; END_VAR
+VAR T1 : TON; arr : ARRAY [1..2] OF BOOL; END_VAR
+y := x;
+END_FUNCTION_BLOCK`);
+    expect(pou.kind).toBe('FUNCTION_BLOCK');
+    expect(pou.variables.map((v) => [v.name, v.section, v.type, v.initial ?? null, v.line])).toEqual([
+      ['x', 'input', 'BOOL', null, 2],
+      ['n', 'input', 'INT', '3', 2],
+      ['y', 'output', 'BOOL', 'TRUE', 3],
+      ['t', 'temp', 'BOOL', null, 4],
+      ['T1', 'local', 'TON', null, 5],
+      ['arr', 'local', 'ARRAY [1..2] OF BOOL', null, 5],
+    ]);
+  });
+
+  it('drops (* *) comments, nested ones too, and // and /* */ comments', () => {
+    const pou = pouOf(program('', 'q := a (* and (* not *) b *) AND c; // OR d\n/* r := d; */ r := d;'));
+    expectFunction(pou, 'q', 'a AND c');
+    expectFunction(pou, 'r', 'd');
+  });
+
+  it('reads several POUs and the global variables of the file', () => {
+    const text = `VAR_GLOBAL g_Speed : INT; END_VAR
+FUNCTION_BLOCK A VAR_INPUT x : BOOL; END_VAR VAR_OUTPUT y : BOOL; END_VAR y := NOT x; END_FUNCTION_BLOCK
+PROGRAM B VAR_OUTPUT z : BOOL; END_VAR z := g_Speed > 3; END_PROGRAM`;
+    expect(pouOf(text, 0).name).toBe('A');
+    const b = pouOf(text, 1);
+    expect(kinds(output(b, 'z'))).toEqual(['non-bool']);
+  });
+
+  it('takes an undeclared name as a BOOL input and says so', () => {
+    const pou = pouOf(program('', 'q := a AND Extra;'));
+    expectFunction(pou, 'q', 'a AND Extra');
+    expect(pou.notes).toEqual(['Extra (line 9) is not declared in P; taken as a BOOL']);
+  });
+
+  it('reads the BOOL literals TRUE, FALSE, 1, 0 and BOOL#1', () => {
+    const pou = pouOf(program('', 'q := a AND 1 AND BOOL#TRUE; r := a OR BOOL#0 OR FALSE;'));
+    expectFunction(pou, 'q', 'a');
+    expectFunction(pou, 'r', 'a');
+  });
+
+  it('reads the value a FUNCTION returns', () => {
+    const pou = pouOf('FUNCTION Both : BOOL\nVAR_INPUT x, y : BOOL; END_VAR\nBoth := x AND y;\nEND_FUNCTION');
+    expect(pou.kind).toBe('FUNCTION');
+    expectFunction(pou, 'Both', 'x AND y');
+  });
+});
+
+describe('Structured Text reader: symbolic values', () => {
+  it('substitutes intermediate variables', () => {
+    const pou = pouOf(program('VAR ok : BOOL; END_VAR', 'ok := a AND NOT b;\nq := ok OR c;\nr := ok XOR q;'));
+    expectFunction(pou, 'q', '(a AND NOT b) OR c');
+    expectFunction(pou, 'r', '(a AND NOT b) XOR ((a AND NOT b) OR c)');
+    expectFunction(pou, 'ok', 'a AND NOT b');
+  });
+
+  it('a later assignment replaces an earlier one', () => {
+    expectFunction(pouOf(program('', 'q := a;\nq := q AND b;')), 'q', 'a AND b');
+  });
+
+  it('computes IF / ELSIF / ELSE along every branch', () => {
+    const pou = pouOf(program('', 'IF a THEN\n  q := b;\nELSIF c THEN\n  q := d;\n  r := TRUE;\nELSE\n  q := FALSE;\n  r := b;\nEND_IF;'));
+    expectFunction(pou, 'q', '(a AND b) OR (NOT a AND c AND d)');
+    expect(kinds(output(pou, 'r'))).toEqual(['seal-in']);
+  });
+
+  it('an IF without ELSE keeps the value assigned before it', () => {
+    const pou = pouOf(program('', 'q := FALSE;\nIF a AND b THEN q := TRUE; END_IF\nr := c;\nIF d THEN r := NOT r; END_IF'));
+    expectFunction(pou, 'q', 'a AND b');
+    expectFunction(pou, 'r', 'c XOR d');
+  });
+
+  it('nested IFs combine their conditions', () => {
+    const pou = pouOf(program('', 'q := FALSE;\nIF a THEN\n  IF b THEN q := c; ELSE q := d; END_IF;\nEND_IF;'));
+    expectFunction(pou, 'q', 'a AND ((b AND c) OR (NOT b AND d))');
+  });
+
+  it('a VAR_TEMP starts every scan at its initial value, so reading it first is no memory', () => {
+    const pou = pouOf(program('VAR_TEMP t : BOOL; u : BOOL := TRUE; END_VAR', 'q := t OR a;\nr := u AND b;'));
+    expectFunction(pou, 'q', 'a');
+    expectFunction(pou, 'r', 'b');
+  });
+
+  it('reads an expression spread over lines with Excel-style AND(...) and the & operator', () => {
+    expectFunction(pouOf(program('', 'q := AND(a,\n  b) & NOT(c);')), 'q', 'a AND b AND NOT c');
+  });
+});
+
+describe('Structured Text reader: what a truth table cannot judge', () => {
+  it('a seal-in is named with its POU and line, and its output left unchecked', () => {
+    const pou = pouOf(program('VAR Run : BOOL; END_VAR', 'q := a;\nRun := (a OR Run) AND NOT b;'));
+    const run = output(pou, 'Run');
+    expect(run.expr).toBeUndefined();
+    expect(run.cannotJudge).toEqual([{ kind: 'seal-in', pou: 'P', line: 10, what: 'Run feeds back into itself (seal-in / latch), read at line 10' }]);
+    expectFunction(pou, 'q', 'a');
+  });
+
+  it('an IF that leaves an output unassigned on some branch is a latch', () => {
+    const out = output(pouOf(program('', 'IF a THEN q := TRUE; ELSIF b THEN q := FALSE; END_IF;')), 'q');
+    expect(out.cannotJudge.map((c) => c.what)).toEqual(['q keeps its previous value when no branch of the IF at line 9 assigns it (latch)']);
+  });
+
+  it('reading a variable before the scan assigns it uses its previous-scan value', () => {
+    const out = output(pouOf(program('', 'q := r AND a;\nr := b;')), 'q');
+    expect(kinds(out)).toEqual(['previous-scan']);
+    expect(out.cannotJudge[0]!.what).toMatch(/q \(line 9\) uses r from the previous scan/);
+  });
+
+  it('a timer instance, its call and its output are reported; outputs not using it stay checked', () => {
+    const pou = pouOf(program('VAR T_Clamp : TON; END_VAR', 'T_Clamp(IN := a, PT := T#2s);\nq := T_Clamp.Q AND b;\nr := c;'));
+    expect(pou.cannotJudge.map((c) => [c.kind, c.line, c.what])).toEqual([
+      ['timer', 9, 'timer T_Clamp (TON) called at line 9'],
+      ['timer', 10, 'timer T_Clamp (TON): T_Clamp.Q at line 10'],
+    ]);
+    expect(kinds(output(pou, 'q'))).toEqual(['timer']);
+    expectFunction(pou, 'r', 'c');
+  });
+
+  it('a call output written with => takes the block kind', () => {
+    const pou = pouOf(program('VAR Cnt : CTU; END_VAR', 'Cnt(CU := a, PV := 3, Q => q);'));
+    expect(kinds(output(pou, 'q'))).toEqual(['counter']);
+  });
+
+  it('R_TRIG and F_TRIG are edge detection', () => {
+    const pou = pouOf(program('VAR Up : R_TRIG; END_VAR', 'Up(CLK := a);\nq := Up.Q;'));
+    expect(kinds(output(pou, 'q'))).toEqual(['edge']);
+  });
+
+  it('S= and R= and SR blocks are set/reset storage', () => {
+    const pou = pouOf(program('VAR Latch : SR; END_VAR', 'q S= a;\nq R= b;\nLatch(S1 := a, RESET := b);\nr := Latch.Q1;'));
+    expect(kinds(output(pou, 'q'))).toEqual(['set-reset']);
+    expect(output(pou, 'q').cannotJudge[0]!.what).toBe('R= on q at line 10');
+    expect(kinds(output(pou, 'r'))).toEqual(['set-reset']);
+  });
+
+  it('a function other than AND, OR, XOR, NOT is a function call', () => {
+    const out = output(pouOf(program('', 'q := a AND SEL(b, c, d);')), 'q');
+    expect(out.cannotJudge.map((c) => [c.kind, c.what])).toEqual([['function-call', 'function SEL(...) at line 9']]);
+  });
+
+  it('comparisons and arithmetic are non-BOOL', () => {
+    const pou = pouOf(program('VAR n : INT; END_VAR', 'q := a AND (n > 2);\nr := n MOD 2 = 0;'));
+    expect(kinds(output(pou, 'q'))).toEqual(['non-bool']);
+    expect(kinds(output(pou, 'r'))).toEqual(['non-bool']);
+  });
+
+  it('a CASE or a loop makes what it assigns unjudgeable', () => {
+    const pou = pouOf(program('VAR n : INT; END_VAR', 'CASE n OF\n  1: q := a;\n  2: q := b;\nEND_CASE;\nr := c;'));
+    expect(output(pou, 'q').cannotJudge.map((c) => c.what)).toEqual(['CASE at line 9 assigns q']);
+    expectFunction(pou, 'r', 'c');
+  });
+
+  it('a RETURN before the end leaves every output unchecked', () => {
+    const pou = pouOf(program('', 'q := a;\nIF b THEN RETURN; END_IF;\nr := c;'));
+    expect(kinds(output(pou, 'q'))).toEqual(['control-flow']);
+    expect(kinds(output(pou, 'r'))).toEqual(['control-flow']);
+  });
+});
+
+describe('Structured Text reader: errors', () => {
+  it('names the file and line of an IF without END_IF', () => {
+    expect(errorOf(program('', 'IF a THEN\n q := b;'))).toBe('t.st line 9: IF has no END_IF');
+  });
+
+  it('names the line and what the parser expected in a bad expression', () => {
+    expect(errorOf(program('', 'q := a;\nr := a AND OR b;'))).toMatch(/^t\.st line 10: in "a AND OR b": expected .* near 'OR'$/);
+  });
+
+  it('names the line of an unclosed comment', () => {
+    expect(errorOf('(* one\n(* two *)\nPROGRAM P END_PROGRAM')).toBe('t.st line 1: comment (* is not closed');
+  });
+
+  it('refuses text that is not a POU', () => {
+    expect(errorOf('x := 1;')).toBe("t.st line 1: expected PROGRAM, FUNCTION_BLOCK or FUNCTION, found 'x'");
+  });
+
+  it('refuses a POU with no END', () => {
+    expect(errorOf('PROGRAM P\nVAR_OUTPUT q : BOOL; END_VAR\nq := TRUE;')).toBe('t.st line 1: PROGRAM P has no END_PROGRAM');
+  });
+});
+
+describe('Structured Text reader: property', () => {
+  const names = ['a', 'b', 'c', 'd'];
+  const exprAt = (depth: number): fc.Arbitrary<Expr> =>
+    depth === 0
+      ? fc.integer({ min: 0, max: 3 }).map((i) => variable(i, names[i]!))
+      : fc.oneof(
+          exprAt(0),
+          exprAt(depth - 1).map((e) => not(e)),
+          fc.array(exprAt(depth - 1), { minLength: 2, maxLength: 3 }).map((args) => and(...args)),
+          fc.array(exprAt(depth - 1), { minLength: 2, maxLength: 3 }).map((args) => or(...args)),
+          fc.array(exprAt(depth - 1), { minLength: 2, maxLength: 3 }).map((args) => xor(...args)),
+        );
+
+  it('an assignment of any printed expression reads back to the same function', () => {
+    fc.assert(
+      fc.property(exprAt(3), (e) => {
+        const pou = pouOf(program('', `q := ${printSt(e)};`));
+        const out = output(pou, 'q');
+        // The reader's inputs are in order of first use; line its columns up with a..d.
+        const back = pou.inputs.map((n) => names.indexOf(n));
+        const remap = (x: Expr): Expr =>
+          x.kind === 'var' ? variable(back[x.input]!, x.name) : x.kind === 'not' ? not(remap(x.arg)) : x.kind === 'const' ? x : { kind: x.kind, args: x.args.map(remap) };
+        expect(equals(truthTable(remap(out.expr!), 4), truthTable(e, 4))).toBe(true);
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('an IF chain equals its case-by-case reading on every combination', () => {
+    fc.assert(
+      fc.property(exprAt(1), exprAt(1), exprAt(1), exprAt(1), (c1, v1, c2, v2) => {
+        const text = program('', `q := d;\nIF ${printSt(c1)} THEN q := ${printSt(v1)}; ELSIF ${printSt(c2)} THEN q := ${printSt(v2)}; END_IF;`);
+        const pou = pouOf(text);
+        const back = pou.inputs.map((n) => names.indexOf(n));
+        const remap = (x: Expr): Expr =>
+          x.kind === 'var' ? variable(back[x.input]!, x.name) : x.kind === 'not' ? not(remap(x.arg)) : x.kind === 'const' ? x : { kind: x.kind, args: x.args.map(remap) };
+        const d = variable(3, 'd');
+        const expected = or(and(c1, v1), and(not(c1), c2, v2), and(not(c1), not(c2), d));
+        expect(equals(truthTable(remap(output(pou, 'q').expr!), 4), truthTable(expected, 4))).toBe(true);
+      }),
+      { numRuns: 150 },
+    );
+  });
+});
