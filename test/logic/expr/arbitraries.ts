@@ -1,6 +1,7 @@
 // Random expressions and spec tables for property tests of the expression modules and
 // everything that proves forms against specs.
 import fc from 'fast-check';
+import { union, type BitSet } from '../../../src/logic/bits.js';
 import { buildFunction, type BoolFunction, type TableRow } from '../../../src/logic/boolfn.js';
 import { cube } from '../../../src/logic/cube.js';
 import type { Expr } from '../../../src/logic/expr/ast.js';
@@ -61,9 +62,16 @@ export function specArb(minN: number, maxN: number, maxRows = 12): fc.Arbitrary<
         });
       return fc.tuple(fc.constant(n), fc.array(rowArb, { minLength: 1, maxLength: maxRows }), fc.constantFrom<0 | 1>(0, 0, 1));
     })
-    .map(([n, rows, safe]) => {
-      const built = buildFunction(n, rows, safe);
-      if (!built.ok) throw new Error(built.error.message);
-      return { n, rows, safe, fn: built.value.fn };
-    });
+    .map(([n, rows, safe]) => makeSpec(n, rows, safe));
+}
+
+export function makeSpec(n: number, rows: TableRow[], safe: 0 | 1 = 0): RandomSpec {
+  const built = buildFunction(n, rows, safe);
+  if (!built.ok) throw new Error(built.error.message);
+  return { n, rows, safe, fn: built.value.fn };
+}
+
+/** The values an XOR form takes: don't-cares at the output's safe value (DEVELOPERS.md). */
+export function xorValues(s: RandomSpec): BitSet {
+  return s.safe === 0 ? s.fn.on : union(s.fn.on, s.fn.dc);
 }
