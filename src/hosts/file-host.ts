@@ -227,22 +227,11 @@ export class FileHost implements WorkbookHost {
    * itself; writes a temp file in the same folder, then renames it into place.
    */
   async save(outPath: string): Promise<Result<string>> {
-    const target = resolve(outPath);
-    const same = sameFile(this.path, target);
-    if (same) return fail({ message: `${outPath}: is the input file; choose another name for the results` });
-    if (extname(target).toLowerCase() !== '.xlsx') return fail({ message: `${outPath}: results are written as .xlsx; give a name ending in .xlsx` });
-    if (!existsSync(dirname(target))) return fail({ message: `${outPath}: the folder ${dirname(target)} does not exist` });
+    if (sameFile(this.path, outPath)) return fail({ message: `${outPath}: is the input file; choose another name for the results` });
+    if (extname(outPath).toLowerCase() !== '.xlsx') return fail({ message: `${outPath}: results are written as .xlsx; give a name ending in .xlsx` });
     const bytes = this.kind === 'workbook' ? await this.appendInWorker() : ok(this.csvWorkbook());
     if (!bytes.ok) return bytes;
-    const temp = join(dirname(target), `.${basename(target)}.${randomBytes(6).toString('hex')}.tmp`);
-    try {
-      await writeFile(temp, bytes.value, { flag: 'wx' });
-      await rename(temp, target);
-    } catch (e) {
-      await unlink(temp).catch(() => undefined);
-      return fail({ message: `${outPath}: could not be written (${(e as Error).message})` });
-    }
-    return ok(target);
+    return writeOutputFile(this.path, outPath, bytes.value);
   }
 
   /** Source parsed again in the worker (never in this realm), our sheets appended there. */
@@ -263,6 +252,25 @@ export class FileHost implements WorkbookHost {
     for (const q of this.queued) XLSX.utils.book_append_sheet(book, q.sheet, q.name);
     return new Uint8Array(XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true }) as ArrayBuffer);
   }
+}
+
+/**
+ * Write a file the program produced: never over `input` (by any name), into an existing
+ * folder, through a temp file in that folder renamed into place (no half-written file).
+ */
+export async function writeOutputFile(input: string, outPath: string, data: Uint8Array | string): Promise<Result<string>> {
+  const target = resolve(outPath);
+  if (sameFile(input, target)) return fail({ message: `${outPath}: is the input file; choose another name` });
+  if (!existsSync(dirname(target))) return fail({ message: `${outPath}: the folder ${dirname(target)} does not exist` });
+  const temp = join(dirname(target), `.${basename(target)}.${randomBytes(6).toString('hex')}.tmp`);
+  try {
+    await writeFile(temp, data, { flag: 'wx' });
+    await rename(temp, target);
+  } catch (e) {
+    await unlink(temp).catch(() => undefined);
+    return fail({ message: `${outPath}: could not be written (${(e as Error).message})` });
+  }
+  return ok(target);
 }
 
 /**

@@ -1,0 +1,160 @@
+// Command-line words -> a command, or the usage error to print (exit status 2).
+import type { SafeValue } from '../logic/boolfn.js';
+import { fail, ok, type Result } from '../logic/result.js';
+import type { FormChoice } from '../report/st-export.js';
+import { parseRange } from '../spec/grid.js';
+
+/** Which tables to read, and how (the options of every command that reads a workbook). */
+export interface SpecChoice {
+  readonly sheet?: string;
+  readonly range?: string;
+  readonly xMeansDontCare: boolean;
+  readonly inputs?: number;
+  /** Safe value per output, by header or identifier. */
+  readonly safe: Readonly<Record<string, SafeValue>>;
+  /** Longest the workbook parse may take, in milliseconds. */
+  readonly timeLimitMs?: number;
+}
+
+export type Command =
+  | { readonly name: 'help' }
+  | { readonly name: 'analyze'; readonly file: string; readonly spec: SpecChoice; readonly json: boolean; readonly out?: string }
+  | {
+      readonly name: 'export';
+      readonly file: string;
+      readonly spec: SpecChoice;
+      readonly st?: string;
+      readonly plcopen?: string;
+      readonly svg?: string;
+      readonly steps?: string;
+      readonly form: FormChoice;
+      readonly ladderBody: boolean;
+    }
+  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean };
+
+export const USAGE = `Usage:
+  interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
+  interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
+                            [--form and-or|xor|best-xor] [--ld] [spec options]
+  interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+
+Spec options:
+  --sheet NAME            read only this sheet
+  --range A1:H20          read only this range (of --sheet, or of the only sheet)
+  --x-means-dont-care     read X cells as '-' (any / don't-care); otherwise an X is an error
+  --inputs N              the first N signal columns are inputs, the rest outputs
+  --safe NAME=0|1         an output's safe value (default 0); may be given more than once
+  --time-limit SECONDS    longest the workbook may take to read (default 20)
+
+Exit status: 0 every form proven against the spec (verify: the implementation is equal),
+1 a spec error or a failed check, 2 a usage error or a file that cannot be read.`;
+
+type Kind = 'flag' | 'value' | 'many';
+const SPEC_FLAGS: Record<string, Kind> = {
+  '--sheet': 'value',
+  '--range': 'value',
+  '--x-means-dont-care': 'flag',
+  '--inputs': 'value',
+  '--safe': 'many',
+  '--time-limit': 'value',
+};
+const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
+  analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
+  export: { ...SPEC_FLAGS, '--st': 'value', '--plcopen': 'value', '--svg': 'value', '--steps': 'value', '--form': 'value', '--ld': 'flag' },
+  verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag' },
+};
+
+const FORMS: Readonly<Record<string, FormChoice>> = { 'and-or': 'andOr', xor: 'xor', 'best-xor': 'bestXor' };
+
+interface Words {
+  readonly positional: string[];
+  readonly values: Map<string, string[]>;
+}
+
+function splitWords(argv: readonly string[], flags: Record<string, Kind>): Result<Words, string> {
+  const positional: string[] = [];
+  const values = new Map<string, string[]>();
+  for (let i = 0; i < argv.length; i++) {
+    const word = argv[i]!;
+    if (!word.startsWith('-') || word === '-') {
+      positional.push(word);
+      continue;
+    }
+    const eq = word.indexOf('=');
+    const name = word.startsWith('--') && eq > 0 ? word.slice(0, eq) : word;
+    const kind = flags[name];
+    if (!kind) return fail(`unknown option ${name}`);
+    let value = 'true';
+    if (kind !== 'flag') {
+      if (eq > 0 && word.startsWith('--')) value = word.slice(eq + 1);
+      else if (i + 1 < argv.length) value = argv[++i]!;
+      else return fail(`${name} needs a value`);
+    } else if (eq > 0 && word.startsWith('--')) return fail(`${name} takes no value`);
+    const seen = values.get(name) ?? [];
+    if (kind !== 'many' && seen.length > 0) return fail(`${name} given twice`);
+    values.set(name, [...seen, value]);
+  }
+  return ok({ positional, values });
+}
+
+function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
+  const one = (name: string): string | undefined => values.get(name)?.[0];
+  const range = one('--range');
+  if (range !== undefined && !parseRange(range)) return fail(`--range "${range}" is not an A1 range such as A1:H20`);
+  const inputsText = one('--inputs');
+  const inputs = inputsText === undefined ? undefined : Number(inputsText);
+  if (inputs !== undefined && (!Number.isInteger(inputs) || inputs < 1)) return fail(`--inputs needs a whole number of at least 1, got "${inputsText}"`);
+  const safe: Record<string, SafeValue> = {};
+  for (const pair of values.get('--safe') ?? []) {
+    const m = /^(.+)=([01])$/.exec(pair);
+    if (!m) return fail(`--safe needs NAME=0 or NAME=1, got "${pair}"`);
+    safe[m[1]!.trim()] = m[2] === '1' ? 1 : 0;
+  }
+  const limitText = one('--time-limit');
+  const seconds = limitText === undefined ? undefined : Number(limitText);
+  if (seconds !== undefined && !(seconds > 0 && seconds <= 3600)) return fail(`--time-limit needs seconds between 0 and 3600, got "${limitText}"`);
+  const sheet = one('--sheet');
+  return ok({
+    ...(sheet !== undefined ? { sheet } : {}),
+    ...(range !== undefined ? { range } : {}),
+    xMeansDontCare: values.has('--x-means-dont-care'),
+    ...(inputs !== undefined ? { inputs } : {}),
+    safe,
+    ...(seconds !== undefined ? { timeLimitMs: seconds * 1000 } : {}),
+  });
+}
+
+export function parseArgs(argv: readonly string[]): Result<Command, string> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') return ok({ name: 'help' });
+  const flags = COMMAND_FLAGS[name];
+  if (!flags) return fail(`unknown command "${name}" (expected analyze, export or verify)`);
+  if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
+  const words = splitWords(rest, flags);
+  if (!words.ok) return words;
+  const { positional, values } = words.value;
+  if (positional.length === 0) return fail(`${name} needs a workbook or CSV file`);
+  if (positional.length > 1) return fail(`${name} takes one file, got ${positional.length}: ${positional.join(', ')}`);
+  const file = positional[0]!;
+  const spec = readSpec(values);
+  if (!spec.ok) return spec;
+  const one = (flag: string): string | undefined => values.get(flag)?.[0];
+  if (name === 'analyze') {
+    if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
+    const out = one('-o') ?? one('--out');
+    return ok({ name, file, spec: spec.value, json: values.has('--json'), ...(out !== undefined ? { out } : {}) });
+  }
+  if (name === 'export') {
+    const targets = { st: one('--st'), plcopen: one('--plcopen'), svg: one('--svg'), steps: one('--steps') };
+    if (Object.values(targets).every((t) => t === undefined)) return fail('export needs at least one of --st, --plcopen, --svg, --steps');
+    const formText = one('--form') ?? 'and-or';
+    const form = FORMS[formText];
+    if (!form) return fail(`--form needs and-or, xor or best-xor, got "${formText}"`);
+    const defined = Object.fromEntries(Object.entries(targets).filter(([, v]) => v !== undefined)) as Record<string, string>;
+    return ok({ name, file, spec: spec.value, ...defined, form, ladderBody: values.has('--ld') });
+  }
+  const impl = one('--impl');
+  if (impl === undefined) return fail('verify needs --impl <file.st|file.xml>');
+  const map = one('--map');
+  return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json') });
+}

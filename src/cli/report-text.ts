@@ -1,0 +1,121 @@
+// The readable report of `analyze`: per table its signals, per output its forms, proof,
+// gaps, conflicts and don't-cares turned on, then the problems with sheet!cell, then the caution.
+import type { Combination } from '../logic/bits.js';
+import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
+import type { Signal } from '../logic/signals.js';
+import { CAUTION_LINES } from '../report/caution.js';
+import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from '../spec/analysis-types.js';
+import { qualifiedAddress } from '../spec/grid.js';
+import type { Problem, RoleRule } from '../spec/types.js';
+
+/** Patterns listed by name in one line of the report; the counts are always complete. */
+const LISTED = 8;
+
+const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
+  'role-row': 'the role row above the headers',
+  'separator-column': 'the empty column between them',
+  'user-choice': 'the --inputs option',
+};
+
+export function problemLine(p: Problem): string {
+  return `  ${p.severity.padEnd(7)} ${qualifiedAddress(p.sheet, p.cell)}  ${p.message}`;
+}
+
+function plural(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}
+
+function combinationPattern(n: number, k: Combination): string {
+  return cubeToPattern(n, cube((1 << n) - 1, k));
+}
+
+function patternList(patterns: readonly string[], total: number): string {
+  const shown = patterns.slice(0, LISTED).join(', ');
+  return total > LISTED ? `${shown}, ... (${total} in all)` : shown;
+}
+
+function proofWord(proof: FormProof): string {
+  if (proof.mismatchCount === 0) return 'OK';
+  return `DIFFERS at ${plural(proof.mismatchCount, 'combination')}`;
+}
+
+function complemented(form: XorForm, inputs: readonly Signal[]): string {
+  const n = inputs.length;
+  const names = inputs.filter((_, i) => form.polarity & (1 << (n - 1 - i))).map((s) => s.identifier);
+  return names.length === 0 ? 'no input complemented' : `complemented: ${names.join(', ')}`;
+}
+
+function outputLines(o: OutputAnalysis, inputs: readonly Signal[]): string[] {
+  const n = inputs.length;
+  const id = o.signal.identifier;
+  const lines: string[] = [];
+  lines.push('', `Output ${o.signal.header} (${id}), safe value ${o.safe}`);
+  const a = o.andOr;
+  lines.push(`  AND/OR form, ${a.proven ? 'proven minimum' : 'heuristic (not proven minimal)'}: ${plural(a.terms, 'term')}, ${plural(a.literals, 'literal')}`);
+  lines.push(`    ${id} := ${a.text};`);
+  lines.push(`  XOR form: ${plural(o.xor.terms, 'term')}, degree ${o.degree}`);
+  lines.push(`    ${id} := ${o.xor.text};`);
+  const exhaustive = o.bestXor.exhaustive ? 'best of all polarities' : 'best polarity found (search not exhaustive)';
+  lines.push(`  Best-polarity XOR form: ${plural(o.bestXor.terms, 'term')}, ${exhaustive}, ${complemented(o.bestXor, inputs)}`);
+  lines.push(`    ${id} := ${o.bestXor.text};`);
+  lines.push(
+    `  Proof over all ${a.proof.combinations} combinations: AND/OR ${proofWord(a.proof)}, XOR ${proofWord(o.xor.proof)}, best XOR ${proofWord(o.bestXor.proof)}`,
+  );
+  for (const [label, proof] of [['AND/OR', a.proof], ['XOR', o.xor.proof], ['best XOR', o.bestXor.proof]] as const) {
+    if (proof.mismatchCount > 0)
+      lines.push(`    ${label} differs from the spec at: ${patternList(proof.mismatches.map((k) => combinationPattern(n, k)), proof.mismatchCount)}`);
+  }
+  const unused = o.unusedInputs.map((i) => inputs[i]!.identifier);
+  lines.push(`  Inputs that do not matter: ${unused.length === 0 ? 'none' : unused.join(', ')}`);
+  lines.push(
+    o.gapCount === 0
+      ? '  Gaps: none'
+      : `  Gaps: ${plural(o.gapCount, 'combination')} no row covers, set to the safe value ${o.safe}: ${patternList(o.gaps.map((c: Cube) => cubeToPattern(n, c)), o.gaps.length)}`,
+  );
+  if (o.conflicts.length === 0) lines.push('  Conflicts: none');
+  for (const c of o.conflicts)
+    lines.push(
+      `  Conflict: rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 at ${plural(c.combinations, 'combination')} (e.g. ${combinationPattern(n, c.example)}); the safe value ${o.safe} is used`,
+    );
+  if (o.dontCareCount === 0) lines.push("  Don't-cares: none");
+  else {
+    const on = a.permitsAlsoCount;
+    const listed = patternList(a.permitsAlso.map((k) => combinationPattern(n, k)), on);
+    lines.push(`  Don't-cares: ${plural(o.dontCareCount, 'combination')}; the AND/OR form turns ${on === 0 ? 'none of them' : `${on} of them`} ON${on === 0 ? '' : `: ${listed}`}`);
+    if (on > 0) lines.push('    (check each is acceptable; write 0 in the table where it is not)');
+  }
+  return lines;
+}
+
+export function tableReport(analysis: TableAnalysis): string[] {
+  const t = analysis.table;
+  const inputs = analysis.inputs;
+  const lines: string[] = [];
+  const title = `Table ${qualifiedAddress(t.sheet, t.range)}: ${plural(inputs.length, 'input')}, ${plural(analysis.outputs.length, 'output')}, ${plural(t.rows.length, 'row')}`;
+  lines.push(title, '='.repeat(Math.min(title.length, 100)));
+  lines.push(`Inputs and outputs told apart by ${ROLE_RULE[t.roleRule]}.${t.xReading === 'dont-care' ? " X cells read as '-' (any / don't-care)." : ''}`);
+  lines.push('Signals (header -> identifier):');
+  const width = Math.min(40, Math.max(...[...inputs, ...analysis.outputs.map((o) => o.signal)].map((s) => s.header.length)));
+  for (const s of inputs) lines.push(`  in   ${s.header.padEnd(width)} -> ${s.identifier}`);
+  for (const o of analysis.outputs) lines.push(`  out  ${o.signal.header.padEnd(width)} -> ${o.signal.identifier}`);
+  lines.push(`Patterns below list input values in this order, '-' = any: ${inputs.map((s) => s.identifier).join(', ')}`);
+  for (const o of analysis.outputs) lines.push(...outputLines(o, inputs));
+  if (analysis.problems.length > 0) {
+    lines.push('', 'Problems:');
+    for (const p of analysis.problems) lines.push(problemLine(p));
+  }
+  return lines;
+}
+
+/** The whole report: each table, the problems outside any table, a verdict line and the caution. */
+export function analysisReport(analyses: readonly TableAnalysis[], otherProblems: readonly Problem[], verdict: string): string {
+  const lines: string[] = [];
+  for (const a of analyses) lines.push(...tableReport(a), '');
+  if (otherProblems.length > 0) {
+    lines.push('Problems outside the tables above:');
+    for (const p of otherProblems) lines.push(problemLine(p));
+    lines.push('');
+  }
+  lines.push(verdict, '', ...CAUTION_LINES);
+  return lines.join('\n') + '\n';
+}

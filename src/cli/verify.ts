@@ -1,0 +1,68 @@
+// `verify`: an implementation (Structured Text or PLCopen XML) checked against the spec tables,
+// every input combination, with counterexamples where it differs.
+import { readFile, stat } from 'node:fs/promises';
+import { basename } from 'node:path';
+import type { Result } from '../logic/result.js';
+import { readMappingCsv } from '../impl/mapping.js';
+import { readImplementation } from '../impl/read.js';
+import { verifyExitCode, verifyImplementation } from '../impl/verify.js';
+import { verifyReportJson, verifyReportText } from '../impl/verify-report.js';
+import type { Command } from './args.js';
+import { EXIT, type CliIo, type ExitCode } from './io.js';
+import { loadTables } from './load.js';
+import type { Progress } from './progress.js';
+import { problemLine } from './report-text.js';
+
+type VerifyCommand = Extract<Command, { name: 'verify' }>;
+
+/** Implementation and mapping files are text we parse ourselves; this bounds what we read. */
+const MAX_TEXT_BYTES = 20 * 1024 * 1024;
+
+async function readText(path: string, what: string): Promise<Result<string, string>> {
+  try {
+    const info = await stat(path);
+    if (!info.isFile()) return { ok: false, error: `${path}: the ${what} is not a file` };
+    if (info.size > MAX_TEXT_BYTES) return { ok: false, error: `${path}: the ${what} is larger than ${MAX_TEXT_BYTES} bytes` };
+    return { ok: true, value: await readFile(path, 'utf8') };
+  } catch {
+    return { ok: false, error: `${path}: no such ${what} file` };
+  }
+}
+
+export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Progress): Promise<ExitCode> {
+  const implText = await readText(cmd.impl, 'implementation');
+  if (!implText.ok) {
+    io.err(`error: ${implText.error}\n`);
+    return EXIT.usage;
+  }
+  const mapText = cmd.map === undefined ? undefined : await readText(cmd.map, 'mapping');
+  if (mapText && !mapText.ok) {
+    io.err(`error: ${mapText.error}\n`);
+    return EXIT.usage;
+  }
+  const loaded = await loadTables(cmd.file, cmd.spec, progress);
+  if (!loaded.ok) {
+    io.err(`error: ${loaded.error}\n`);
+    return EXIT.usage;
+  }
+  const { tables, otherProblems } = loaded.value;
+  // A program that cannot be read, or a mapping that cannot, is a finding about the user's
+  // files (exit 1), reported with file and line.
+  const program = readImplementation(basename(cmd.impl), implText.value);
+  if (!program.ok) {
+    io.err(`error: ${program.error.message}\n`);
+    return EXIT.failed;
+  }
+  const mapping = mapText?.ok ? readMappingCsv(basename(cmd.map!), mapText.value) : undefined;
+  if (mapping && !mapping.ok) {
+    io.err(`error: ${mapping.error.message}\n`);
+    return EXIT.failed;
+  }
+  progress.note(`checking ${cmd.impl} against ${tables.length} spec table(s)`);
+  const report = verifyImplementation(tables, program.value, mapping?.value);
+  if (cmd.json) io.out(JSON.stringify(verifyReportJson(report), null, 2) + '\n');
+  else io.out(verifyReportText(report));
+  const specErrors = [...otherProblems, ...tables.flatMap((t) => t.problems)].filter((p) => p.severity === 'error');
+  for (const p of specErrors) io.err(problemLine(p) + '\n');
+  return specErrors.length > 0 || tables.length === 0 ? EXIT.failed : verifyExitCode(report);
+}
