@@ -2,7 +2,6 @@
 // spec table read, written only when every form is proven and the spec has no error.
 import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
-import { toIdentifiers } from '../logic/identifiers.js';
 import { sameFile, writeOutputFile } from '../hosts/file-host.js';
 import { ladderSvg } from '../report/ladder-svg.js';
 import { exportPlcopen } from '../report/plcopen-export.js';
@@ -24,11 +23,18 @@ interface PackFile {
   readonly text: string;
 }
 
-/** SVG file names: sheet and output identifiers, unique, so one folder holds every picture. */
+/** SVG file names from sheet and output identifier, safe on any file system, unique in the folder. */
 function ladderFiles(analyses: readonly TableAnalysis[], dir: string): PackFile[] {
-  const pictures = analyses.flatMap((a) => a.outputs.map((o) => ({ a, o })));
-  const names = toIdentifiers(pictures.map(({ a, o }) => `${a.table.sheet} ${o.signal.identifier}`));
-  return pictures.map(({ a, o }, i) => ({ path: join(dir, `${names[i]}.svg`), text: ladderSvg(o, a.inputs) }));
+  const used = new Set<string>();
+  return analyses.flatMap((a) =>
+    a.outputs.map((o) => {
+      const stem = `${a.table.sheet}-${o.signal.identifier}`.replace(/[^A-Za-z0-9_-]+/g, '_');
+      let name = stem;
+      for (let i = 2; used.has(name.toLowerCase()); i++) name = `${stem}-${i}`;
+      used.add(name.toLowerCase());
+      return { path: join(dir, `${name}.svg`), text: ladderSvg(o, a.inputs) };
+    }),
+  );
 }
 
 function packFiles(cmd: ExportCommand, analyses: readonly TableAnalysis[], source: string): PackFile[] {
