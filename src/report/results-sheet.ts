@@ -12,6 +12,7 @@ import { CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
 import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
+import { plural } from './text.js';
 
 /** The live check writes one row per combination up to this many inputs (4,096 rows). */
 export const LIVE_CHECK_MAX_INPUTS = 12;
@@ -80,20 +81,20 @@ function outputSection(analysis: TableAnalysis, o: OutputAnalysis): Row[] {
   ];
   for (const form of FORMS) {
     const f = chosenForm(o, form);
-    const cost = form === 'andOr' ? `${o.andOr.terms} terms, ${o.andOr.literals} literals` : `${f.terms} terms`;
+    const cost = form === 'andOr' ? `${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}` : plural(f.terms, 'term');
     rows.push([label(FORM_LABEL[form]), code(cellText(f.text)), { value: cost }, { value: minimumText(o, form, n) }, { value: proofCell(f.proof) }]);
   }
   const unused = o.unusedInputs.map((i) => analysis.inputs[i]!.header);
   rows.push([label('Inputs that do not matter'), { value: unused.length === 0 ? 'none' : unused.join(', ') }]);
   rows.push([
     label('Gaps (take the safe value)'),
-    { value: o.gapCount === 0 ? 'none' : `${o.gapCount} combination(s): ${listed(o.gaps.map((c) => cubeToPattern(n, c)), o.gaps.length)}` },
+    { value: o.gapCount === 0 ? 'none' : `${plural(o.gapCount, 'combination')}: ${listed(o.gaps.map((c) => cubeToPattern(n, c)), o.gaps.length)}` },
   ]);
   if (o.conflicts.length === 0) rows.push([label('Conflicts'), { value: 'none' }]);
   for (const c of o.conflicts) {
     rows.push([
       label('Conflict (takes the safe value)'),
-      { value: `rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 on ${c.combinations} combination(s), e.g. ${combinationText(n, c.example)}` },
+      { value: `rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 on ${plural(c.combinations, 'combination')}, e.g. ${combinationText(n, c.example)}` },
     ]);
   }
   rows.push([label("Don't-care combinations"), { value: `${o.dontCareCount}` }]);
@@ -110,7 +111,7 @@ function minimumText(o: OutputAnalysis, form: FormChoice, n: number): string {
   if (form === 'xor') return 'unique (algebraic normal form)';
   const complemented = [];
   for (let i = 0; i < n; i++) if (o.bestXor.polarity & (1 << (n - 1 - i))) complemented.push(i);
-  const which = complemented.length === 0 ? 'no input complemented' : `${complemented.length} input(s) complemented`;
+  const which = complemented.length === 0 ? 'no input complemented' : `${plural(complemented.length, 'input')} complemented`;
   return `${which}; ${o.bestXor.exhaustive ? `fewest terms of all 2^${n} polarities` : 'best found, not all polarities searched'}`;
 }
 

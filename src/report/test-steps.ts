@@ -51,24 +51,22 @@ export function stepTable(analysis: TableAnalysis, options: StepOptions = {}): S
       }
     }
   }
+  const specs = analysis.table.outputs;
   const rows: StepRow[] = [];
   for (const [combination, why] of reasons) {
-    const expected = analysis.table.outputs.map((spec): Expected => {
-      const fn = spec.built.fn;
-      return has(fn.dc, combination) ? '-' : has(fn.on, combination) ? 1 : 0;
+    const expected = specs.map((spec): Expected => (has(spec.built.fn.dc, combination) ? '-' : has(spec.built.fn.on, combination) ? 1 : 0));
+    const notes: string[] = [];
+    if (specs.some((spec) => has(spec.built.gaps, combination))) notes.push('gap: no row covers this combination, each output takes its safe value');
+    specs.forEach((spec, j) => {
+      if (has(spec.built.conflicted, combination)) notes.push(`conflict: rows ask ${analysis.outputs[j]!.signal.identifier} for 1 and 0 here, it takes its safe value ${spec.safe}`);
     });
-    const notes = analysis.table.outputs.flatMap((spec, j) =>
-      has(spec.built.gaps, combination) || has(spec.built.conflicted, combination)
-        ? [`${analysis.outputs[j]!.signal.identifier}: not specified by one clear row, takes the safe value ${spec.safe}`]
-        : [],
-    );
     if (expected.includes('-')) notes.push("'-': either value meets the spec (don't-care)");
     rows.push({
       step: rows.length + 1,
       combination,
       inputs: analysis.inputs.map((_, i) => inputValue(n, combination, i)),
       expected,
-      why: [...why, ...notes].join('; '),
+      why: [...why, ...notes].join('. '),
     });
   }
   const columns = [
