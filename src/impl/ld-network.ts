@@ -191,11 +191,10 @@ class Network {
       : this.b.opaque(kind, `${kindWord(kind)} ${base} (${type}): ${name}, localId ${node.id}`, line);
   }
 
-  /** OR of everything connected into the node's input (a contact, coil...). */
+  /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */
   private inputOf(node: Node): Expr {
     const point = childNamed(node.el, 'connectionPointIn');
     const connections = point ? childrenNamed(point, 'connection') : [];
-    if (connections.length === 0) throw new LdError(node.el.line, `${node.kind} localId ${node.id} has no input connection`);
     return orFolded(...connections.map((c) => this.outputOf(this.nodes.get(c.attrs['refLocalId']!)!, c.attrs['formalParameter'])));
   }
 

@@ -8,7 +8,7 @@ import { fail, ok, type Result } from '../logic/result.js';
 import type { Signal } from '../logic/signals.js';
 import { blockKind, kindWord } from './constructs.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
-import { PouBuilder, type PouHeader } from './symbolic.js';
+import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';
 import type { ImplPou, ImplProgram, ImplVariable, PouKind, VarSection } from './types.js';
 
 /** What an ST body is read against: its file, text, and what the rest of the project declares. */
@@ -346,8 +346,10 @@ class BodyReader {
     } else if (isWord(after, 'S', 'R') && isOp(this.tokens[end + 1], '=')) {
       const semi = skipTo(this.tokens, end + 2, (x) => isOp(x, ';'), first.line, 'assignment');
       const op = `${after!.text.toUpperCase()}=`;
+      // Both S= and R= of one variable stay in its reasons: the later one keeps the earlier one's value.
       const value = this.b.opaque('set-reset', `${op} on ${target} at line ${first.line}`, first.line);
-      if (simple) this.b.assign(target, value, first.line);
+      const before = simple ? this.b.assignedValue(target) : undefined;
+      if (simple) this.b.assign(target, before ? orFolded(before, value) : value, first.line);
       this.i = semi + 1;
     } else if (isOp(after, '(') && simple) {
       const close = skipTo(this.tokens, end + 1, (x) => isOp(x, ')'), first.line, 'call');

@@ -122,6 +122,11 @@ export class PouBuilder {
     return this.before(name, line, false);
   }
 
+  /** The value assigned so far in this scan, if any (no previous-scan leaf is made). */
+  assignedValue(name: string): Expr | undefined {
+    return this.env.get(key(name));
+  }
+
   /** The value a variable has before this scan assigns it. */
   private before(name: string, line: number, kept: boolean): Expr {
     const k = key(name);
