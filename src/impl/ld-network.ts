@@ -5,22 +5,9 @@ import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
-import type { CannotJudge, ImplPou, ImplVariable } from './types.js';
+import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
-
-export interface LdContext {
-  readonly file: string;
-  readonly globals: readonly ImplVariable[];
-  /** Names of function block types the project defines (upper case). */
-  readonly blockTypes: ReadonlySet<string>;
-}
-
-class LdError {
-  constructor(
-    readonly line: number,
-    readonly message: string,
-  ) {}
-}
+import { LineError } from './line-error.js';
 
 /** Elements that carry no logic. */
 const IGNORED = new Set(['comment', 'error', 'vendorElement', 'addData', 'documentation']);
@@ -39,11 +26,11 @@ interface Node {
   readonly id: string;
 }
 
-export function readLdBody(context: LdContext, header: PouHeader, ld: XmlElement): Result<ImplPou> {
+export function readLdBody(context: ReadContext, header: PouHeader, ld: XmlElement): Result<ImplPou> {
   try {
     return ok(new Network(context, header, ld).read());
   } catch (e) {
-    if (e instanceof LdError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
+    if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
     throw e;
   }
 }
@@ -56,17 +43,17 @@ class Network {
   private memo = new Map<string, Expr>();
 
   constructor(
-    private readonly context: LdContext,
+    private readonly context: ReadContext,
     private readonly header: PouHeader,
     ld: XmlElement,
   ) {
     for (const el of ld.children) {
       const kind = localName(el.name);
-      if (!KNOWN.has(kind)) throw new LdError(el.line, `unknown element <${el.name}> in the LD body of ${header.name}`);
+      if (!KNOWN.has(kind)) throw new LineError(el.line, `unknown element <${el.name}> in the LD body of ${header.name}`);
       if (IGNORED.has(kind)) continue;
       const id = el.attrs['localId'];
-      if (id === undefined) throw new LdError(el.line, `<${kind}> in ${header.name} has no localId`);
-      if (this.nodes.has(id)) throw new LdError(el.line, `localId ${id} is used twice in ${header.name} (first on line ${this.nodes.get(id)!.el.line})`);
+      if (id === undefined) throw new LineError(el.line, `<${kind}> in ${header.name} has no localId`);
+      if (this.nodes.has(id)) throw new LineError(el.line, `localId ${id} is used twice in ${header.name} (first on line ${this.nodes.get(id)!.el.line})`);
       const node = { el, kind, id };
       this.nodes.set(id, node);
       this.order.push(node);
@@ -129,7 +116,7 @@ class Network {
   private variableOf(node: Node): string {
     const holder = node.kind === 'contact' || node.kind === 'coil' ? childNamed(node.el, 'variable') : childNamed(node.el, 'expression');
     const name = holder ? textContent(holder).trim() : '';
-    if (name === '') throw new LdError(node.el.line, `<${node.kind}> localId ${node.id} names no variable`);
+    if (name === '') throw new LineError(node.el.line, `<${node.kind}> localId ${node.id} names no variable`);
     return name;
   }
 
@@ -169,12 +156,12 @@ class Network {
       case 'continuation': {
         const name = node.el.attrs['name'];
         const connector = this.order.find((n) => n.kind === 'connector' && n.el.attrs['name'] === name);
-        if (!connector) throw new LdError(line, `continuation ${name ?? ''} (localId ${node.id}) has no connector of that name`);
+        if (!connector) throw new LineError(line, `continuation ${name ?? ''} (localId ${node.id}) has no connector of that name`);
         value = this.inputOf(connector);
         break;
       }
       default:
-        throw new LdError(line, `a connection refers to localId ${node.id}, a ${node.kind}, which has no output`);
+        throw new LineError(line, `a connection refers to localId ${node.id}, a ${node.kind}, which has no output`);
     }
     this.memo.set(key, value);
     return value;
@@ -214,9 +201,9 @@ class Network {
   private checkReferences(): void {
     for (const { node, connection } of this.connections()) {
       const ref = connection.attrs['refLocalId'];
-      if (ref === undefined) throw new LdError(connection.line, `a connection of localId ${node.id} has no refLocalId`);
+      if (ref === undefined) throw new LineError(connection.line, `a connection of localId ${node.id} has no refLocalId`);
       if (!this.nodes.has(ref)) {
-        throw new LdError(connection.line, `localId ${node.id} (${node.kind}) connects to refLocalId ${ref}, which does not exist in ${this.header.name}`);
+        throw new LineError(connection.line, `localId ${node.id} (${node.kind}) connects to refLocalId ${ref}, which does not exist in ${this.header.name}`);
       }
     }
   }
@@ -239,7 +226,7 @@ class Network {
       if (state.get(id) === 'done') return;
       if (state.get(id) === 'open') {
         const loop = [...path.slice(path.indexOf(id)), id].reverse();
-        throw new LdError(this.nodes.get(id)!.el.line, `connections form a loop in ${this.header.name}: localId ${loop.join(' -> ')}`);
+        throw new LineError(this.nodes.get(id)!.el.line, `connections form a loop in ${this.header.name}: localId ${loop.join(' -> ')}`);
       }
       state.set(id, 'open');
       path.push(id);

@@ -7,6 +7,7 @@ import { readStBody } from './st-reader.js';
 import type { PouHeader } from './symbolic.js';
 import type { ImplPou, ImplProgram, ImplVariable, PouKind, VarSection } from './types.js';
 import { childNamed, childrenNamed, localName, parseXml, textContent, type XmlElement } from './xml.js';
+import { LineError } from './line-error.js';
 
 export const PLCOPEN_NAMESPACES: readonly string[] = ['http://www.plcopen.org/xml/tc6_0201', 'http://www.plcopen.org/xml/tc6_0200'];
 
@@ -26,22 +27,15 @@ const VAR_LISTS: Readonly<Record<string, VarSection>> = {
   globalVars: 'global',
 };
 
-class PlcopenError {
-  constructor(
-    readonly line: number,
-    readonly message: string,
-  ) {}
-}
-
 export function readPlcopen(file: string, text: string): Result<ImplProgram> {
   const parsed = parseXml(text);
   if (!parsed.ok) return fail({ message: `${file} ${parsed.error.message}` });
   const root = parsed.value;
   try {
-    if (localName(root.name) !== 'project') throw new PlcopenError(root.line, `root element is <${root.name}>, not a PLCopen <project>`);
+    if (localName(root.name) !== 'project') throw new LineError(root.line, `root element is <${root.name}>, not a PLCopen <project>`);
     const ns = root.attrs['xmlns'] ?? '';
     if (!PLCOPEN_NAMESPACES.includes(ns)) {
-      throw new PlcopenError(root.line, `namespace '${ns}' is not PLCopen TC6 2.01 or 2.0 (${PLCOPEN_NAMESPACES.join(', ')})`);
+      throw new LineError(root.line, `namespace '${ns}' is not PLCopen TC6 2.01 or 2.0 (${PLCOPEN_NAMESPACES.join(', ')})`);
     }
     const pouElements = descend(root, ['types', 'pous', 'pou']);
     const globals = globalVariables(root);
@@ -52,10 +46,10 @@ export function readPlcopen(file: string, text: string): Result<ImplProgram> {
       if (!read.ok) return read;
       pous.push(read.value);
     }
-    if (pous.length === 0) throw new PlcopenError(root.line, 'the project has no POU');
+    if (pous.length === 0) throw new LineError(root.line, 'the project has no POU');
     return ok({ file, format: 'plcopen', pous });
   } catch (e) {
-    if (e instanceof PlcopenError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
+    if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;
   }
 }
@@ -79,7 +73,7 @@ function globalVariables(root: XmlElement): ImplVariable[] {
 function variablesOf(list: XmlElement, section: VarSection): ImplVariable[] {
   return childrenNamed(list, 'variable').map((v) => {
     const name = v.attrs['name'];
-    if (!name) throw new PlcopenError(v.line, 'a <variable> has no name');
+    if (!name) throw new LineError(v.line, 'a <variable> has no name');
     const initial = childNamed(v, 'initialValue');
     const simple = initial ? childNamed(initial, 'simpleValue')?.attrs['value'] : undefined;
     return { name, section, type: typeName(childNamed(v, 'type')), line: v.line, ...(simple !== undefined ? { initial: simple } : {}) };
@@ -96,9 +90,9 @@ function typeName(type: XmlElement | undefined): string {
 
 function readPou(file: string, el: XmlElement, globals: readonly ImplVariable[], blockTypes: ReadonlySet<string>): Result<ImplPou> {
   const name = el.attrs['name'];
-  if (!name) throw new PlcopenError(el.line, '<pou> has no name');
+  if (!name) throw new LineError(el.line, '<pou> has no name');
   const kind = POU_TYPES[el.attrs['pouType'] ?? ''];
-  if (!kind) throw new PlcopenError(el.line, `POU ${name} has pouType '${el.attrs['pouType'] ?? ''}' (expected program, functionBlock or function)`);
+  if (!kind) throw new LineError(el.line, `POU ${name} has pouType '${el.attrs['pouType'] ?? ''}' (expected program, functionBlock or function)`);
   const variables: ImplVariable[] = [];
   const face = childNamed(el, 'interface');
   if (face) {
@@ -111,7 +105,7 @@ function readPou(file: string, el: XmlElement, globals: readonly ImplVariable[],
   }
   const body = childNamed(el, 'body');
   const content = body?.children.find((c) => !['documentation', 'addData'].includes(localName(c.name)));
-  if (!body || !content) throw new PlcopenError(el.line, `POU ${name} has no body`);
+  if (!body || !content) throw new LineError(el.line, `POU ${name} has no body`);
   const language = localName(content.name);
   const header = (lang: PouHeader['language']): PouHeader => ({ name, kind, language: lang, line: el.line, variables });
   if (language === 'ST') {
@@ -123,7 +117,7 @@ function readPou(file: string, el: XmlElement, globals: readonly ImplVariable[],
   }
   if (language === 'LD') return readLdBody({ file, globals, blockTypes }, header('LD'), content);
   if (language === 'FBD' || language === 'IL' || language === 'SFC') return ok(unreadBody(header(language), content.line));
-  throw new PlcopenError(content.line, `POU ${name} has a body in <${content.name}>, which is not a PLCopen language`);
+  throw new LineError(content.line, `POU ${name} has a body in <${content.name}>, which is not a PLCopen language`);
 }
 
 /** A body in a language not read: every output variable is reported, none judged. */

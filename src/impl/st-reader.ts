@@ -9,23 +9,12 @@ import type { Signal } from '../logic/signals.js';
 import { blockKind, kindWord } from './constructs.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
 import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';
-import type { ImplPou, ImplProgram, ImplVariable, PouKind, VarSection } from './types.js';
+import type { ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, VarSection } from './types.js';
+import { LineError } from './line-error.js';
 
-/** What an ST body is read against: its file, text, and what the rest of the project declares. */
-export interface StContext {
-  readonly file: string;
-  /** The text the tokens' offsets point into. */
+/** An ST body's context: also the text its tokens' offsets point into. */
+export interface StContext extends ReadContext {
   readonly source: string;
-  readonly globals: readonly ImplVariable[];
-  /** Names of function block types the project defines (upper case). */
-  readonly blockTypes: ReadonlySet<string>;
-}
-
-class StError {
-  constructor(
-    readonly line: number,
-    readonly message: string,
-  ) {}
 }
 
 const SECTIONS: Readonly<Record<string, VarSection>> = {
@@ -82,7 +71,7 @@ export function readStFile(file: string, text: string): Result<ImplProgram> {
     if (pous.length === 0) return fail({ message: `${file}: no PROGRAM, FUNCTION_BLOCK or FUNCTION found` });
     return ok({ file, format: 'st', pous });
   } catch (e) {
-    if (e instanceof StError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
+    if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;
   }
 }
@@ -103,13 +92,13 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
     if (word === 'PROGRAM' || word === 'FUNCTION_BLOCK' || word === 'FUNCTION') {
       const kind = word as PouKind;
       const nameToken = tokens[i + 1];
-      if (nameToken?.kind !== 'ident') throw new StError(t.line, `expected a name after ${word}`);
+      if (nameToken?.kind !== 'ident') throw new LineError(t.line, `expected a name after ${word}`);
       i += 2;
       const variables: ImplVariable[] = [];
       if (kind === 'FUNCTION') {
-        if (!isOp(tokens[i], ':')) throw new StError(nameToken.line, `expected ': <type>' after FUNCTION ${nameToken.text}`);
+        if (!isOp(tokens[i], ':')) throw new LineError(nameToken.line, `expected ': <type>' after FUNCTION ${nameToken.text}`);
         const typeToken = tokens[i + 1];
-        if (!typeToken) throw new StError(nameToken.line, 'expected the return type');
+        if (!typeToken) throw new LineError(nameToken.line, 'expected the return type');
         variables.push({ name: nameToken.text, section: 'output', type: typeToken.text, line: nameToken.line });
         i += 2;
       }
@@ -120,11 +109,11 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
       const bodyStart = i;
       while (i < tokens.length && !isWord(tokens[i], end)) {
         if (isWord(tokens[i], 'PROGRAM', 'FUNCTION_BLOCK', 'FUNCTION')) {
-          throw new StError(tokens[i]!.line, `${word} ${nameToken.text} (line ${t.line}) has no ${end} before this`);
+          throw new LineError(tokens[i]!.line, `${word} ${nameToken.text} (line ${t.line}) has no ${end} before this`);
         }
         i++;
       }
-      if (i >= tokens.length) throw new StError(t.line, `${word} ${nameToken.text} has no ${end}`);
+      if (i >= tokens.length) throw new LineError(t.line, `${word} ${nameToken.text} has no ${end}`);
       pous.push({ name: nameToken.text, kind, language: 'ST', line: t.line, variables, bodyStart, bodyEnd: i });
       i++;
     } else if (word === 'VAR_GLOBAL') {
@@ -137,10 +126,10 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
         if (isWord(tokens[i], 'VAR_GLOBAL')) i = readSection(tokens, i, source, globals);
         else i++;
       }
-      if (i >= tokens.length) throw new StError(t.line, `${word} has no ${end}`);
+      if (i >= tokens.length) throw new LineError(t.line, `${word} has no ${end}`);
       i++;
     } else if (isOp(t, ';')) i++;
-    else throw new StError(t.line, `expected PROGRAM, FUNCTION_BLOCK or FUNCTION, found '${t.text}'`);
+    else throw new LineError(t.line, `expected PROGRAM, FUNCTION_BLOCK or FUNCTION, found '${t.text}'`);
   }
   return { pous, globals };
 }
@@ -152,12 +141,12 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
   let i = start + 1;
   while (isWord(tokens[i], 'CONSTANT', 'RETAIN', 'NON_RETAIN', 'PERSISTENT')) i++;
   while (!isWord(tokens[i], 'END_VAR')) {
-    if (i >= tokens.length) throw new StError(head.line, `${head.text} has no END_VAR`);
+    if (i >= tokens.length) throw new LineError(head.line, `${head.text} has no END_VAR`);
     const names: Token[] = [];
     for (;;) {
       const name = tokens[i];
       if (name?.kind !== 'ident' || STATEMENT_WORDS.has(name.text.toUpperCase())) {
-        throw new StError(name?.line ?? head.line, `expected a variable name in ${head.text}`);
+        throw new LineError(name?.line ?? head.line, `expected a variable name in ${head.text}`);
       }
       names.push(name);
       i++;
@@ -165,11 +154,11 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
       if (!isOp(tokens[i], ',')) break;
       i++;
     }
-    if (!isOp(tokens[i], ':')) throw new StError(names[0]!.line, `expected ':' and a type after ${names.map((n) => n.text).join(', ')}`);
+    if (!isOp(tokens[i], ':')) throw new LineError(names[0]!.line, `expected ':' and a type after ${names.map((n) => n.text).join(', ')}`);
     i++;
     const typeStart = i;
     i = skipTo(tokens, i, (t) => isOp(t, ':=') || isOp(t, ';'), head.line, 'declaration');
-    if (i === typeStart) throw new StError(names[0]!.line, `expected a type for ${names[0]!.text}`);
+    if (i === typeStart) throw new LineError(names[0]!.line, `expected a type for ${names[0]!.text}`);
     const type = sourceOf(source, tokens, typeStart, i);
     let initial: string | undefined;
     if (isOp(tokens[i], ':=')) {
@@ -192,7 +181,7 @@ function skipTo(tokens: readonly Token[], from: number, stop: (t: Token) => bool
     if (isOp(t, '(') || isOp(t, '[')) depth++;
     else if (isOp(t, ')') || isOp(t, ']')) depth--;
   }
-  throw new StError(line, `${what} starting on line ${line} is not finished (missing ';' or keyword)`);
+  throw new LineError(line, `${what} starting on line ${line} is not finished (missing ';' or keyword)`);
 }
 
 function sourceOf(source: string, tokens: readonly Token[], from: number, to: number): string {
@@ -206,7 +195,7 @@ export function readStBody(context: StContext, header: PouHeader, tokens: readon
     new BodyReader(context, builder, tokens).run();
     return ok(builder.finish());
   } catch (e) {
-    if (e instanceof StError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
+    if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
     throw e;
   }
 }
@@ -243,7 +232,7 @@ class BodyReader {
 
   run(): void {
     this.statements([]);
-    if (this.i < this.tokens.length) throw new StError(this.tokens[this.i]!.line, `unexpected '${this.tokens[this.i]!.text}'`);
+    if (this.i < this.tokens.length) throw new LineError(this.tokens[this.i]!.line, `unexpected '${this.tokens[this.i]!.text}'`);
   }
 
   private get t(): Token | undefined {
@@ -261,7 +250,7 @@ class BodyReader {
       this.i++;
       return;
     }
-    if (t.kind !== 'ident') throw new StError(t.line, `expected a statement, found '${t.text}'`);
+    if (t.kind !== 'ident') throw new LineError(t.line, `expected a statement, found '${t.text}'`);
     const word = t.text.toUpperCase();
     if (word === 'IF') return this.ifStatement();
     if (word === 'CASE' || word === 'FOR' || word === 'WHILE' || word === 'REPEAT') return this.flowBlock();
@@ -272,7 +261,7 @@ class BodyReader {
       if (!(word === 'RETURN' && last)) this.b.taintEveryOutput('control-flow', `${word} at line ${t.line}`, t.line);
       return;
     }
-    if (STATEMENT_WORDS.has(word)) throw new StError(t.line, `unexpected ${t.text}`);
+    if (STATEMENT_WORDS.has(word)) throw new LineError(t.line, `unexpected ${t.text}`);
     this.targetStatement();
   }
 
@@ -288,7 +277,7 @@ class BodyReader {
       this.i = thenAt + 1;
       this.statements(['ELSIF', 'ELSE', 'END_IF']);
       chain.leave(cond);
-      if (this.i >= this.tokens.length) throw new StError(line, 'IF has no END_IF');
+      if (this.i >= this.tokens.length) throw new LineError(line, 'IF has no END_IF');
       keyword = this.t!.text.toUpperCase();
     }
     if (keyword === 'ELSE') {
@@ -296,7 +285,7 @@ class BodyReader {
       chain.enter();
       this.statements(['END_IF']);
       chain.leave(null);
-      if (this.i >= this.tokens.length) throw new StError(line, 'IF has no END_IF');
+      if (this.i >= this.tokens.length) throw new LineError(line, 'IF has no END_IF');
     }
     this.i++;
     if (isOp(this.t, ';')) this.i++;
@@ -316,7 +305,7 @@ class BodyReader {
       if (Object.hasOwn(OPENERS, w)) depth++;
       else if (CLOSERS.has(w) && --depth === 0) break;
     }
-    if (this.i >= this.tokens.length) throw new StError(open.line, `${word} has no ${OPENERS[word]}`);
+    if (this.i >= this.tokens.length) throw new LineError(open.line, `${word} has no ${OPENERS[word]}`);
     const inside = this.tokens.slice(start, this.i);
     this.i++;
     if (isOp(this.t, ';')) this.i++;
@@ -357,7 +346,7 @@ class BodyReader {
       this.i = close + 1;
       if (isOp(this.t, ';')) this.i++;
     } else {
-      throw new StError(first.line, `expected ':=' or a call after ${target}`);
+      throw new LineError(first.line, `expected ':=' or a call after ${target}`);
     }
   }
 
@@ -386,7 +375,7 @@ class BodyReader {
   private expression(from: number, to: number): Expr {
     const tokens = this.tokens;
     const first = tokens[from];
-    if (!first || from >= to) throw new StError(tokens[from - 1]?.line ?? 1, 'expected an expression');
+    if (!first || from >= to) throw new LineError(tokens[from - 1]?.line ?? 1, 'expected an expression');
     const text = this.clean.slice(first.start, tokens[to - 1]!.end);
     const lineAt = (k: number): number => tokens[k]!.line;
 
@@ -445,7 +434,7 @@ class BodyReader {
       const sourcePos = anchor ? anchor.source + (pos - anchor.at) : first.start + pos;
       const at = [...tokens.slice(from, to)].reverse().find((y) => y.start <= sourcePos) ?? first;
       const expected = parsed.error.expected ? `expected ${parsed.error.expected}` : parsed.error.message;
-      throw new StError(at.line, `in "${clip(text)}": ${expected} near '${this.clean.slice(at.start, at.end)}'`);
+      throw new LineError(at.line, `in "${clip(text)}": ${expected} near '${this.clean.slice(at.start, at.end)}'`);
     }
     return substitute(parsed.value, values);
   }
@@ -483,7 +472,7 @@ class BodyReader {
       const x = this.tokens[k]!;
       const upper = x.text.toUpperCase();
       if (x.kind === 'ident') {
-        if (STATEMENT_WORDS.has(upper)) throw new StError(x.line, `unexpected ${x.text} in an expression`);
+        if (STATEMENT_WORDS.has(upper)) throw new LineError(x.line, `unexpected ${x.text} in an expression`);
         if (upper === 'MOD') return { kind: 'non-bool', why: 'arithmetic' };
         if (LOGIC_FUNCTIONS.has(upper) || BOOL_WORDS.has(upper)) continue;
         if (isOp(this.tokens[k + 1], '(') && k + 1 < to) {

@@ -2,7 +2,7 @@
 // leaves (inputs, previous-scan values, and opaque values a truth table cannot judge). Both
 // the ST and the LD readers drive it; at the end each assigned BOOL becomes an ImplOutput.
 import { FALSE, TRUE, and, not, or, variable, type Expr } from '../logic/expr/ast.js';
-import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable, PouKind } from './types.js';
+import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable } from './types.js';
 
 type Leaf =
   | { readonly kind: 'input'; readonly name: string }
@@ -10,13 +10,8 @@ type Leaf =
   | { readonly kind: 'prev'; readonly name: string; readonly line: number; readonly kept: boolean }
   | { readonly kind: 'opaque'; readonly item: CannotJudge };
 
-export interface PouHeader {
-  readonly name: string;
-  readonly kind: PouKind;
-  readonly language: 'ST' | 'LD' | 'FBD' | 'IL' | 'SFC';
-  readonly line: number;
-  readonly variables: readonly ImplVariable[];
-}
+/** What a reader knows of a POU before its body is run. */
+export type PouHeader = Pick<ImplPou, 'name' | 'kind' | 'language' | 'line' | 'variables'>;
 
 const key = (name: string): string => name.toLowerCase();
 

@@ -82,3 +82,11 @@ export interface ImplProgram {
   readonly format: 'st' | 'plcopen';
   readonly pous: readonly ImplPou[];
 }
+
+/** What a POU body is read against: its file and what the rest of the project declares. */
+export interface ReadContext {
+  readonly file: string;
+  readonly globals: readonly ImplVariable[];
+  /** Names of function block types the project defines (upper case). */
+  readonly blockTypes: ReadonlySet<string>;
+}

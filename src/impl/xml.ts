@@ -3,6 +3,7 @@
 // external-entity reads and entity-expansion bombs), and only the five predefined entities
 // and numeric character references are decoded.
 import { fail, ok, type Result } from '../logic/result.js';
+import { LineError } from './line-error.js';
 
 export interface XmlElement {
   /** Qualified name as written (`ppx:pou` keeps its prefix; see localName). */
@@ -50,19 +51,12 @@ export function textContent(el: XmlElement): string {
   return el.children.length === 0 ? el.text : el.text + el.children.map(textContent).join('');
 }
 
-class XmlError {
-  constructor(
-    readonly line: number,
-    readonly message: string,
-  ) {}
-}
-
 /** Parse a whole document; the result is its root element. */
 export function parseXml(text: string): Result<XmlElement> {
   try {
     return ok(new Reader(text).document());
   } catch (e) {
-    if (e instanceof XmlError) return fail({ message: `line ${e.line}: ${e.message}` });
+    if (e instanceof LineError) return fail({ message: `line ${e.line}: ${e.message}` });
     throw e;
   }
 }
@@ -85,23 +79,23 @@ class Reader {
         const raw = this.take(textEnd);
         const top = stack[stack.length - 1];
         if (top) top.text += this.decode(raw, startLine);
-        else if (raw.trim() !== '') throw new XmlError(startLine, 'text outside the root element');
+        else if (raw.trim() !== '') throw new LineError(startLine, 'text outside the root element');
       }
       if (lt < 0) break;
       if (this.src.startsWith('<!--', lt)) this.skipPast('-->', 'comment');
       else if (this.src.startsWith('<![CDATA[', lt)) {
         const top = stack[stack.length - 1];
-        if (!top) throw new XmlError(this.line, 'CDATA outside the root element');
+        if (!top) throw new LineError(this.line, 'CDATA outside the root element');
         this.pos += 9;
         const end = this.src.indexOf(']]>', this.pos);
-        if (end < 0) throw new XmlError(this.line, 'CDATA section is not closed');
+        if (end < 0) throw new LineError(this.line, 'CDATA section is not closed');
         top.text += this.take(end);
         this.pos += 3;
       } else if (this.src.startsWith('<?', lt)) this.skipPast('?>', 'processing instruction');
       else if (this.src.startsWith('<!DOCTYPE', lt)) {
-        if (root || stack.length > 0) throw new XmlError(this.line, 'DOCTYPE after the root element started');
+        if (root || stack.length > 0) throw new LineError(this.line, 'DOCTYPE after the root element started');
         this.doctype();
-      } else if (this.src.startsWith('<!', lt)) throw new XmlError(this.line, 'unexpected markup declaration');
+      } else if (this.src.startsWith('<!', lt)) throw new LineError(this.line, 'unexpected markup declaration');
       else if (this.src.startsWith('</', lt)) {
         const line = this.line;
         this.pos += 2;
@@ -109,16 +103,16 @@ class Reader {
         this.space();
         this.expect('>');
         const open = stack.pop();
-        if (!open) throw new XmlError(line, `closing tag </${name}> without an opening tag`);
+        if (!open) throw new LineError(line, `closing tag </${name}> without an opening tag`);
         if (open.name !== name) {
-          throw new XmlError(line, `closing tag </${name}> does not match <${open.name}> opened on line ${open.line}`);
+          throw new LineError(line, `closing tag </${name}> does not match <${open.name}> opened on line ${open.line}`);
         }
         const done: XmlElement = open;
         const parent = stack[stack.length - 1];
         if (parent) parent.children.push(done);
         else root = done;
       } else {
-        if (root) throw new XmlError(this.line, 'a second root element');
+        if (root) throw new LineError(this.line, 'a second root element');
         const el = this.startTag();
         if (el.selfClosing) {
           const parent = stack[stack.length - 1];
@@ -128,8 +122,8 @@ class Reader {
       }
     }
     const open = stack.pop();
-    if (open) throw new XmlError(open.line, `<${open.name}> is not closed`);
-    if (!root) throw new XmlError(this.line, 'no root element');
+    if (open) throw new LineError(open.line, `<${open.name}> is not closed`);
+    if (!root) throw new LineError(this.line, 'no root element');
     return root;
   }
 
@@ -144,7 +138,7 @@ class Reader {
   private skipPast(end: string, what: string): void {
     const line = this.line;
     const i = this.src.indexOf(end, this.pos);
-    if (i < 0) throw new XmlError(line, `${what} is not closed`);
+    if (i < 0) throw new LineError(line, `${what} is not closed`);
     this.take(i + end.length);
   }
 
@@ -162,10 +156,10 @@ class Reader {
       else if (c === '[') depth++;
       else if (c === ']') depth--;
       else if (c === '<' && depth > 0 && this.src.startsWith('<!ENTITY', i)) {
-        throw new XmlError(line, 'DOCTYPE with entity declarations is not accepted');
+        throw new LineError(line, 'DOCTYPE with entity declarations is not accepted');
       } else if (c === '>' && depth === 0) break;
     }
-    if (i >= this.src.length) throw new XmlError(line, 'DOCTYPE is not closed');
+    if (i >= this.src.length) throw new LineError(line, 'DOCTYPE is not closed');
     this.take(i + 1);
   }
 
@@ -179,11 +173,11 @@ class Reader {
       const spaced = this.space();
       const c = this.src[this.pos];
       if (c === '>' || c === '/') break;
-      if (c === undefined) throw new XmlError(line, `<${name}> is not closed`);
-      if (!spaced) throw new XmlError(this.line, `expected a space before attribute in <${name}>`);
+      if (c === undefined) throw new LineError(line, `<${name}> is not closed`);
+      if (!spaced) throw new LineError(this.line, `expected a space before attribute in <${name}>`);
       const attrLine = this.line;
       const key = this.name();
-      if (seen.has(key)) throw new XmlError(attrLine, `attribute ${key} given twice in <${name}>`);
+      if (seen.has(key)) throw new LineError(attrLine, `attribute ${key} given twice in <${name}>`);
       seen.add(key);
       this.space();
       this.expect('=');
@@ -207,19 +201,19 @@ class Reader {
   private attrValue(): string {
     const line = this.line;
     const q = this.src[this.pos];
-    if (q !== '"' && q !== "'") throw new XmlError(line, 'attribute value must be quoted');
+    if (q !== '"' && q !== "'") throw new LineError(line, 'attribute value must be quoted');
     const end = this.src.indexOf(q, this.pos + 1);
-    if (end < 0) throw new XmlError(line, 'attribute value is not closed');
+    if (end < 0) throw new LineError(line, 'attribute value is not closed');
     this.pos++;
     const raw = this.take(end);
     this.pos++;
-    if (raw.includes('<')) throw new XmlError(line, "'<' inside an attribute value");
+    if (raw.includes('<')) throw new LineError(line, "'<' inside an attribute value");
     return this.decode(raw, line).replace(/[\t\n\r]/g, ' ');
   }
 
   private name(): string {
     const start = this.pos;
-    if (!NAME_START.test(this.src[this.pos] ?? '')) throw new XmlError(this.line, 'expected a name');
+    if (!NAME_START.test(this.src[this.pos] ?? '')) throw new LineError(this.line, 'expected a name');
     this.pos++;
     while (this.pos < this.src.length && NAME_CHAR.test(this.src[this.pos]!)) this.pos++;
     return this.src.slice(start, this.pos);
@@ -234,7 +228,7 @@ class Reader {
   }
 
   private expect(c: string): void {
-    if (this.src[this.pos] !== c) throw new XmlError(this.line, `expected '${c}'`);
+    if (this.src[this.pos] !== c) throw new LineError(this.line, `expected '${c}'`);
     this.pos++;
   }
 
@@ -243,16 +237,16 @@ class Reader {
     return raw.replace(/&([^;\s&<]*);?/g, (whole: string, ref: string, offset: number) => {
       // The line is only worked out for an error: most texts hold many entities.
       const at = (): number => line + (raw.slice(0, offset).match(/\n/g)?.length ?? 0);
-      if (!whole.endsWith(';')) throw new XmlError(at(), `'&' must start an entity reference ending in ';'`);
+      if (!whole.endsWith(';')) throw new LineError(at(), `'&' must start an entity reference ending in ';'`);
       const named = PREDEFINED[ref];
       if (named !== undefined && Object.hasOwn(PREDEFINED, ref)) return named;
       const num = /^#(?:x([0-9A-Fa-f]+)|([0-9]+))$/.exec(ref);
       if (num) {
         const code = num[1] !== undefined ? parseInt(num[1], 16) : parseInt(num[2]!, 10);
         if (code > 0 && code <= 0x10ffff && !(code >= 0xd800 && code <= 0xdfff)) return String.fromCodePoint(code);
-        throw new XmlError(at(), `character reference &${ref}; is not a valid character`);
+        throw new LineError(at(), `character reference &${ref}; is not a valid character`);
       }
-      throw new XmlError(
+      throw new LineError(
         at(),
         `unknown entity &${ref}; (only &lt; &gt; &amp; &quot; &apos; and numeric references are accepted)`,
       );
