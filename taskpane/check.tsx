@@ -1,0 +1,157 @@
+// Implementation check: an expression typed or pasted by the user, or an .st / PLCopen .xml file
+// (standalone page), checked against the spec on every input combination.
+import { useState } from 'preact/hooks';
+import type { Monomial } from '../src/logic/anf.js';
+import type { ImplCheck } from '../src/logic/implcheck.js';
+import type { EngineError, Result } from '../src/logic/result.js';
+import type { VerifyReport } from '../src/impl/verify.js';
+import { verifyReportText } from '../src/impl/verify-report.js';
+import { printMonomial } from '../src/impl/verify.js';
+import type { TableAnalysis } from '../src/spec/analysis-types.js';
+import { Cancelled, type Engine } from './engine.js';
+import { CombinationTable } from './results.js';
+
+const count = (n: number) => n.toLocaleString('en');
+
+function ParseError({ error, text }: { error: EngineError; text: string }) {
+  return (
+    <div class="error" role="alert">
+      <p>{error.message}</p>
+      {error.position !== undefined && (
+        <pre class="caret">
+          {text}
+          {'\n'}
+          {' '.repeat(error.position)}^
+        </pre>
+      )}
+    </div>
+  );
+}
+
+function CheckResult({ result, analysis }: { result: ImplCheck; analysis: TableAnalysis }) {
+  const inputs = analysis.inputs;
+  if (result.equal) {
+    return (
+      <p class="verdict equal" role="status">
+        Equal: the expression agrees with the spec on all {count(result.combinations)} combinations
+        {result.dontCareOn > 0 ? ` (it turns on ${count(result.dontCareOn)} don't-care combinations)` : ''}.
+      </p>
+    );
+  }
+  const monos = result.differenceMonomials.map((m: Monomial) => printMonomial(m, inputs));
+  return (
+    <div class="verdict differs" role="status">
+      <p>
+        Differs on {count(result.mismatchCount)} of {count(result.combinations)} combinations. Counterexamples
+        {result.counterexamples.length < result.mismatchCount ? ` (first ${result.counterexamples.length})` : ''}:
+      </p>
+      <CombinationTable
+        inputs={inputs}
+        rows={result.counterexamples.map((c) => c.combination)}
+        extra={{ titles: ['spec', 'yours'], cells: (r) => [result.counterexamples[r]!.expected, result.counterexamples[r]!.actual] }}
+      />
+      <p class="meta">
+        The difference is the XOR of {count(result.differenceMonomialCount)} term{result.differenceMonomialCount === 1 ? '' : 's'}:{' '}
+        <code>{monos.join(' XOR ')}</code>
+        {result.differenceMonomialCount > monos.length ? ' …' : ''}
+      </p>
+    </div>
+  );
+}
+
+export function ExpressionCheck({ analysis, engine }: { analysis: TableAnalysis; engine: Engine }) {
+  const [output, setOutput] = useState(0);
+  const [text, setText] = useState('');
+  const [answer, setAnswer] = useState<{ text: string; result: Result<ImplCheck> }>();
+  const [busy, setBusy] = useState(false);
+  const [failure, setFailure] = useState<string>();
+  const run = async (e: Event) => {
+    e.preventDefault();
+    setBusy(true);
+    setFailure(undefined);
+    try {
+      setAnswer({ text, result: await engine.check({ kind: 'check', table: analysis.table, output, text }) });
+    } catch (err) {
+      setFailure(err instanceof Cancelled ? 'The check was stopped.' : String((err as Error).message));
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <section class="card" aria-labelledby="check-title">
+      <h2 id="check-title">Implementation check</h2>
+      <p class="meta">
+        Paste the logic as it is programmed (Structured Text, or shorthand such as <code>a &amp; !b | c</code>); names are the headers or
+        their identifiers.
+      </p>
+      <form onSubmit={run}>
+        <label>
+          Output
+          <select value={output} onChange={(e) => setOutput(Number((e.currentTarget as HTMLSelectElement).value))}>
+            {analysis.outputs.map((o, i) => (
+              <option key={i} value={i}>
+                {o.signal.identifier}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label>
+          Expression
+          <textarea rows={3} value={text} spellcheck={false} onInput={(e) => setText((e.currentTarget as HTMLTextAreaElement).value)} />
+        </label>
+        <button type="submit" disabled={busy || text.trim() === ''}>
+          {busy ? 'Checking…' : 'Check against the spec'}
+        </button>
+      </form>
+      {failure && <p class="error">{failure}</p>}
+      {answer && (answer.result.ok ? <CheckResult result={answer.result.value} analysis={analysis} /> : <ParseError error={answer.result.error} text={answer.text} />)}
+    </section>
+  );
+}
+
+/** An implementation file (.st or PLCopen .xml) checked against every table read. */
+export function FileCheck({ analyses, engine }: { analyses: readonly TableAnalysis[]; engine: Engine }) {
+  const [report, setReport] = useState<{ file: string; result: Result<VerifyReport> }>();
+  const [busy, setBusy] = useState(false);
+  const pick = async (e: Event) => {
+    const file = (e.currentTarget as HTMLInputElement).files?.[0];
+    if (!file) return;
+    setBusy(true);
+    try {
+      const result = await engine.verify({ kind: 'verify', tables: analyses.map((a) => a.table), fileName: file.name, text: await file.text() });
+      setReport({ file: file.name, result });
+    } catch (err) {
+      setReport({ file: file.name, result: { ok: false, error: { message: (err as Error).message } } });
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <section class="card" aria-labelledby="file-check-title">
+      <h2 id="file-check-title">Check a program file</h2>
+      <label class="file">
+        Structured Text (.st) or PLCopen XML (.xml)
+        <input type="file" accept=".st,.xml,.txt" onChange={pick} disabled={busy} />
+      </label>
+      {busy && <p role="status">Checking…</p>}
+      {report && !report.result.ok && <p class="error">{report.result.error.message}</p>}
+      {report?.result.ok && (
+        <>
+          <ul class="verdicts">
+            {report.result.value.outputs.map((o, i) => (
+              <li key={i} class={`verdict-line ${o.status}`}>
+                <strong>{o.output.identifier}</strong>: {o.status}
+                {o.status === 'differs' ? ` on ${count(o.mismatchCount)} of ${count(o.combinations)} combinations` : ''}
+                {o.variable ? ` (${o.variable})` : ''}
+              </li>
+            ))}
+          </ul>
+          <details>
+            <summary>Full report</summary>
+            <pre class="report">{verifyReportText(report.result.value)}</pre>
+          </details>
+        </>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,266 @@
+// What the engine found in a spec table: signals, problems, and per output its forms with
+// their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on.
+import { useEffect, useMemo, useState } from 'preact/hooks';
+import type { Combination } from '../src/logic/bits.js';
+import { inputValue } from '../src/logic/bits.js';
+import type { Signal } from '../src/logic/signals.js';
+import { ladderSvg } from '../src/report/ladder-svg.js';
+import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../src/spec/analysis-types.js';
+import { qualifiedAddress } from '../src/spec/grid.js';
+import { describeCube } from '../src/spec/read-tables.js';
+import type { Problem, RoleRule } from '../src/spec/types.js';
+import { copyText, download, safeFileName } from './files.js';
+
+export type SelectCell = (sheet: string, cell: string) => void;
+
+const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
+  'role-row': 'the role row above the headers (input / output)',
+  'separator-column': 'the empty column between inputs and outputs',
+  'user-choice': 'your choice of how many columns are inputs',
+};
+
+const plural = (n: number, one: string, many = `${one}s`) => `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
+
+/** A cell address that selects the cell in Excel when clicked (plain text where there is no live sheet). */
+export function CellLink({ sheet, cell, selectCell }: { sheet: string; cell: string; selectCell?: SelectCell | undefined }) {
+  const text = qualifiedAddress(sheet, cell);
+  if (!selectCell) return <code class="cell">{text}</code>;
+  return (
+    <button type="button" class="link cell" title={`Select ${text} in Excel`} onClick={() => selectCell(sheet, cell.split(':')[0]!)}>
+      {text}
+    </button>
+  );
+}
+
+export function ProblemList({ problems, selectCell }: { problems: readonly Problem[]; selectCell?: SelectCell | undefined }) {
+  if (problems.length === 0) return null;
+  return (
+    <ul class="problems" aria-label="Problems in the sheet">
+      {problems.map((p, i) => (
+        <li key={i} class={`problem ${p.severity}`}>
+          <span class="severity">{p.severity}</span> <CellLink sheet={p.sheet} cell={p.cell} selectCell={selectCell} />
+          <span class="message"> {p.message}</span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function CopyButton({ text, what }: { text: string; what: string }) {
+  const [state, setState] = useState<'idle' | 'copied' | 'failed'>('idle');
+  return (
+    <button
+      type="button"
+      class="small"
+      aria-label={`Copy the ${what}`}
+      onClick={async () => {
+        setState((await copyText(text)) ? 'copied' : 'failed');
+        setTimeout(() => setState('idle'), 1500);
+      }}
+    >
+      {state === 'copied' ? 'Copied' : state === 'failed' ? 'Copy failed' : 'Copy'}
+    </button>
+  );
+}
+
+function proofLine(proof: { combinations: number; mismatchCount: number }): string {
+  return proof.mismatchCount === 0
+    ? `proof: all ${plural(proof.combinations, 'combination')} checked, every one agrees with the spec`
+    : `proof FAILED: ${plural(proof.mismatchCount, 'combination')} of ${proof.combinations.toLocaleString('en')} differ from the spec`;
+}
+
+function FormView({ title, form, meta, badge }: { title: string; form: AndOrForm | XorForm; meta: string; badge?: { text: string; kind: string } }) {
+  const ok = form.proof.mismatchCount === 0;
+  return (
+    <div class="form" data-form={title}>
+      <div class="form-head">
+        <h4>{title}</h4>
+        {badge && <span class={`badge ${badge.kind}`}>{badge.text}</span>}
+        <CopyButton text={form.text} what={title} />
+      </div>
+      <pre class="expr">{form.text}</pre>
+      <p class="meta">{meta}</p>
+      <p class={ok ? 'proof ok' : 'proof bad'}>{proofLine(form.proof)}</p>
+    </div>
+  );
+}
+
+/** Rows of input values, one column per input (headers written sideways to fit a narrow pane). */
+export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Signal[]; rows: readonly Combination[]; extra?: { titles: string[]; cells: (k: number) => (string | number)[] } }) {
+  const n = inputs.length;
+  return (
+    <div class="scroll">
+      <table class="combos">
+        <thead>
+          <tr>
+            {inputs.map((s) => (
+              <th key={s.identifier} class="side" title={s.header}>
+                <span>{s.identifier}</span>
+              </th>
+            ))}
+            {extra?.titles.map((t) => <th key={t}>{t}</th>)}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((k, r) => (
+            <tr key={r}>
+              {inputs.map((_, i) => (
+                <td key={i}>{inputValue(n, k, i)}</td>
+              ))}
+              {extra?.cells(r).map((c, j) => <td key={`x${j}`} class="strong">{c}</td>)}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function LadderPicture({ output, inputs }: { output: OutputAnalysis; inputs: readonly Signal[] }) {
+  const svg = useMemo(() => ladderSvg(output, inputs), [output, inputs]);
+  const [url, setUrl] = useState<string>();
+  useEffect(() => {
+    // Shown as an image from a blob: URL, so the picture can run nothing inside the pane.
+    const u = URL.createObjectURL(new Blob([svg], { type: 'image/svg+xml' }));
+    setUrl(u);
+    return () => URL.revokeObjectURL(u);
+  }, [svg]);
+  return (
+    <details class="ladder">
+      <summary>Ladder picture (AND/OR form)</summary>
+      {url && <img src={url} alt={`Ladder Diagram rung for ${output.signal.identifier}`} />}
+      <button type="button" class="small" onClick={() => download(`${safeFileName(output.signal.identifier)}-ladder.svg`, 'image/svg+xml', svg)}>
+        Download picture (SVG)
+      </button>
+    </details>
+  );
+}
+
+function OutputCard({ output, analysis, selectCell }: { output: OutputAnalysis; analysis: TableAnalysis; selectCell?: SelectCell | undefined }) {
+  const inputs = analysis.inputs;
+  const { andOr, xor, bestXor } = output;
+  const unused = output.unusedInputs.map((i) => inputs[i]!.identifier);
+  return (
+    <section class="card output" aria-label={`Output ${output.signal.header}`}>
+      <h3>
+        {output.signal.header} <code>{output.signal.identifier}</code>
+      </h3>
+      <p class="meta">safe value {output.safe}; {plural(output.dontCareCount, "don't-care combination")}</p>
+      <FormView
+        title="AND/OR form"
+        form={andOr}
+        meta={`sum of products: ${plural(andOr.terms, 'product term')}, ${plural(andOr.literals, 'literal')}`}
+        badge={andOr.proven ? { text: 'proven minimum', kind: 'good' } : { text: 'heuristic (not proven minimal)', kind: 'warn' }}
+      />
+      <FormView title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
+      <FormView
+        title="Best-polarity XOR form"
+        form={bestXor}
+        meta={`${plural(bestXor.terms, 'term')}; ${bestXor.exhaustive ? 'every polarity tried' : 'not every polarity tried'}`}
+      />
+      <dl class="facts">
+        <dt>Inputs that do not matter</dt>
+        <dd>{unused.length === 0 ? 'none: every input matters' : unused.join(', ')}</dd>
+        <dt>Gaps</dt>
+        <dd>
+          {output.gapCount === 0 ? (
+            'none: every combination is covered by a row'
+          ) : (
+            <>
+              {plural(output.gapCount, 'combination')} no row covers; they take the safe value {output.safe}:
+              <ul>
+                {output.gaps.map((c, i) => (
+                  <li key={i}>{describeCube(c, inputs)}</li>
+                ))}
+              </ul>
+            </>
+          )}
+        </dd>
+        <dt>Conflicts</dt>
+        <dd>
+          {output.conflicts.length === 0 ? (
+            'none'
+          ) : (
+            <ul>
+              {output.conflicts.map((c, i) => (
+                <li key={i}>
+                  rows <CellLink sheet={analysis.table.sheet} cell={c.rowCellsA} selectCell={selectCell} /> and{' '}
+                  <CellLink sheet={analysis.table.sheet} cell={c.rowCellsB} selectCell={selectCell} /> ask for 1 and 0 on{' '}
+                  {plural(c.combinations, 'combination')}; the safe value {output.safe} is used
+                </li>
+              ))}
+            </ul>
+          )}
+        </dd>
+        <dt>Permits also</dt>
+        <dd>
+          {andOr.permitsAlso.length === 0 ? (
+            "the AND/OR form turns on no don't-care combination"
+          ) : (
+            <>
+              the AND/OR form turns on {plural(andOr.permitsAlso.length, "don't-care combination")}:
+              <CombinationTable inputs={inputs} rows={andOr.permitsAlso} />
+            </>
+          )}
+        </dd>
+      </dl>
+      <LadderPicture output={output} inputs={inputs} />
+    </section>
+  );
+}
+
+export function TableView({ analysis, selectCell }: { analysis: TableAnalysis; selectCell?: SelectCell | undefined }) {
+  const { table } = analysis;
+  return (
+    <div class="table-view">
+      <section class="card">
+        <h2>
+          Spec table <CellLink sheet={table.sheet} cell={table.range} selectCell={selectCell} />
+        </h2>
+        <p>
+          {plural(table.inputs.length, 'input')}, {plural(table.outputs.length, 'output')}, {plural(table.rows.length, 'row')}. Inputs and
+          outputs told apart by {ROLE_RULE[table.roleRule]}.
+          {table.xReading === 'dont-care' && ' X cells were read as any / don\'t-care.'}
+        </p>
+        <ProblemList problems={analysis.problems} selectCell={selectCell} />
+        <details>
+          <summary>Signals and their Structured Text names</summary>
+          <div class="scroll">
+            <table class="signals">
+              <thead>
+                <tr>
+                  <th>Signal</th>
+                  <th>Role</th>
+                  <th>Identifier</th>
+                </tr>
+              </thead>
+              <tbody>
+                {table.inputs.map((s) => (
+                  <tr key={`i${s.identifier}`}>
+                    <td>{s.header}</td>
+                    <td>input</td>
+                    <td>
+                      <code>{s.identifier}</code>
+                    </td>
+                  </tr>
+                ))}
+                {table.outputs.map((o) => (
+                  <tr key={`o${o.signal.identifier}`}>
+                    <td>{o.signal.header}</td>
+                    <td>output</td>
+                    <td>
+                      <code>{o.signal.identifier}</code>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </details>
+      </section>
+      {analysis.outputs.map((o) => (
+        <OutputCard key={o.signal.identifier} output={o} analysis={analysis} selectCell={selectCell} />
+      ))}
+    </div>
+  );
+}
