@@ -25,7 +25,7 @@ function runTestHook(hook) {
 }
 
 function readBook(bytes) {
-  return XLSX.read(bytes, { type: 'array', cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
+  return XLSX.read(bytes, { type: 'array', dense: true, cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
 }
 
 /** One SheetJS cell as a plain value; formulas give their cached value. */
@@ -52,40 +52,47 @@ function dateSerial(date) {
   return (date.getTime() - Date.UTC(1899, 11, 30)) / 86400000;
 }
 
+function holdsValue(cell) {
+  return cell != null && cell.t !== 'z' && cell.v !== undefined && cell.v !== '';
+}
+
 /** The rectangle of cells that hold something, from the cells themselves (not '!ref'). */
-function usedBox(sheet) {
+function usedBox(rows) {
   let top = Infinity, left = Infinity, bottom = -1, right = -1;
-  for (const key of Object.keys(sheet)) {
-    if (key[0] === '!') continue;
-    const cell = sheet[key];
-    if (!cell || cell.t === 'z' || cell.v === undefined || cell.v === '') continue;
-    const { r, c } = XLSX.utils.decode_cell(key);
-    if (r < top) top = r;
-    if (r > bottom) bottom = r;
-    if (c < left) left = c;
-    if (c > right) right = c;
+  for (let r = 0; r < rows.length; r++) {
+    const row = rows[r];
+    if (!row) continue;
+    for (let c = 0; c < row.length; c++) {
+      if (!holdsValue(row[c])) continue;
+      if (r < top) top = r;
+      bottom = r;
+      if (c < left) left = c;
+      if (c > right) right = c;
+    }
   }
   return bottom < 0 ? undefined : { top, left, bottom, right };
 }
 
-function sheetGrid(name, sheet, maxCells, errorNames) {
-  const box = usedBox(sheet);
+/** One sheet (SheetJS dense mode: an array of rows of cells) as a grid of plain values. */
+function sheetGrid(name, rows, maxCells, errorNames) {
+  const box = usedBox(rows);
   if (!box) return { name, origin: 'A1', cells: [] };
   const area = (box.bottom - box.top + 1) * (box.right - box.left + 1);
   const range = XLSX.utils.encode_range({ r: box.top, c: box.left }, { r: box.bottom, c: box.right });
   if (area > maxCells) return { name, origin: range, cells: null, tooLarge: area };
   const cells = [];
   for (let r = box.top; r <= box.bottom; r++) {
-    const row = [];
-    for (let c = box.left; c <= box.right; c++) row.push(plainValue(sheet[XLSX.utils.encode_cell({ r, c })], errorNames));
-    cells.push(row);
+    const row = rows[r] ?? [];
+    const out = new Array(box.right - box.left + 1);
+    for (let c = box.left; c <= box.right; c++) out[c - box.left] = holdsValue(row[c]) ? plainValue(row[c], errorNames) : null;
+    cells.push(out);
   }
   return { name, origin: XLSX.utils.encode_cell({ r: box.top, c: box.left }), cells };
 }
 
 function grids() {
   const book = readBook(job.bytes);
-  const sheets = book.SheetNames.map((name) => sheetGrid(name, book.Sheets[name] ?? {}, job.maxCells, job.errorNames));
+  const sheets = book.SheetNames.map((name) => sheetGrid(name, book.Sheets[name] ?? [], job.maxCells, job.errorNames));
   return { ok: true, sheets };
 }
 
