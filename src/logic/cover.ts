@@ -1,0 +1,455 @@
+// Exact minimum covering (unate covering), by branch and bound within a deadline.
+import { now } from './primes.js';
+
+/**
+ * Rows must each be covered by at least one chosen column. `rows[r]` lists the columns that
+ * cover row r; `costs[c]` is the cost of column c (a positive integer). A cover is better
+ * when it has fewer columns, or as many and a lower total cost (for sums of products:
+ * fewer product terms, then fewer literals).
+ */
+export interface CoverProblem {
+  readonly rows: readonly (readonly number[])[];
+  readonly costs: readonly number[];
+}
+
+export interface CoverResult {
+  /** Chosen columns, increasing. */
+  readonly columns: number[];
+  /** True when the search finished: no cover is better. */
+  readonly proven: boolean;
+}
+
+export function coverCost(problem: CoverProblem, columns: readonly number[]): number {
+  let total = 0;
+  for (const c of columns) total += problem.costs[c]!;
+  return total;
+}
+
+/** Negative when cover a is better than cover b (fewer columns, then lower cost). */
+export function compareCovers(problem: CoverProblem, a: readonly number[], b: readonly number[]): number {
+  return a.length - b.length || coverCost(problem, a) - coverCost(problem, b);
+}
+
+/** Every row has a chosen column. */
+export function isCover(problem: CoverProblem, columns: readonly number[]): boolean {
+  const chosen = new Set(columns);
+  return problem.rows.every((cols) => cols.some((c) => chosen.has(c)));
+}
+
+/**
+ * A best cover. Essential columns and row and column dominance first; the reduced matrix
+ * falls into independent blocks, each solved in two searches by branch and bound: the fewest
+ * columns (all costs 1), then the lowest cost with at most that many columns. `start` is a
+ * known cover (the first upper bound); when the clock passes `deadline`, the best cover found
+ * so far is returned with proven: false.
+ */
+export function exactCover(problem: CoverProblem, deadline: number, start: readonly number[]): CoverResult {
+  const colRows: number[][] = problem.costs.map(() => []);
+  problem.rows.forEach((cols, r) => cols.forEach((c) => colRows[c]!.push(r)));
+  const unit = problem.costs.map(() => 1);
+  const top = new Search(problem.rows, colRows, problem.costs, deadline, Infinity);
+  const rowOn = new Uint8Array(problem.rows.length).fill(1);
+  const colOn = new Uint8Array(problem.costs.length).fill(1);
+  const chosen: number[] = [];
+  if (!top.reduce(rowOn, colOn, chosen)) throw new Error('bug: a row no column covers');
+  let proven = true;
+  for (const block of blocks(problem.rows, colRows, rowOn, colOn)) {
+    const known = coverWithin(problem.rows, block, start);
+    const fewest = new Search(problem.rows, colRows, unit, deadline, Infinity).run(block, known);
+    let best = compareCovers(problem, known, fewest.columns) <= 0 ? known : fewest.columns;
+    if (fewest.proven && best.length === fewest.columns.length) {
+      const cheapest = new Search(problem.rows, colRows, problem.costs, deadline, best.length).run(block, best);
+      best = cheapest.columns;
+      proven &&= cheapest.proven;
+    } else proven = false;
+    chosen.push(...best);
+  }
+  const columns = [...new Set(chosen)].sort((a, b) => a - b);
+  if (compareCovers(problem, start, columns) < 0) return { columns: [...start].sort((a, b) => a - b), proven };
+  return { columns, proven };
+}
+
+interface Block {
+  readonly rowOn: Uint8Array;
+  readonly colOn: Uint8Array;
+}
+
+/** Connected parts of the active matrix (rows linked through shared columns). */
+function blocks(rows: CoverProblem['rows'], colRows: number[][], rowOn: Uint8Array, colOn: Uint8Array): Block[] {
+  const out: Block[] = [];
+  const seenRow = new Uint8Array(rowOn.length);
+  for (let r0 = 0; r0 < rowOn.length; r0++) {
+    if (!rowOn[r0] || seenRow[r0]) continue;
+    const bRows = new Uint8Array(rowOn.length);
+    const bCols = new Uint8Array(colOn.length);
+    const stack = [r0];
+    seenRow[r0] = 1;
+    while (stack.length > 0) {
+      const r = stack.pop()!;
+      bRows[r] = 1;
+      for (const c of rows[r]!) {
+        if (!colOn[c] || bCols[c]) continue;
+        bCols[c] = 1;
+        for (const r2 of colRows[c]!)
+          if (rowOn[r2] && !seenRow[r2]) {
+            seenRow[r2] = 1;
+            stack.push(r2);
+          }
+      }
+    }
+    out.push({ rowOn: bRows, colOn: bCols });
+  }
+  return out;
+}
+
+/** A cover of the block's rows by its columns: those of a known cover, completed if need be. */
+function coverWithin(rows: CoverProblem['rows'], block: Block, start: readonly number[]): number[] {
+  const chosen = new Set(start.filter((c) => block.colOn[c]));
+  for (let r = 0; r < rows.length; r++)
+    if (block.rowOn[r] && !rows[r]!.some((c) => chosen.has(c))) chosen.add(rows[r]!.find((c) => block.colOn[c])!);
+  return [...chosen];
+}
+
+/** Prices of the Lagrangian bound: one per row, and one on the column count when capped. */
+interface Prices {
+  readonly u: Float64Array;
+  readonly mu: number;
+}
+
+class Search {
+  private aborted = false;
+  private best: number[] = [];
+  private bestCost = Infinity;
+  private readonly stamp: Int32Array;
+  private stampValue = 0;
+
+  /** `cap`: most columns a cover may have (Infinity: no limit). */
+  constructor(
+    private readonly rows: CoverProblem['rows'],
+    private readonly colRows: number[][],
+    private readonly costs: readonly number[],
+    private readonly deadline: number,
+    private readonly cap: number,
+  ) {
+    this.stamp = new Int32Array(Math.max(rows.length, costs.length));
+  }
+
+  /** Least-cost cover of the block within the cap, starting from a known one. */
+  run(block: Block, start: number[]): CoverResult {
+    this.best = start;
+    this.bestCost = start.reduce((k, c) => k + this.costs[c]!, 0);
+    this.branch(block.rowOn.slice(), block.colOn.slice(), [], 0, undefined);
+    return { columns: this.best, proven: !this.aborted };
+  }
+
+  private branch(rowOn: Uint8Array, colOn: Uint8Array, chosen: number[], cost: number, start: Prices | undefined): void {
+    if (this.aborted) return;
+    if (now() > this.deadline) {
+      this.aborted = true;
+      return;
+    }
+    const costs = this.costs;
+    const all = chosen.slice();
+    let prices = start;
+    let lead: Bound;
+    for (;;) {
+      const picked: number[] = [];
+      if (!this.reduce(rowOn, colOn, picked)) return;
+      for (const c of picked) cost += costs[c]!;
+      all.push(...picked);
+      if (all.length > this.cap || cost > this.limit()) return;
+      if (!rowOn.includes(1)) {
+        this.best = all;
+        this.bestCost = cost;
+        return;
+      }
+      lead = this.lagrange(rowOn, colOn, cost, prices, start ? 40 : 1500, this.cap - all.length);
+      prices = lead.prices;
+      if (lead.cover && cost + lead.coverCost < this.bestCost) {
+        this.best = all.concat(lead.cover);
+        this.bestCost = cost + lead.coverCost;
+      }
+      if (cost + lead.rounded > this.limit()) return;
+      // Reduced-cost fixing: a column whose taking (or leaving) alone lifts the bound past the
+      // best cover is left out (or taken).
+      let fixed = false;
+      const base = cost + lead.value;
+      for (let c = 0; c < colOn.length; c++) {
+        if (!colOn[c]) continue;
+        const rc = lead.reduced[c]!;
+        if (rc >= 0 && base + rc > this.limit()) {
+          colOn[c] = 0;
+          fixed = true;
+        } else if (rc < 0 && base - rc > this.limit()) {
+          colOn[c] = 0;
+          all.push(c);
+          cost += costs[c]!;
+          for (const r of this.colRows[c]!) rowOn[r] = 0;
+          fixed = true;
+        }
+      }
+      if (!fixed) break;
+    }
+    // Some column of the hardest row is in every cover; trying them in turn, those already
+    // tried can be left out of the later branches. Lowest reduced cost first.
+    const row = this.hardestRow(rowOn, colOn);
+    const options = this.rows[row]!.filter((c) => colOn[c]).sort((a, b) => lead.reduced[a]! - lead.reduced[b]!);
+    const cols = colOn.slice();
+    for (const c of options) {
+      const rowsLeft = rowOn.slice();
+      for (const r of this.colRows[c]!) rowsLeft[r] = 0;
+      cols[c] = 0;
+      this.branch(rowsLeft, cols.slice(), all.concat(c), cost + costs[c]!, prices);
+      if (this.aborted || cost + lead.rounded > this.limit()) return;
+    }
+  }
+
+  /** Costs are integers: only a cover costing at most this much is an improvement. */
+  private limit(): number {
+    return this.bestCost - 1 + 1e-3;
+  }
+
+  /** Active row with fewest active columns. */
+  private hardestRow(rowOn: Uint8Array, colOn: Uint8Array): number {
+    let best = -1;
+    let fewest = Infinity;
+    for (let r = 0; r < rowOn.length; r++) {
+      if (!rowOn[r]) continue;
+      let k = 0;
+      for (const c of this.rows[r]!) k += colOn[c]!;
+      if (k < fewest) [best, fewest] = [r, k];
+    }
+    return best;
+  }
+
+  /**
+   * Lower bound on the cost of covering the active rows with at most `capLeft` active columns,
+   * by Lagrangian relaxation: with a price u_r >= 0 on each row and mu >= 0 on the count,
+   * sum(u) - mu * capLeft + sum over columns of min(0, cost + mu - price of its rows) bounds
+   * every such cover. Prices are improved by subgradient steps (Held and Karp's rule) from
+   * `start`, or from rows sharing no column each priced at their cheapest column (a maximal
+   * independent set of rows). Every set of prices also suggests a cover: the columns they make
+   * profitable, each open row's lowest-reduced-cost column, less columns made redundant.
+   * `rounded` adds that, costs being integers, at least ceil(bound / dearest cost) columns are
+   * needed, each at least the cheapest cost.
+   */
+  private lagrange(rowOn: Uint8Array, colOn: Uint8Array, cost: number, start: Prices | undefined, steps: number, capLeft: number): Bound {
+    const costs = this.costs;
+    const capped = Number.isFinite(capLeft);
+    const activeRows: number[] = [];
+    for (let r = 0; r < rowOn.length; r++) if (rowOn[r]) activeRows.push(r);
+    const activeCols: number[] = [];
+    const colActiveRows: number[][] = [];
+    let cheapest = Infinity;
+    let dearest = 0;
+    for (let c = 0; c < colOn.length; c++) {
+      if (!colOn[c]) continue;
+      activeCols.push(c);
+      colActiveRows.push(this.colRows[c]!.filter((r) => rowOn[r]));
+      cheapest = Math.min(cheapest, costs[c]!);
+      dearest = Math.max(dearest, costs[c]!);
+    }
+    const u = start ? start.u.slice() : this.independentRowPrices(activeRows, colOn);
+    let mu = start && capped ? start.mu : 0;
+    const reduced = new Float64Array(colOn.length);
+    const g = new Float64Array(rowOn.length);
+    let taken = 0;
+    const evaluate = (): number => {
+      let value = capped ? -mu * capLeft : 0;
+      for (const r of activeRows) {
+        value += u[r]!;
+        g[r] = 1;
+      }
+      taken = 0;
+      for (let i = 0; i < activeCols.length; i++) {
+        let rc = costs[activeCols[i]!]! + mu;
+        for (const r of colActiveRows[i]!) rc -= u[r]!;
+        reduced[activeCols[i]!] = rc;
+        if (rc < 0) {
+          value += rc;
+          taken++;
+          for (const r of colActiveRows[i]!) g[r]!--;
+        }
+      }
+      return value;
+    };
+    let cover: number[] | undefined;
+    let coverCost = Infinity;
+    const primal = (): void => {
+      const times = new Int32Array(rowOn.length);
+      const picked: number[] = [];
+      const take = (c: number): void => {
+        picked.push(c);
+        for (const r of this.colRows[c]!) times[r]!++;
+      };
+      for (const c of activeCols) if (reduced[c]! < 0) take(c);
+      for (const r of activeRows) {
+        if (times[r]) continue;
+        let pick = -1;
+        for (const c of this.rows[r]!) if (colOn[c] && (pick < 0 || reduced[c]! < reduced[pick]!)) pick = c;
+        take(pick);
+      }
+      picked.sort((a, b) => costs[b]! - costs[a]! || reduced[b]! - reduced[a]!);
+      let total = 0;
+      const kept: number[] = [];
+      for (const c of picked) {
+        if (this.colRows[c]!.every((r) => !rowOn[r] || times[r]! >= 2)) for (const r of this.colRows[c]!) times[r]!--;
+        else {
+          kept.push(c);
+          total += costs[c]!;
+        }
+      }
+      if (kept.length <= capLeft && total < coverCost) [cover, coverCost] = [kept, total];
+    };
+    let best = evaluate();
+    let bestPrices: Prices = { u: u.slice(), mu };
+    if (steps > 0) primal();
+    const target = this.limit() - cost;
+    let lambda = 2;
+    let stall = 0;
+    for (let step = 0; step < steps && best <= target && lambda > 0.005; step++) {
+      const gMu = taken - capLeft;
+      let norm = capped && (gMu > 0 || mu > 0) ? gMu * gMu : 0;
+      for (const r of activeRows) if (g[r]! > 0 || u[r]! > 0) norm += g[r]! * g[r]!;
+      if (norm === 0) break;
+      const goal = Number.isFinite(target) ? target + 1 : best * 1.05 + 1;
+      const t = (lambda * (goal - best)) / norm;
+      for (const r of activeRows) u[r] = Math.max(0, u[r]! + t * g[r]!);
+      if (capped) mu = Math.max(0, mu + t * gMu);
+      const value = evaluate();
+      if (step % 8 === 7) primal();
+      if (value > best + 1e-9) {
+        best = value;
+        bestPrices = { u: u.slice(), mu };
+        stall = 0;
+      } else if (++stall >= 20) {
+        lambda /= 2;
+        stall = 0;
+      }
+    }
+    u.set(bestPrices.u);
+    mu = bestPrices.mu;
+    const value = evaluate();
+    if (steps > 0) primal();
+    const rounded = capped ? value : Math.max(value, Math.ceil(value / dearest - 1e-9) * cheapest);
+    return { value, rounded, prices: bestPrices, reduced, cover, coverCost };
+  }
+
+  /** Prices: rows sharing no column (fewest columns first) each at its cheapest column. */
+  private independentRowPrices(activeRows: number[], colOn: Uint8Array): Float64Array {
+    const u = new Float64Array(this.rows.length);
+    const width = (r: number): number => this.rows[r]!.reduce((k, c) => k + colOn[c]!, 0);
+    const used = new Uint8Array(colOn.length);
+    for (const r of [...activeRows].sort((a, b) => width(a) - width(b))) {
+      const cols = this.rows[r]!.filter((c) => colOn[c]);
+      if (cols.some((c) => used[c])) continue;
+      for (const c of cols) used[c] = 1;
+      u[r] = Math.min(...cols.map((c) => this.costs[c]!));
+    }
+    return u;
+  }
+
+  /**
+   * Take essential columns (into `picked`), drop dominated rows and columns, until nothing
+   * changes. False when some active row has no active column left.
+   */
+  reduce(rowOn: Uint8Array, colOn: Uint8Array, picked: number[]): boolean {
+    const { rows, costs } = this;
+    for (let changed = true; changed; ) {
+      changed = false;
+      for (let r = 0; r < rows.length; r++) {
+        if (!rowOn[r]) continue;
+        let only = -1;
+        let k = 0;
+        for (const c of rows[r]!) if (colOn[c]) [only, k] = [c, k + 1];
+        if (k === 0) return false;
+        if (k === 1) {
+          picked.push(only);
+          colOn[only] = 0;
+          for (const r2 of this.colRows[only]!) rowOn[r2] = 0;
+          changed = true;
+        }
+      }
+      changed = this.dropDominatedRows(rowOn, colOn) || changed;
+      changed = this.dropDominatedColumns(rowOn, colOn, costs) || changed;
+    }
+    return true;
+  }
+
+  /** A row whose columns include all of another row's is covered whenever that one is. */
+  private dropDominatedRows(rowOn: Uint8Array, colOn: Uint8Array): boolean {
+    const rows = this.rows;
+    let changed = false;
+    for (let r = 0; r < rows.length; r++) {
+      if (!rowOn[r]) continue;
+      const mark = ++this.stampValue;
+      let size = 0;
+      let rarest = -1;
+      let rarestCount = Infinity;
+      for (const c of rows[r]!) {
+        if (!colOn[c]) continue;
+        this.stamp[c] = mark;
+        size++;
+        const k = this.colRows[c]!.length;
+        if (k < rarestCount) [rarest, rarestCount] = [c, k];
+      }
+      for (const r2 of this.colRows[rarest]!) {
+        if (r2 === r || !rowOn[r2]) continue;
+        let shared = 0;
+        for (const c of rows[r2]!) if (colOn[c] && this.stamp[c] === mark) shared++;
+        if (shared === size) {
+          rowOn[r2] = 0;
+          changed = true;
+        }
+      }
+    }
+    return changed;
+  }
+
+  /** A column whose rows are among a no-dearer column's rows is never needed. */
+  private dropDominatedColumns(rowOn: Uint8Array, colOn: Uint8Array, costs: readonly number[]): boolean {
+    const rows = this.rows;
+    let changed = false;
+    for (let c = 0; c < colOn.length; c++) {
+      if (!colOn[c]) continue;
+      const mark = ++this.stampValue;
+      let size = 0;
+      let rarest = -1;
+      let rarestCount = Infinity;
+      for (const r of this.colRows[c]!) {
+        if (!rowOn[r]) continue;
+        this.stamp[r] = mark;
+        size++;
+        const k = rows[r]!.length;
+        if (k < rarestCount) [rarest, rarestCount] = [r, k];
+      }
+      if (size === 0) {
+        colOn[c] = 0;
+        changed = true;
+        continue;
+      }
+      for (const c2 of rows[rarest]!) {
+        if (c2 === c || !colOn[c2] || costs[c2]! > costs[c]!) continue;
+        let shared = 0;
+        for (const r of this.colRows[c2]!) if (rowOn[r] && this.stamp[r] === mark) shared++;
+        if (shared === size) {
+          colOn[c] = 0;
+          changed = true;
+          break;
+        }
+      }
+    }
+    return changed;
+  }
+}
+
+interface Bound {
+  readonly value: number;
+  readonly rounded: number;
+  readonly prices: Prices;
+  /** Per column: cost + mu - price of its active rows. */
+  readonly reduced: Float64Array;
+  /** A cover of the active rows within the cap that the prices suggested, and its cost. */
+  readonly cover: number[] | undefined;
+  readonly coverCost: number;
+}

@@ -1,0 +1,106 @@
+// Heuristic covers for when an exact one is out of reach: expand, irredundant, reduce.
+import type { BitSet } from './bits.js';
+import { cube, type Cube } from './cube.js';
+import { compareCovers, type CoverProblem } from './cover.js';
+import { cubeInsideSet } from './primes.js';
+
+/**
+ * Expand: drop literals, leftmost input first, while the cube stays inside `allowed`
+ * (on ∪ dc). The result is a prime implicant: no literal of it can be dropped.
+ */
+export function expandToPrime(n: number, c: Cube, allowed: BitSet): Cube {
+  let out = c;
+  for (let i = n - 1; i >= 0; i--) {
+    const bit = 1 << i;
+    if (!(out.mask & bit)) continue;
+    const wider = cube(out.mask & ~bit, out.bits);
+    if (cubeInsideSet(n, wider, allowed)) out = wider;
+  }
+  return out;
+}
+
+/**
+ * A good cover (fewest columns, then lowest cost), not proven best, in three steps over the
+ * cover matrix: a greedy start (most uncovered rows, then cheapest), irredundant (drop columns whose rows are all
+ * covered twice, dearest first), then reduce and re-expand: shrink each chosen column to the rows
+ * only it covers and put in the cheapest column that covers those and the most rows besides;
+ * repeat irredundant while the cost falls.
+ */
+export function heuristicCover(problem: CoverProblem): number[] {
+  const { rows, costs } = problem;
+  const colRows: number[][] = costs.map(() => []);
+  rows.forEach((cols, r) => cols.forEach((c) => colRows[c]!.push(r)));
+  const chosen = greedy(problem, colRows);
+  irredundant(problem, colRows, chosen);
+  for (let before = [...chosen]; ; ) {
+    reexpand(problem, colRows, chosen);
+    irredundant(problem, colRows, chosen);
+    const after = [...chosen];
+    if (compareCovers(problem, after, before) >= 0) break;
+    before = after;
+  }
+  return [...chosen].sort((a, b) => a - b);
+}
+
+function greedy(problem: CoverProblem, colRows: number[][]): Set<number> {
+  const { rows, costs } = problem;
+  const open = colRows.map((rs) => rs.length);
+  const covered = new Uint8Array(rows.length);
+  const chosen = new Set<number>();
+  const take = (c: number): void => {
+    chosen.add(c);
+    for (const r of colRows[c]!) {
+      if (covered[r]) continue;
+      covered[r] = 1;
+      for (const c2 of rows[r]!) open[c2]!--;
+    }
+  };
+  // Rows with a single column force it.
+  for (const cols of rows) if (cols.length === 1 && !chosen.has(cols[0]!)) take(cols[0]!);
+  for (;;) {
+    let best = -1;
+    for (let c = 0; c < costs.length; c++)
+      if (open[c]! > 0 && (best < 0 || open[c]! > open[best]! || (open[c] === open[best] && costs[c]! < costs[best]!))) best = c;
+    if (best < 0) return chosen;
+    take(best);
+  }
+}
+
+/** Times each row is covered by the chosen columns. */
+function multiplicity(problem: CoverProblem, colRows: number[][], chosen: Set<number>): Int32Array {
+  const times = new Int32Array(problem.rows.length);
+  for (const c of chosen) for (const r of colRows[c]!) times[r]!++;
+  return times;
+}
+
+function irredundant(problem: CoverProblem, colRows: number[][], chosen: Set<number>): void {
+  const times = multiplicity(problem, colRows, chosen);
+  const dearestFirst = [...chosen].sort((a, b) => problem.costs[b]! - problem.costs[a]! || b - a);
+  for (const c of dearestFirst) {
+    if (colRows[c]!.every((r) => times[r]! >= 2)) {
+      chosen.delete(c);
+      for (const r of colRows[c]!) times[r]!--;
+    }
+  }
+}
+
+function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number>): void {
+  const { rows, costs } = problem;
+  for (const c of [...chosen]) {
+    const times = multiplicity(problem, colRows, chosen);
+    const own = colRows[c]!.filter((r) => times[r] === 1);
+    if (own.length === 0) continue;
+    // Candidates: columns covering every row only c covers.
+    let best = c;
+    let bestReach = colRows[c]!.length;
+    for (const c2 of rows[own[0]!]!) {
+      if (c2 === c || !own.every((r) => rows[r]!.includes(c2))) continue;
+      const reach = colRows[c2]!.length;
+      if (costs[c2]! < costs[best]! || (costs[c2]! === costs[best]! && reach > bestReach)) [best, bestReach] = [c2, reach];
+    }
+    if (best !== c) {
+      chosen.delete(c);
+      chosen.add(best);
+    }
+  }
+}

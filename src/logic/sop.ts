@@ -1,0 +1,84 @@
+// Minimal AND/OR forms (sum of products): fewest product terms, then fewest literals.
+import { count, popcount, union } from './bits.js';
+import { cube, type Cube } from './cube.js';
+import type { BoolFunction } from './boolfn.js';
+import { exactCover, type CoverProblem } from './cover.js';
+import { expandToPrime, heuristicCover } from './heuristic.js';
+import { comparePrinted, cubesDisjoint, now, primesWithin, setToCubes } from './primes.js';
+
+export { primeImplicants } from './primes.js';
+
+export interface SopForm {
+  /** Product terms in printed order (see `comparePrinted` in primes.ts). */
+  readonly cubes: Cube[];
+  /** True when no form with fewer terms, or as many terms and fewer literals, exists. */
+  readonly proven: boolean;
+  readonly terms: number;
+  readonly literals: number;
+}
+
+export interface SopOptions {
+  /** Time for finding primes and proving the cover minimal (default 2000 ms). */
+  readonly budgetMs?: number;
+}
+
+export const DEFAULT_BUDGET_MS = 2000;
+
+/**
+ * Cover the on-set (don't-cares may be used, need not be covered) with prime implicants,
+ * minimising product terms, then literals. Within the budget the cover is found by exact
+ * covering and proven; otherwise it comes from the heuristic and says proven: false.
+ * FALSE is the form with no terms; TRUE is one term with no literals.
+ */
+export function minimiseSop(fn: BoolFunction, options: SopOptions = {}): SopForm {
+  const deadline = now() + (options.budgetMs ?? DEFAULT_BUDGET_MS);
+  const { n } = fn;
+  if (count(fn.on) === 0) return form(n, [], true);
+  const allowed = union(fn.on, fn.dc);
+  if (count(allowed) === 2 ** n) return form(n, [cube(0, 0)], true);
+  const onCubes = setToCubes(n, fn.on);
+  const primes = primesWithin(fn, deadline);
+  // Out of time for the primes: expand the on-set's own cubes into primes instead.
+  const columns = primes ?? [...new Map(onCubes.map((c) => expandToPrime(n, c, allowed)).map((c) => [`${c.mask}:${c.bits}`, c])).values()];
+  const problem = coverProblem(onCubes, columns);
+  const start = heuristicCover(problem);
+  const result = primes ? exactCover(problem, deadline, start) : { columns: start, proven: false };
+  return form(n, result.columns.map((c) => columns[c]!), result.proven);
+}
+
+function form(n: number, cubes: Cube[], proven: boolean): SopForm {
+  const sorted = [...cubes].sort(comparePrinted(n));
+  return { cubes: sorted, proven, terms: sorted.length, literals: sorted.reduce((k, c) => k + popcount(c.mask), 0) };
+}
+
+/**
+ * Rows: the on-set split into pieces that each column either holds whole or misses, one row
+ * per distinct set of columns (so rows stay few when the on-set is large). A column costs its
+ * literals; the cover search counts columns (product terms) first.
+ */
+export function coverProblem(onCubes: readonly Cube[], columns: readonly Cube[]): CoverProblem {
+  let pieces = onCubes.map((c) => ({ c, cols: [] as number[] }));
+  columns.forEach((p, j) => {
+    const next: typeof pieces = [];
+    for (const piece of pieces) {
+      const q = piece.c;
+      if (cubesDisjoint(q, p)) {
+        next.push(piece);
+        continue;
+      }
+      // Split q into its part inside p and disjoint parts outside, one input of p at a time.
+      let inside = q;
+      for (let free = p.mask & ~q.mask; free !== 0; free &= free - 1) {
+        const bit = free & -free;
+        next.push({ c: cube(inside.mask | bit, inside.bits | (~p.bits & bit)), cols: piece.cols.slice() });
+        inside = cube(inside.mask | bit, inside.bits | (p.bits & bit));
+      }
+      piece.cols.push(j);
+      next.push({ c: inside, cols: piece.cols });
+    }
+    pieces = next;
+  });
+  const rows = new Map<string, number[]>();
+  for (const { cols } of pieces) rows.set(cols.join(','), cols);
+  return { rows: [...rows.values()], costs: columns.map((p) => popcount(p.mask)) };
+}

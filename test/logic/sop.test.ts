@@ -1,0 +1,143 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { add, emptySet, has, popcount, union } from '../../src/logic/bits.js';
+import { cubeContains, cubeFromPattern, cubeMembers, cubeToPattern, cube, type Cube } from '../../src/logic/cube.js';
+import type { BoolFunction } from '../../src/logic/boolfn.js';
+import { minimiseSop, primeImplicants } from '../../src/logic/sop.js';
+
+function fn(n: number, on: number[], dc: number[] = []): BoolFunction {
+  const f = { n, on: emptySet(n), dc: emptySet(n) };
+  on.forEach((k) => add(f.on, k));
+  dc.forEach((k) => add(f.dc, k));
+  return f;
+}
+
+/** A random function of 1..maxInputs inputs with 0-20 % don't-cares. */
+const randomFunction = (maxInputs: number) =>
+  fc.record({ n: fc.integer({ min: 1, max: maxInputs }), dcShare: fc.double({ min: 0, max: 0.2, noNaN: true }) }).chain(({ n, dcShare }) =>
+    fc.array(fc.double({ min: 0, max: 1, noNaN: true }), { minLength: 1 << n, maxLength: 1 << n }).map((draws) => {
+      const on: number[] = [];
+      const dc: number[] = [];
+      draws.forEach((d, k) => (d < dcShare ? dc.push(k) : d < dcShare + (1 - dcShare) / 2 ? on.push(k) : undefined));
+      return fn(n, on, dc);
+    }),
+  );
+
+const patterns = (n: number, cubes: Cube[]): string[] => cubes.map((c) => cubeToPattern(n, c));
+const literals = (cubes: Cube[]): number => cubes.reduce((k, c) => k + popcount(c.mask), 0);
+
+/**
+ * The smallest (terms, literals) over every cover by primes: the lowest uncovered on-set
+ * combination must be covered by one of the primes holding it, each tried in turn.
+ */
+function bruteForceMinimum(f: BoolFunction): [number, number] {
+  const primes = primeImplicants(f);
+  const cover = primes.map((p) => cubeMembers(f.n, p).filter((k) => has(f.on, k)));
+  const onList = cubeMembers(f.n, cube(0, 0)).filter((k) => has(f.on, k));
+  let best: [number, number] = [Infinity, Infinity];
+  const walk = (covered: Set<number>, terms: number, lits: number): void => {
+    if (terms > best[0]) return;
+    const open = onList.find((k) => !covered.has(k));
+    if (open === undefined) {
+      if (terms < best[0] || lits < best[1]) best = [terms, lits];
+      return;
+    }
+    primes.forEach((p, i) => {
+      if (!cubeContains(p, open)) return;
+      walk(new Set([...covered, ...cover[i]!]), terms + 1, lits + literals([p]));
+    });
+  };
+  walk(new Set(), 0, 0);
+  return best;
+}
+
+describe('minimal AND/OR forms: known answers', () => {
+  it('a function that is never on is FALSE: no product terms', () => {
+    expect(minimiseSop(fn(3, []))).toEqual({ cubes: [], proven: true, terms: 0, literals: 0 });
+  });
+
+  it('a function that is always on is TRUE: one term with no literals', () => {
+    expect(minimiseSop(fn(2, [0, 1, 2, 3]))).toEqual({ cubes: [cube(0, 0)], proven: true, terms: 1, literals: 0 });
+  });
+
+  it('a function on or don\'t-care everywhere is TRUE', () => {
+    expect(patterns(2, minimiseSop(fn(2, [1], [0, 2, 3])).cubes)).toEqual(['--']);
+  });
+
+  it('a single combination is one term naming every input', () => {
+    const form = minimiseSop(fn(4, [0b1010]));
+    expect(patterns(4, form.cubes)).toEqual(['1010']);
+    expect([form.terms, form.literals]).toEqual([1, 4]);
+  });
+
+  it('XOR of n inputs needs all 2^(n-1) odd combinations as terms', () => {
+    for (let n = 1; n <= 6; n++) {
+      const odd = cubeMembers(n, cube(0, 0)).filter((k) => popcount(k) % 2 === 1);
+      const form = minimiseSop(fn(n, odd));
+      expect([form.terms, form.literals, form.proven]).toEqual([2 ** (n - 1), n * 2 ** (n - 1), true]);
+    }
+  });
+
+  it('majority of three is AB + AC + BC', () => {
+    expect(patterns(3, minimiseSop(fn(3, [3, 5, 6, 7])).cubes)).toEqual(['11-', '1-1', '-11']);
+  });
+
+  it('terms come in printed order: by the leftmost input, plain before negated before absent', () => {
+    expect(patterns(3, minimiseSop(fn(3, [0, 1, 6, 7])).cubes)).toEqual(['11-', '00-']);
+    expect(patterns(3, minimiseSop(fn(3, [1, 3, 4, 6])).cubes)).toEqual(['1-0', '0-1']);
+  });
+
+  it('a 20-input interlock table given by a few rows is minimised and proven', () => {
+    const n = 20;
+    const f = fn(n, []);
+    const rows = ['11------------------', '1-1-----------------', '-11-----------------', '---1--------------11'];
+    for (const p of rows) for (const k of cubeMembers(n, cubeFromPattern(p))) add(f.on, k);
+    const form = minimiseSop(f);
+    expect(patterns(n, form.cubes)).toEqual(rows);
+    expect(form.proven).toBe(true);
+  });
+
+  it('with no time at all, still returns a correct cover of primes, marked unproven', () => {
+    const f = fn(4, [0, 2, 5, 7, 8, 10, 13, 15, 3], [1]);
+    const form = minimiseSop(f, { budgetMs: -1 });
+    expect(form.proven).toBe(false);
+    const allowed = union(f.on, f.dc);
+    for (const k of cubeMembers(4, cube(0, 0))) {
+      const covered = form.cubes.some((c) => cubeContains(c, k));
+      if (has(f.on, k)) expect(covered).toBe(true);
+      if (!has(allowed, k)) expect(covered).toBe(false);
+    }
+  });
+});
+
+describe('minimal AND/OR forms: properties', () => {
+  it('cover the on-set, touch no off-set combination, use only primes, and are proven (n <= 8)', () => {
+    fc.assert(
+      fc.property(randomFunction(8), (f) => {
+        const form = minimiseSop(f);
+        expect(form.proven).toBe(true);
+        const allowed = union(f.on, f.dc);
+        for (const k of cubeMembers(f.n, cube(0, 0))) {
+          const covered = form.cubes.some((c) => cubeContains(c, k));
+          if (has(f.on, k)) expect(covered).toBe(true);
+          if (!has(allowed, k)) expect(covered).toBe(false);
+        }
+        const primes = new Set(patterns(f.n, primeImplicants(f)));
+        for (const p of patterns(f.n, form.cubes)) expect(primes.has(p)).toBe(true);
+        expect(form.terms).toBe(form.cubes.length);
+        expect(form.literals).toBe(literals(form.cubes));
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('have as few terms, then literals, as the best of every cover by primes (n <= 5)', () => {
+    fc.assert(
+      fc.property(randomFunction(5), (f) => {
+        const form = minimiseSop(f);
+        expect([form.terms, form.literals]).toEqual(bruteForceMinimum(f));
+      }),
+      { numRuns: 150 },
+    );
+  });
+});
