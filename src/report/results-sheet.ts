@@ -5,7 +5,9 @@
 import { has, type Combination } from '../logic/bits.js';
 import { cubeToPattern } from '../logic/cube.js';
 import { printExcel } from '../logic/expr/print-excel.js';
+import type { Expr } from '../logic/expr/ast.js';
 import { truthTable } from '../logic/expr/evaluate.js';
+import { ok, type Result } from '../logic/result.js';
 import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
 import { cellAddress, qualifiedAddress } from '../spec/grid.js';
 import { CAUTION_LINES } from './caution.js';
@@ -148,13 +150,14 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
   const values = outputs.map((o) => FORMS.map((f) => truthTable(chosenForm(o, f).expr, n)));
   const statusCol = 1 + n + 4 * outputs.length;
   const firstRow = top + rows.length;
+  const formulas = outputs.map((o) => FORMS.map((f) => rowFormulas(chosenForm(o, f).expr, firstRow, firstRow + 2 ** n - 1)));
   let differs = 0;
   for (let k: Combination = 0; k < 2 ** n; k++) {
     const r = firstRow + k;
     const row: Row = [{ value: k, style: 'number' }];
     for (let i = 0; i < n; i++) row.push({ value: (k >>> (n - 1 - i)) & 1, style: 'input' });
     const conditions: string[] = [];
-    let ok = true;
+    let matches = true;
     const notes: string[] = [];
     outputs.forEach((o, j) => {
       const spec = specs[j]!.built;
@@ -166,10 +169,10 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
       if (has(spec.gaps, k)) notes.push(`${o.signal.identifier}: gap, safe value`);
       if (has(spec.conflicted, k)) notes.push(`${o.signal.identifier}: conflict, safe value`);
       const equal: string[] = [];
-      FORMS.forEach((form, f) => {
-        const value = has(values[j]![f]!, k) ? 1 : 0;
-        if (!dontCare && value !== specValue) ok = false;
-        const excel = printExcel(chosenForm(o, form).expr, (input) => cellAddress(r, 1 + input));
+      values[j]!.forEach((set, f) => {
+        const value = has(set, k) ? 1 : 0;
+        if (!dontCare && value !== specValue) matches = false;
+        const excel = formulas[j]![f]!(r);
         if (excel.ok) {
           row.push({ value, formula: `IF(${excel.value},1,0)`, style: 'number' });
           equal.push(`${cellAddress(r, specCol + 1 + f)}=${specRef}`);
@@ -177,14 +180,31 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
       });
       if (equal.length > 0) conditions.push(`OR(${specRef}="-",${equal.length === 1 ? equal[0] : `AND(${equal.join(',')})`})`);
     });
-    if (!ok) differs++;
+    if (!matches) differs++;
     const test = conditions.length === 0 ? 'TRUE' : conditions.length === 1 ? conditions[0] : `AND(${conditions.join(',')})`;
-    row.push({ value: ok ? 'OK' : 'DIFFERS', formula: `IF(${test},"OK","DIFFERS")`, style: 'status' });
+    row.push({ value: matches ? 'OK' : 'DIFFERS', formula: `IF(${test},"OK","DIFFERS")`, style: 'status' });
     row.push(notes.length > 0 ? { value: notes.join('; ') } : null);
     rows.push(row);
   }
   const statusRange = `${cellAddress(firstRow, statusCol)}:${cellAddress(firstRow + 2 ** n - 1, statusCol)}`;
   return { rows, statusRange, differs };
+}
+
+/**
+ * The formula of a form for each sheet row from `first` to `last`, inputs in columns B...
+ * printExcel runs once on a template; rows only fill in their references. A formula only
+ * grows with the row number's digits, so it fits on every row when it fits on the last, and
+ * on none when it does not fit on the first; rows in between are tried one by one.
+ */
+function rowFormulas(expr: Expr, first: number, last: number): (row: number) => Result<string> {
+  const refsOf = (row: number) => (input: number) => cellAddress(row, 1 + input);
+  const atLast = printExcel(expr, refsOf(last));
+  const atFirst = atLast.ok ? atLast : printExcel(expr, refsOf(first));
+  if (!atFirst.ok) return () => atFirst;
+  if (!atLast.ok) return (row) => printExcel(expr, refsOf(row));
+  const template = printExcel(expr, (input) => `@${input}@`);
+  if (!template.ok) return (row) => printExcel(expr, refsOf(row));
+  return (row) => ok(template.value.replace(/@(\d+)@/g, (_, input: string) => cellAddress(row, 1 + Number(input))));
 }
 
 function combinationText(n: number, k: Combination): string {

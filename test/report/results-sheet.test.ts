@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { has } from '../../src/logic/bits.js';
 import { truthTable } from '../../src/logic/expr/evaluate.js';
+import { printExcel } from '../../src/logic/expr/print-excel.js';
 import { cellAddress, parseRange } from '../../src/spec/grid.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { LIVE_CHECK_MAX_INPUTS, resultsSheet } from '../../src/report/results-sheet.js';
@@ -88,7 +89,9 @@ describe('results sheet', () => {
       forms.forEach((form, f) => {
         const col = 1 + 3 + Math.floor(f / 3) * 4 + 1 + (f % 3);
         const cell = row[col]!;
-        expect(cell.formula).toMatch(/^IF\(/);
+        const printed = printExcel(form.expr, (input) => cellAddress(top + k, 1 + input));
+        if (!printed.ok) throw new Error(printed.error.message);
+        expect(cell.formula).toBe(`IF(${printed.value},1,0)`);
         const expected = has(truthTable(form.expr, 3), k) ? 1 : 0;
         expect(cell.value).toBe(expected);
         expect(evaluateCell(block, cellAddress(top + k, col))).toBe(expected);
