@@ -1,5 +1,7 @@
 // `analyze`: spec tables -> forms, proofs and findings, as a readable report or the JSON
 // document of DESIGN.md section 4; with -o, a results workbook beside the untouched input.
+import { mkdir } from 'node:fs/promises';
+import { dirname, resolve } from 'node:path';
 import { sameFile } from '../hosts/file-host.js';
 import { resultsSheet } from '../report/results-sheet.js';
 import { stepsSheet } from '../report/test-steps.js';
@@ -86,6 +88,8 @@ export async function analyzeCommand(cmd: AnalyzeCommand, io: CliIo, progress: P
       await host.writeSheet(resultsSheet(analysis, { source }));
       await host.writeSheet(stepsSheet(analysis));
     }
+    // A fresh checkout has no out/ folder (it is git-ignored): make the folder asked for.
+    await mkdir(dirname(resolve(cmd.out)), { recursive: true });
     const saved = await progress.during(`writing ${cmd.out}`, host.save(cmd.out));
     if (!saved.ok) {
       io.err(`error: ${saved.error.message}\n`);

@@ -1,7 +1,7 @@
 // `export`: the hand-over pack (Structured Text, PLCopen XML, ladder SVG, test steps) of every
 // spec table read, written only when every form is proven and the spec has no error.
 import { mkdir } from 'node:fs/promises';
-import { join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { sameFile, writeOutputFile } from '../hosts/file-host.js';
 import { ladderSvg } from '../report/ladder-svg.js';
 import { exportPlcopen } from '../report/plcopen-export.js';
@@ -70,8 +70,8 @@ export async function exportCommand(cmd: ExportCommand, io: CliIo, progress: Pro
     io.err(`error: ${clash.path} is the input file; choose another name\n`);
     return EXIT.usage;
   }
-  if (cmd.svg !== undefined) await mkdir(cmd.svg, { recursive: true });
   for (const file of files) {
+    await mkdir(dirname(resolve(file.path)), { recursive: true });
     const written = await writeOutputFile(cmd.file, file.path, file.text);
     if (!written.ok) {
       io.err(`error: ${written.error.message}\n`);

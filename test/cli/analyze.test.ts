@@ -259,8 +259,8 @@ describe('analyze -o', () => {
     expect(formulas.some((f) => f.includes('"DIFFERS"'))).toBe(true);
   });
 
-  it('with --json, stdout stays the JSON document and the path goes to stderr', async () => {
-    const out = join(scratch(), 'results.xlsx');
+  it('with --json, stdout stays the JSON document and the path goes to stderr; a missing folder is made', async () => {
+    const out = join(scratch(), 'out', 'results.xlsx');
     const run = await runCli('analyze', CSV, '--json', '-o', out);
     expect(run.code).toBe(0);
     expect((JSON.parse(run.out) as Doc).tables.length).toBe(1);
