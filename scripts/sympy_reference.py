@@ -5,6 +5,8 @@ SOPform term and literal counts and, without don't-cares, its ANFform monomials.
 
   python3 scripts/sympy_reference.py          write test/external/data/sympy-reference.json
   python3 scripts/sympy_reference.py --check  regenerate in memory; exit 1 if it differs
+  python3 scripts/sympy_reference.py --time   read [{"n","on","dc"}...] on stdin, print
+                                              [{"ms","terms","literals"}...] (for bench/sop)
 
 Combination k: the first variable is the most significant bit (as in the engine). A monomial
 is a bit mask in the same positions (first variable = bit n-1); 0 is the constant TRUE.
@@ -12,6 +14,7 @@ is a bit mask in the same positions (first variable = bit n-1); 0 is the constan
 import json
 import random
 import sys
+import time
 from pathlib import Path
 
 import sympy
@@ -96,7 +99,22 @@ def render(data):
     return f'{head},"cases":[\n{lines}\n]}}\n'
 
 
+def time_sopform():
+    out = []
+    for case in json.load(sys.stdin):
+        variables = list(symbols(" ".join(f"x{j}" for j in range(case["n"]))))
+        start = time.perf_counter()
+        expr = SOPform(variables, case["on"], case["dc"])
+        ms = (time.perf_counter() - start) * 1000
+        terms, literals = sop_cost(expr)
+        out.append({"ms": ms, "terms": terms, "literals": literals})
+    print(json.dumps({"source": f"sympy {sympy.__version__}", "results": out}))
+
+
 def main():
+    if "--time" in sys.argv[1:]:
+        time_sopform()
+        return
     text = render(generate())
     if "--check" in sys.argv[1:]:
         committed = OUT.read_text() if OUT.exists() else ""
