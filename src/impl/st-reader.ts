@@ -215,8 +215,12 @@ function assignedNames(tokens: readonly Token[]): Set<string> {
   return out;
 }
 
+/** Far deeper than hand-written code goes; keeps the reader's recursion bounded. */
+const MAX_IF_DEPTH = 100;
+
 class BodyReader {
   private i = 0;
+  private depth = 0;
   /** The source with everything outside tokens (comments) blanked: expression text comes from here. */
   private readonly clean: string;
 
@@ -267,6 +271,7 @@ class BodyReader {
 
   private ifStatement(): void {
     const line = this.t!.line;
+    if (++this.depth > MAX_IF_DEPTH) throw new LineError(line, `IF statements nest deeper than ${MAX_IF_DEPTH} levels`);
     const chain = this.b.beginIf();
     let keyword = 'IF';
     while (keyword === 'IF' || keyword === 'ELSIF') {
@@ -290,6 +295,7 @@ class BodyReader {
     this.i++;
     if (isOp(this.t, ';')) this.i++;
     chain.end(line);
+    this.depth--;
   }
 
   /** CASE and loops: what they assign takes a value a truth table cannot judge. */

@@ -206,6 +206,11 @@ export class PouBuilder {
         if (leaf.kind === 'opaque') reasons.push(leaf.item);
         else if (leaf.kind === 'prev') reasons.push(this.stateReason(d.name, leaf, line));
       }
+      const size = expandedSize(value);
+      if (size > MAX_EXPANDED) {
+        const what = `${d.name} grows to about ${size.toExponential(1)} operations once intermediates are substituted, too many to evaluate`;
+        reasons.push(this.cannotJudge('unsupported', what, line));
+      }
       const unique = [...new Set(reasons)];
       outputs.push(
         unique.length > 0
@@ -243,6 +248,25 @@ export interface IfChain {
   enter(): void;
   leave(cond: Expr | null): void;
   end(line: number): void;
+}
+
+/**
+ * Substituted expressions share subtrees; evaluated as trees they may blow up (a variable
+ * rewritten from itself twice per statement doubles each time). Beyond this they are reported.
+ */
+const MAX_EXPANDED = 2_000_000;
+
+/** Node count of the expression written out as a tree (shared subtrees counted each time). */
+function expandedSize(e: Expr): number {
+  const memo = new Map<Expr, number>();
+  const go = (x: Expr): number => {
+    const known = memo.get(x);
+    if (known !== undefined) return known;
+    const n = x.kind === 'not' ? 1 + go(x.arg) : x.kind === 'const' || x.kind === 'var' ? 1 : x.args.reduce((sum, a) => sum + go(a), 1);
+    memo.set(x, n);
+    return n;
+  };
+  return go(e);
 }
 
 /** Leaf indices an expression uses (each shared subtree visited once). */

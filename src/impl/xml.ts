@@ -27,6 +27,9 @@ interface Building {
   contentLine: number;
 }
 
+/** Far deeper than any PLCopen file; keeps the readers' walks over the tree shallow. */
+export const MAX_DEPTH = 256;
+
 const PREDEFINED: Readonly<Record<string, string>> = { lt: '<', gt: '>', amp: '&', quot: '"', apos: "'" };
 const NAME_START = /[A-Za-z_:\u00C0-\uFFFF]/;
 const NAME_CHAR = /[-A-Za-z0-9_:.\u00B7\u00C0-\uFFFF]/;
@@ -118,7 +121,10 @@ class Reader {
           const parent = stack[stack.length - 1];
           if (parent) parent.children.push(el.element);
           else root = el.element;
-        } else stack.push(el.element);
+        } else {
+          if (stack.length >= MAX_DEPTH) throw new LineError(el.element.line, `elements nest deeper than ${MAX_DEPTH} levels`);
+          stack.push(el.element);
+        }
       }
     }
     const open = stack.pop();

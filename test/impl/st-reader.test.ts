@@ -204,6 +204,13 @@ describe('Structured Text reader: what a truth table cannot judge', () => {
     expectFunction(pou, 'r', 'c');
   });
 
+  it('an expression that grows too large once substituted is reported, not evaluated', () => {
+    const pou = pouOf(program('VAR t : BOOL; END_VAR', 't := a;\n' + 't := (t AND b) OR (t AND c);\n'.repeat(30) + 'q := t;'));
+    expect(output(pou, 'q').cannotJudge.map((c) => c.what)).toEqual([
+      'q grows to about 6.4e+9 operations once intermediates are substituted, too many to evaluate',
+    ]);
+  });
+
   it('a RETURN before the end leaves every output unchecked', () => {
     const pou = pouOf(program('', 'q := a;\nIF b THEN RETURN; END_IF;\nr := c;'));
     expect(kinds(output(pou, 'q'))).toEqual(['control-flow']);
@@ -212,6 +219,10 @@ describe('Structured Text reader: what a truth table cannot judge', () => {
 });
 
 describe('Structured Text reader: errors', () => {
+  it('refuses IF statements nested beyond 100 levels', () => {
+    expect(errorOf(program('', 'IF a THEN '.repeat(101) + 'q := b;' + ' END_IF;'.repeat(101)))).toBe('t.st line 9: IF statements nest deeper than 100 levels');
+  });
+
   it('names the file and line of an IF without END_IF', () => {
     expect(errorOf(program('', 'IF a THEN\n q := b;'))).toBe('t.st line 9: IF has no END_IF');
   });

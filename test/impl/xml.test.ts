@@ -71,6 +71,10 @@ describe('XML reader', () => {
     );
   });
 
+  it('refuses elements nested deeper than it reads', () => {
+    expect(errorOf('<a>'.repeat(300) + '</a>'.repeat(300))).toBe('line 1: elements nest deeper than 256 levels');
+  });
+
   it('refuses an external entity (XXE) before reading any of the document', () => {
     expect(errorOf(fixture('xxe.xml'))).toBe('line 3: DOCTYPE with entity declarations is not accepted');
   });
