@@ -1,9 +1,9 @@
 // A Boolean function of n inputs as on-set and don't-care set, built from table rows.
 import {
   MAX_INPUTS,
+  count,
   emptySet,
   fullSet,
-  has,
   intersect,
   isEmpty,
   members,
@@ -12,7 +12,7 @@ import {
   type BitSet,
   type Combination,
 } from './bits.js';
-import { cubeContains, cubeToSet, type Cube } from './cube.js';
+import { cube, cubeContains, cubeToSet, type Cube } from './cube.js';
 import { fail, ok, type Result } from './result.js';
 
 /** The value an output must take: 1, 0, or '-' (don't-care). */
@@ -109,21 +109,24 @@ export function buildFunction(
   });
 }
 
-/** Name the row pairs behind conflicted combinations, each pair once. */
+/**
+ * Name the row pairs behind conflicted combinations, each pair once. Each pair found takes
+ * the whole overlap of its two rows out of the search, so the work is per pair, not per
+ * combination.
+ */
 function findConflicts(n: number, rows: readonly TableRow[], conflicted: BitSet, limit: number): RowConflict[] {
   const out: RowConflict[] = [];
-  const seen = new Set<string>();
-  for (const k of members(conflicted)) {
-    if (out.length >= limit) break;
+  let remaining = conflicted;
+  while (out.length < limit) {
+    const [k] = members(remaining, 1);
+    if (k === undefined) break;
     const a = rows.findIndex((r) => r.value === 1 && cubeContains(r.cube, k));
     const b = rows.findIndex((r) => r.value === 0 && cubeContains(r.cube, k));
-    const key = `${Math.min(a, b)}:${Math.max(a, b)}`;
-    if (seen.has(key)) continue;
-    seen.add(key);
-    const both = intersect(cubeToSet(n, rows[a]!.cube), cubeToSet(n, rows[b]!.cube));
-    let c = 0;
-    for (const x of members(both)) if (has(conflicted, x)) c++;
-    out.push({ rowA: Math.min(a, b), rowB: Math.max(a, b), example: k, combinations: c });
+    const ca = rows[a]!.cube;
+    const cb = rows[b]!.cube;
+    const overlap = cubeToSet(n, cube(ca.mask | cb.mask, ca.bits | cb.bits));
+    out.push({ rowA: Math.min(a, b), rowB: Math.max(a, b), example: k, combinations: count(intersect(overlap, conflicted)) });
+    remaining = minus(remaining, overlap);
   }
   return out;
 }
