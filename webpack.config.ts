@@ -137,6 +137,7 @@ export default (_env: unknown, argv: { mode?: string }): webpack.Configuration &
     devServer: serving
       ? {
           port: DEV_PORT,
+          host: 'localhost',
           server: { type: 'https', options: devCertificates() },
           headers: { 'Content-Security-Policy': CSP, 'X-Content-Type-Options': 'nosniff' },
           static: false,

@@ -4,7 +4,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { BrowserFileHost } from '../src/hosts/browser-file-host.js';
 import type { ExcelHost, NamedTable } from '../src/hosts/excel-host.js';
-import type { WriteReport } from '../src/hosts/workbook-host.js';
+import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
 import { CAUTION_LINES } from '../src/report/caution.js';
 import { exportPlcopen } from '../src/report/plcopen-export.js';
 import { resultsSheet } from '../src/report/results-sheet.js';
@@ -60,18 +60,37 @@ function Outside() {
   );
 }
 
-function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Promise<Reading>) => void; busy: boolean }) {
+/** The host's sheets, and the one picked (the first to begin with). */
+function useSheets(host: WorkbookHost | undefined) {
   const [sheets, setSheets] = useState<string[]>([]);
-  const [tables, setTables] = useState<NamedTable[]>([]);
   const [sheet, setSheet] = useState('');
-  const [table, setTable] = useState(0);
   useEffect(() => {
-    void host.listSheets().then((s) => {
+    void host?.listSheets().then((s) => {
       setSheets(s);
       setSheet(s[0] ?? '');
     });
-    void host.listTables().then(setTables);
   }, [host]);
+  return { sheets, sheet, setSheet };
+}
+
+function SheetSelect({ sheets, sheet, setSheet }: { sheets: string[]; sheet: string; setSheet: (s: string) => void }) {
+  return (
+    <label>
+      Sheet
+      <select value={sheet} onChange={(e) => setSheet((e.currentTarget as HTMLSelectElement).value)}>
+        {sheets.map((s) => (
+          <option key={s}>{s}</option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
+function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Promise<Reading>) => void; busy: boolean }) {
+  const { sheets, sheet, setSheet } = useSheets(host);
+  const [tables, setTables] = useState<NamedTable[]>([]);
+  const [table, setTable] = useState(0);
+  useEffect(() => void host.listTables().then(setTables), [host]);
   const selection = async (): Promise<Reading> => {
     const sel = await host.selection();
     if (sel.cells <= 1) {
@@ -112,14 +131,7 @@ function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Pr
         </div>
       )}
       <div class="row">
-        <label>
-          Sheet
-          <select value={sheet} onChange={(e) => setSheet((e.currentTarget as HTMLSelectElement).value)}>
-            {sheets.map((s) => (
-              <option key={s}>{s}</option>
-            ))}
-          </select>
-        </label>
+        <SheetSelect sheets={sheets} sheet={sheet} setSheet={setSheet} />
         <button type="button" disabled={busy || !sheet} onClick={() => read(async () => ({ grid: await host.readGrid(sheet), label: `sheet ${sheet}` }))}>
           Read whole sheet
         </button>
@@ -139,17 +151,9 @@ function FileSource({
   read: (r: () => Promise<Reading>) => void;
   busy: boolean;
 }) {
-  const [sheets, setSheets] = useState<string[]>([]);
-  const [sheet, setSheet] = useState('');
+  const { sheets, sheet, setSheet } = useSheets(file);
   const [range, setRange] = useState('');
   const [over, setOver] = useState(false);
-  useEffect(() => {
-    if (!file) return;
-    void file.listSheets().then((s) => {
-      setSheets(s);
-      setSheet(s[0] ?? '');
-    });
-  }, [file]);
   const drop = (e: DragEvent) => {
     e.preventDefault();
     setOver(false);
@@ -187,14 +191,7 @@ function FileSource({
             Opened <strong>{file.fileName}</strong>. It stays on this computer and is never changed.
           </p>
           <div class="row">
-            <label>
-              Sheet
-              <select value={sheet} onChange={(e) => setSheet((e.currentTarget as HTMLSelectElement).value)}>
-                {sheets.map((s) => (
-                  <option key={s}>{s}</option>
-                ))}
-              </select>
-            </label>
+            <SheetSelect sheets={sheets} sheet={sheet} setSheet={setSheet} />
             <label>
               Range (optional)
               <input type="text" value={range} placeholder="A3:H13" size={9} onInput={(e) => setRange((e.currentTarget as HTMLInputElement).value)} />

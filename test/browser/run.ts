@@ -232,6 +232,15 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     same(rows, wantRows, 'counterexample rows');
   });
 
+  await check('the ladder picture of an output shows as an image', async () => {
+    const ladder = page.locator('details.ladder').first();
+    await ladder.locator('summary').click();
+    const img = ladder.locator('img');
+    await img.waitFor({ timeout: 10_000 });
+    const size = await img.evaluate((i: HTMLImageElement) => (i.complete ? i.naturalWidth : 0));
+    expect(size > 0, 'the ladder picture did not load');
+  });
+
   await check('a bad expression is answered with the position of the error', async () => {
     await page.getByLabel('Expression').fill('Guard_door_A_closed AND (');
     await page.getByRole('button', { name: 'Check against the spec' }).click();
