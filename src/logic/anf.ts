@@ -9,16 +9,19 @@ import { mobius, mobiusInPlace } from './mobius.js';
 export type Monomial = number;
 
 /**
- * Degree first; within a degree, by the printed order of inputs, leftmost first (ab, ac, bc).
- * With the leftmost input in the highest bit that is the larger mask first.
+ * The monomials of a coefficient set (bit S set = monomial S present), in printed order: degree
+ * first; within a degree by the printed order of inputs, leftmost first (ab, ac, bc), which with
+ * the leftmost input in the highest bit is the larger mask first. A counting sort by degree, no
+ * comparisons: ANFs of many inputs have millions of terms.
  */
-function printedOrder(a: Monomial, b: Monomial): number {
-  return popcount(a) - popcount(b) || b - a;
-}
-
-/** The monomials of a coefficient set (bit S set = monomial S present), in printed order. */
 export function monomialsOf(coefficients: BitSet): Monomial[] {
-  return members(coefficients).sort(printedOrder);
+  const ascending = members(coefficients);
+  const next = new Array<number>(34).fill(0);
+  for (const m of ascending) next[popcount(m) + 1]!++;
+  for (let d = 1; d < next.length; d++) next[d]! += next[d - 1]!;
+  const out = new Array<Monomial>(ascending.length);
+  for (let i = ascending.length - 1; i >= 0; i--) out[next[popcount(ascending[i]!)]!++] = ascending[i]!;
+  return out;
 }
 
 /** The monomials whose XOR is the function with the given truth values (n inputs). */

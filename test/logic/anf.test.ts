@@ -8,6 +8,7 @@ import {
   has,
   inputSet,
   intersect,
+  popcount,
   union,
   wordCount,
   type BitSet,
@@ -25,6 +26,16 @@ describe('algebraic normal form', () => {
     // Every monomial of a, b, c (a = bit 2): 1, a, b, c, ab, ac, bc, abc.
     const all = [0, 1, 2, 3, 4, 5, 6, 7];
     expect(anfOf(anfValues(all, 3), 3)).toEqual([0, 0b100, 0b010, 0b001, 0b110, 0b101, 0b011, 0b111]);
+  });
+
+  it('keeps that order for any function: degree ascending, then the larger mask (leftmost input) first', () => {
+    fc.assert(
+      fc.property(nArb.chain((n) => fc.tuple(fc.constant(n), valuesArb(n))), ([n, values]) => {
+        const monos = anfOf(values, n);
+        const sorted = [...monos].sort((x, y) => popcount(x) - popcount(y) || y - x);
+        expect(monos).toEqual(sorted);
+      }),
+    );
   });
 
   it('gives back the truth values from its monomials', () => {
