@@ -11,6 +11,7 @@ import type { Problem, SpecTable } from './types.js';
 export interface FormProof {
   readonly combinations: number;
   readonly mismatchCount: number;
+  /** The first 50 mismatches (see LISTED in proof.ts); the count is complete. */
   readonly mismatches: readonly Combination[];
 }
 
@@ -23,8 +24,9 @@ export interface AndOrForm {
   readonly terms: number;
   readonly literals: number;
   readonly proof: FormProof;
-  /** Don't-care combinations this form turns ON. */
+  /** Don't-care combinations this form turns ON: the first 50 of them. */
   readonly permitsAlso: readonly Combination[];
+  readonly permitsAlsoCount: number;
 }
 
 export interface XorForm {
@@ -38,6 +40,7 @@ export interface XorForm {
   readonly exhaustive: boolean;
   readonly proof: FormProof;
   readonly permitsAlso: readonly Combination[];
+  readonly permitsAlsoCount: number;
 }
 
 export interface ConflictReport {

@@ -1,6 +1,6 @@
 // A grid of cells -> the spec tables on it, with every problem pinned to an A1 cell.
 import { buildFunction, type OutputValue, type SafeValue, type TableRow } from '../logic/boolfn.js';
-import { MAX_INPUTS, count, members } from '../logic/bits.js';
+import { MAX_INPUTS, count } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import { toIdentifiers } from '../logic/identifiers.js';
 import type { Signal } from '../logic/signals.js';
@@ -23,7 +23,7 @@ import {
 import { decideRoles } from './roles.js';
 import { joinSeparated, signalColumns, type BlockLayout, type CellAt } from './table-layout.js';
 import type { Grid, OutputSpec, Problem, Severity, SpecOptions, SpecRow, SpecTable, XReading } from './types.js';
-import { uncoveredCubes } from './uncovered.js';
+import { gapCubes } from './uncovered.js';
 
 export interface SpecTablesRead {
   readonly tables: SpecTable[];
@@ -363,20 +363,15 @@ function reportGaps(
   const gapCount = count(gaps);
   if (gapCount === 0) return;
   const n = inputs.length;
-  const cubes = uncoveredCubes(n, rows.map((r) => r.cube));
-  const shown = cubes
-    ? [...cubes]
-        .sort((x, y) => x.bits - y.bits || y.mask - x.mask)
-        .slice(0, GAP_CUBES_SHOWN)
-        .map((c) => cubeToPattern(n, c))
-    : members(gaps, GAP_CUBES_SHOWN).map((k) => cubeToPattern(n, cube((1 << n) - 1, k)));
-  const more = (cubes ? cubes.length : gapCount) - shown.length;
+  const { cubes, cut } = gapCubes(n, rows.map((r) => r.cube), gaps);
+  const shown = cubes.slice(0, GAP_CUBES_SHOWN).map((c) => cubeToPattern(n, c));
+  const more = cubes.length - shown.length;
   const safes = outputs.map((o) => `${o.signal.header} ${o.safe}`).join(', ');
   const plural = gapCount === 1 ? 'combination is' : 'combinations are';
   const message =
     `${gapCount} input ${plural} covered by no row; there each output takes its safe value (${safes}). ` +
     `Uncovered, as patterns over ${inputs.map((s) => s.header).join(', ')} (- = any): ` +
     shown.join(', ') +
-    (more > 0 ? ` and ${more} more` : '');
+    (more > 0 ? ` and ${more}${cut ? '+' : ''} more` : '');
   problems.push(sheet.problem('warning', sheet.range({ ...layout.block, top: layout.top }), message));
 }

@@ -1,5 +1,6 @@
 // The input combinations no row of a table covers, as a short list of disjoint cubes, for
-// the gap warning. (The analysis lists a minimal cover instead; this one needs no search.)
+// the gap warning and the analysis. No search: fast for any table the engine takes.
+import { members, type BitSet } from '../logic/bits.js';
 import { cube, type Cube } from '../logic/cube.js';
 
 /** Cubes of a ∖ b, disjoint from each other (the disjoint sharp product). */
@@ -33,4 +34,18 @@ export function uncoveredCubes(n: number, rows: readonly Cube[], limit = 4096): 
     if (left.length === 0) break;
   }
   return left;
+}
+
+/** Beyond this many cubes a gap list is cut short (the count of gaps stays complete). */
+export const GAP_CUBE_LIMIT = 65536;
+
+/**
+ * The gaps of a table as cubes, sorted (by the values of their fixed inputs, wider first):
+ * the disjoint cubes of `uncoveredCubes`; or, when there would be more than `limit`, the
+ * first `limit` gap combinations as cubes of one combination each, and `cut` says so.
+ */
+export function gapCubes(n: number, rows: readonly Cube[], gaps: BitSet, limit = GAP_CUBE_LIMIT): { cubes: Cube[]; cut: boolean } {
+  const disjoint = uncoveredCubes(n, rows, limit);
+  const cubes = disjoint ?? members(gaps, limit).map((k) => cube((1 << n) - 1, k));
+  return { cubes: cubes.sort((x, y) => x.bits - y.bits || y.mask - x.mask), cut: disjoint === undefined };
 }

@@ -1,0 +1,116 @@
+// One element of the `tables` array of `analyze --json` (DESIGN.md section 4), plus more.
+// Input combinations are written as patterns over the table's inputs, in the order of
+// `inputs`: "101" is first input 1, second 0, third 1; in a cube, '-' is "any".
+import type { Combination } from '../logic/bits.js';
+import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
+import type { OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
+import type { RoleRule, Severity, XReading } from './types.js';
+
+export interface MismatchJson {
+  readonly form: 'andOr' | 'xor' | 'bestXor';
+  readonly combination: string;
+}
+
+export interface OutputJson {
+  readonly name: string;
+  readonly identifier: string;
+  /** AND/OR form (sum of products), Structured Text. */
+  readonly andOr: string;
+  /** XOR form (algebraic normal form), Structured Text. */
+  readonly xor: string;
+  /** The AND/OR form is a proven minimum (terms, then literals); false: heuristic. */
+  readonly proven: boolean;
+  readonly terms: number;
+  readonly literals: number;
+  readonly xorTerms: number;
+  /** Every form checked on every combination; mismatches of any form, first 50 each. */
+  readonly check: { readonly combinations: number; readonly mismatchCount: number; readonly mismatches: MismatchJson[] };
+  /** Don't-care combinations the AND/OR form turns ON (first 50; count complete). */
+  readonly permitsAlso: string[];
+  readonly permitsAlsoCount: number;
+  readonly safeValue: 0 | 1;
+  readonly bestXor: { readonly expr: string; readonly terms: number; readonly complemented: string[]; readonly exhaustive: boolean };
+  readonly degree: number;
+  /** Input headers the output does not depend on (don't-cares at the safe value). */
+  readonly unusedInputs: string[];
+  /** Combinations no row covers (they take the safe value), as cubes. */
+  readonly gaps: string[];
+  readonly gapCount: number;
+  readonly dontCareCount: number;
+  readonly conflicts: { readonly rows: [string, string]; readonly example: string; readonly combinations: number }[];
+  readonly steps: { readonly combination: string; readonly expected: 0 | 1; readonly reason: string }[];
+}
+
+export interface TableJson {
+  readonly sheet: string;
+  readonly range: string;
+  readonly inputs: string[];
+  readonly outputs: OutputJson[];
+  readonly problems: { readonly severity: Severity; readonly cell: string; readonly message: string }[];
+  readonly roleRule: RoleRule;
+  readonly xReading: XReading;
+  /** Header -> Structured Text identifier, inputs and outputs. */
+  readonly identifiers: Record<string, string>;
+}
+
+export function analysisJson(analysis: TableAnalysis): TableJson {
+  const { table } = analysis;
+  const n = analysis.inputs.length;
+  const identifiers: Record<string, string> = {};
+  for (const s of [...analysis.inputs, ...analysis.outputs.map((o) => o.signal)]) identifiers[s.header] = s.identifier;
+  return {
+    sheet: table.sheet,
+    range: table.range,
+    inputs: analysis.inputs.map((s) => s.header),
+    outputs: analysis.outputs.map((o) => outputJson(o, analysis)),
+    problems: analysis.problems.map((p) => ({ severity: p.severity, cell: p.cell, message: p.message })),
+    roleRule: table.roleRule,
+    xReading: table.xReading,
+    identifiers,
+  };
+
+  function outputJson(o: OutputAnalysis, a: TableAnalysis): OutputJson {
+    const combination = (k: Combination): string => cubeToPattern(n, cube((1 << n) - 1, k));
+    const pattern = (c: Cube): string => cubeToPattern(n, c);
+    const forms: [MismatchJson['form'], { proof: XorForm['proof'] }][] = [
+      ['andOr', o.andOr],
+      ['xor', o.xor],
+      ['bestXor', o.bestXor],
+    ];
+    return {
+      name: o.signal.header,
+      identifier: o.signal.identifier,
+      andOr: o.andOr.text,
+      xor: o.xor.text,
+      proven: o.andOr.proven,
+      terms: o.andOr.terms,
+      literals: o.andOr.literals,
+      xorTerms: o.xor.terms,
+      check: {
+        combinations: o.andOr.proof.combinations,
+        mismatchCount: forms.reduce((k, [, f]) => k + f.proof.mismatchCount, 0),
+        mismatches: forms.flatMap(([form, f]) => f.proof.mismatches.map((k) => ({ form, combination: combination(k) }))),
+      },
+      permitsAlso: o.andOr.permitsAlso.map(combination),
+      permitsAlsoCount: o.andOr.permitsAlsoCount,
+      safeValue: o.safe,
+      bestXor: {
+        expr: o.bestXor.text,
+        terms: o.bestXor.terms,
+        complemented: a.inputs.filter((_, i) => (o.bestXor.polarity >>> (n - 1 - i)) & 1).map((s) => s.header),
+        exhaustive: o.bestXor.exhaustive,
+      },
+      degree: o.degree,
+      unusedInputs: o.unusedInputs.map((i) => a.inputs[i]!.header),
+      gaps: o.gaps.map(pattern),
+      gapCount: o.gapCount,
+      dontCareCount: o.dontCareCount,
+      conflicts: o.conflicts.map((c) => ({
+        rows: [c.rowCellsA, c.rowCellsB],
+        example: combination(c.example),
+        combinations: c.combinations,
+      })),
+      steps: o.steps.map((s) => ({ combination: combination(s.combination), expected: s.expected, reason: s.reason })),
+    };
+  }
+}
