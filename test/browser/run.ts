@@ -3,7 +3,7 @@
 // Needs /usr/bin/chromium (apt-get install chromium); does not skip without it, it fails.
 // Expected results are computed here, in Node, by the same engine the page runs in its worker.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import { tmpdir } from 'node:os';
 import { extname, join, normalize, resolve } from 'node:path';
@@ -14,6 +14,7 @@ import { checkImplementation } from '../../src/logic/implcheck.js';
 import { inputValue } from '../../src/logic/bits.js';
 import { openFile } from '../../src/hosts/file-host.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
+import { exportSt } from '../../src/report/st-export.js';
 import { analyseTable } from '../../src/spec/analyse.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
 import type { TableAnalysis } from '../../src/spec/analysis-types.js';
@@ -273,6 +274,16 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     expect(formulas > 0, 'the results sheet has live formulas');
     const userCells = (s: XLSX.WorkSheet) => XLSX.utils.sheet_to_json(s, { header: 1, raw: true, defval: null });
     same(userCells(book.Sheets['Spindle']!), userCells(source.Sheets['Spindle']!), 'the Spindle sheet is unchanged');
+  });
+
+  await check('a program file written from the derived forms checks equal for every output', async () => {
+    const path = join(work, 'from-forms.st');
+    writeFileSync(path, exportSt(spindle, { source: { workbook: 'capper-cell.xlsx' } }));
+    await page.locator('input[type=file][accept*=".st"]').setInputFiles(path);
+    await page.locator('ul.verdicts li').first().waitFor({ timeout: 30_000 });
+    const lines = await page.locator('ul.verdicts li').allTextContents();
+    same(lines.length, spindle.reduce((n, a) => n + a.outputs.length, 0), 'one verdict per output');
+    expect(lines.every((l) => l.includes(': equal')), `verdicts: ${lines.join(' | ')}`);
   });
 
   await check('the Structured Text hand-over downloads with the caution in its header', async () => {
