@@ -14,6 +14,7 @@ import {
   gridOrigin,
   gridWidth,
   parseRange,
+  qualifiedAddress,
   rangeAddress,
   restrictGrid,
   MAX_COLUMNS,
@@ -85,6 +86,11 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
 /** Every problem of a reading: those of the tables and those beside them. */
 export function allProblems(read: SpecTablesRead): Problem[] {
   return [...read.problems, ...read.tables.flatMap((t) => t.problems)];
+}
+
+/** A problem as one line for a person: "Capper!D7: blank cell in a data row; write 1, 0 or -". */
+export function problemText(p: Problem): string {
+  return `${qualifiedAddress(p.sheet, p.cell)}: ${p.message}`;
 }
 
 /** The grid as the reader needs it: cells by grid position, what is filled, sheet addresses. */

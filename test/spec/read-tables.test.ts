@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { members } from '../../src/logic/bits.js';
 import { cubeToPattern } from '../../src/logic/cube.js';
-import { allProblems, readSpecTables } from '../../src/spec/read-tables.js';
+import { allProblems, problemText, readSpecTables } from '../../src/spec/read-tables.js';
 import type { CellValue, Grid, Problem, SpecOptions, SpecTable } from '../../src/spec/types.js';
 
 const grid = (cells: CellValue[][], origin = 'A1', sheet = 'Capper'): Grid => ({ sheet, origin, cells });
@@ -256,6 +256,11 @@ describe('the shape of a table', () => {
     expect(errors(t.problems)).toEqual([
       { severity: 'error', sheet: 'Capper', cell: 'A2:C2', message: 'no data rows below the header row' },
     ]);
+  });
+
+  it('a problem reads as one line with its sheet and cell', () => {
+    const read = readSpecTables(grid([ROLES, HEADERS, [1, null, 1]], 'C5', 'Capper cell'));
+    expect(problemText(errors(allProblems(read))[0]!)).toBe("'Capper cell'!D7: blank cell in a data row; write 1, 0 or -");
   });
 
   it('a block of data with no header row is an error naming its first row', () => {
