@@ -63,7 +63,8 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
   }
   const sheet = new SheetCells(area);
   const tables: SpecTable[] = [];
-  for (const layout of joinSeparated(sheet.cellAt, sheet.filled, findBlocks(sheet.filled, sheet.width))) {
+  const layouts = joinSeparated(sheet.cellAt, sheet.filled, findBlocks(sheet.filled, sheet.width));
+  for (const layout of layouts) {
     if (layout.isNote) {
       if (filledCount(sheet, layout) > 1) {
         const message = 'not read as a spec table: no cell reads 1, 0, TRUE, FALSE or -';
@@ -71,7 +72,11 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
       }
       continue;
     }
-    const read = readTable(sheet, layout, options);
+    // Rows cut off from a table above by an empty row look like a table with no header row.
+    const below = layouts.some(
+      (l) => l !== layout && l.block.bottom < layout.block.top && l.block.left === layout.block.left && l.block.right === layout.block.right,
+    );
+    const read = readTable(sheet, layout, options, below);
     if (read.table) tables.push(read.table);
     else problems.push(...read.problems);
   }
@@ -142,16 +147,18 @@ interface TableRead {
   readonly problems: Problem[];
 }
 
-function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions): TableRead {
+function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions, belowTable: boolean): TableRead {
   const problems: Problem[] = [];
   const { block, headerRow } = layout;
   const columns = signalColumns(layout);
   const headerRange = sheet.range({ top: headerRow, left: block.left, bottom: headerRow, right: block.right });
+  const tableRange = sheet.range({ top: layout.top, left: block.left, bottom: block.bottom, right: block.right });
   const headerValues = columns.map((c) => sheet.cellAt(headerRow, c));
   if (!headerValues.some((v) => isText(v) && !looksLikeData(v))) {
     const message =
       'no header row: the first row of a spec table names its signals (text), ' +
-      (layout.roleRow === undefined ? 'with an optional input/output row above it' : 'below the input/output row');
+      (layout.roleRow === undefined ? 'with an optional input/output row above it' : 'below the input/output row') +
+      (belowTable ? '; if these rows belong to the table above, delete the empty row between them' : '');
     return { problems: [sheet.problem('error', headerRange, message)] };
   }
 
@@ -189,15 +196,15 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions)
   if (headerRow === block.bottom) problems.push(sheet.problem('error', headerRange, 'no data rows below the header row'));
   if (xCells > 0)
     problems.push(
-      sheet.problem('info', sheet.range(block), `${xCells} cell${xCells === 1 ? '' : 's'} reading X taken as - (any / don't-care), as set`),
+      sheet.problem('info', tableRange, `${xCells} cell${xCells === 1 ? '' : 's'} reading X taken as - (any / don't-care), as set`),
     );
 
   const outputs = outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
-  if (rows.length > 0) reportGaps(sheet, layout, inputs, outputs, rows, problems);
+  if (rows.length > 0) reportGaps(sheet, tableRange, inputs, outputs, rows, problems);
 
   const table: SpecTable = {
     sheet: sheet.grid.sheet,
-    range: sheet.range({ top: layout.top, left: block.left, bottom: block.bottom, right: block.right }),
+    range: tableRange,
     inputs,
     outputs,
     rows,
@@ -359,7 +366,7 @@ export function describeCube(c: Cube, inputs: readonly Signal[]): string {
 /** One warning per table: the rows leave the same combinations uncovered for every output. */
 function reportGaps(
   sheet: SheetCells,
-  layout: BlockLayout,
+  tableRange: string,
   inputs: readonly Signal[],
   outputs: readonly OutputSpec[],
   rows: readonly SpecRow[],
@@ -379,5 +386,5 @@ function reportGaps(
     `Uncovered, as patterns over ${inputs.map((s) => s.header).join(', ')} (- = any): ` +
     shown.join(', ') +
     (more > 0 ? ` and ${more}${cut ? '+' : ''} more` : '');
-  problems.push(sheet.problem('warning', sheet.range({ ...layout.block, top: layout.top }), message));
+  problems.push(sheet.problem('warning', tableRange, message));
 }

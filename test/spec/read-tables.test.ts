@@ -267,6 +267,12 @@ describe('the shape of a table', () => {
     const read = readSpecTables(grid([[1, 0, 1], [0, 0, 1]]), { inputCount: 2 });
     expect(read.problems).toMatchObject([{ severity: 'error', cell: 'A1:C1', message: expect.stringMatching(/no header row/) }]);
   });
+
+  it('rows cut off from a table by an empty row are an error that says to delete the empty row', () => {
+    const read = readSpecTables(grid([ROLES, HEADERS, [1, 1, 1], [null, null, null], [0, 0, 0]]));
+    expect(read.tables.map((t) => t.range)).toEqual(['A1:C3']);
+    expect(read.problems).toMatchObject([{ cell: 'A5:C5', message: expect.stringMatching(/delete the empty row between them$/) }]);
+  });
 });
 
 describe('finding tables on a sheet', () => {
