@@ -3,9 +3,11 @@
 import { render } from 'preact';
 import { openBrowserFile } from '../src/hosts/browser-file-host.js';
 import { App } from './app.js';
+import { applyTheme } from './theme.js';
 
 const startWorker = () => new Worker(new URL('./xlsx-worker.ts', import.meta.url));
 
+applyTheme();
 const root = document.getElementById('app')!;
 root.textContent = '';
 render(
