@@ -26,7 +26,7 @@ export function CellLink({ sheet, cell, selectCell }: { sheet: string; cell: str
   const text = qualifiedAddress(sheet, cell);
   if (!selectCell) return <code class="cell">{text}</code>;
   return (
-    <button type="button" class="link cell" title={`Select ${text} in Excel`} onClick={() => selectCell(sheet, cell.split(':')[0]!)}>
+    <button type="button" class="link cell" title={`Select ${text} in Excel`} onClick={() => selectCell(sheet, cell)}>
       {text}
     </button>
   );

@@ -30,7 +30,7 @@ export interface ExcelHost extends WorkbookHost {
   /** The sheet and A1 range of the current selection. */
   selection(): Promise<{ sheet: string; range: string; cells: number }>;
   listTables(): Promise<NamedTable[]>;
-  /** Show a cell to the user: activate its sheet and select it. */
+  /** Show a cell or range to the user: activate its sheet and select it. */
   selectCell(sheet: string, cell: string): Promise<void>;
 }
 
