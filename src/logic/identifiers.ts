@@ -109,8 +109,16 @@ function baseIdentifier(header: string): string {
   return name;
 }
 
-/** `base` cut so that base + suffix fits the length limit, without a trailing underscore. */
+/**
+ * `base` cut so that base + suffix fits the length limit, without a trailing underscore.
+ * A cut falls on a word break when one leaves at least half the room, so that a reader sees
+ * whole words (`Channel_discrepancy`, not `Channel_discrepancy_alar`).
+ */
 function withSuffix(base: string, suffix: string): string {
-  const cut = base.slice(0, MAX_IDENTIFIER_LENGTH - suffix.length).replace(/_+$/, '');
-  return cut + suffix;
+  const room = MAX_IDENTIFIER_LENGTH - suffix.length;
+  if (base.length <= room) return base + suffix;
+  let cut = base.slice(0, room);
+  const lastBreak = base[room] === '_' ? room : cut.lastIndexOf('_');
+  if (lastBreak >= room / 2) cut = cut.slice(0, lastBreak);
+  return cut.replace(/_+$/, '') + suffix;
 }

@@ -34,7 +34,7 @@ describe('implementation check of the sample machine: Structured Text', () => {
       ['Chuck_air_release', 'CapperCell.Chuck_air_release', 32],
       ['Cap_feeder_enable', 'CapperCell.Cap_feeder_enable', 32],
       ['Head_lower_permit', 'CapperCell.Head_lower_permit', 32],
-      ['Channel_discrepancy_alar', 'CapperCell.Channel_discrepancy_alar', 64],
+      ['Channel_discrepancy', 'CapperCell.Channel_discrepancy', 64],
     ]);
     expect(report.unmatchedSpec).toEqual([]);
     expect(report.unmatchedProgram).toEqual([]);

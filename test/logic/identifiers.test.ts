@@ -39,10 +39,14 @@ describe('identifiers from headers', () => {
     expect(toIdentifiers(['Guard', 'guard', 'GUARD', 'Guard 2'])).toEqual(['Guard', 'guard_3', 'GUARD_4', 'Guard_2']);
   });
 
-  it('cuts names at 24 characters without a trailing underscore', () => {
-    const [id] = toIdentifiers(['Light curtain muting lamp_ok healthy']);
-    expect(id).toBe('Light_curtain_muting_lam');
+  it('cuts names at 24 characters on a word break, without a trailing underscore', () => {
+    expect(toIdentifiers(['Light curtain muting lamp_ok healthy'])).toEqual(['Light_curtain_muting']);
     expect(toIdentifiers(['Light curtain muting la ok'])).toEqual(['Light_curtain_muting_la']);
+    expect(toIdentifiers(['Channel discrepancy alarm'])).toEqual(['Channel_discrepancy']);
+  });
+
+  it('cuts inside a word only when the last word break would waste more than half the room', () => {
+    expect(toIdentifiers(['Ab Supercalifragilisticexpialidocious'])).toEqual(['Ab_Supercalifragilistice']);
   });
 
   it('names a header with nothing usable Signal_<position>', () => {
