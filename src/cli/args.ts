@@ -44,7 +44,7 @@ Spec options:
   --x-means-dont-care     read X cells as '-' (any / don't-care); otherwise an X is an error
   --inputs N              the first N signal columns are inputs, the rest outputs
   --safe NAME=0|1         an output's safe value (default 0); may be given more than once
-  --time-limit SECONDS    longest the workbook may take to read (default 20)
+  --time-limit SECONDS    longest the workbook may take to read (default 60)
 
 Exit status: 0 every form proven against the spec (verify: the implementation is equal),
 1 a spec error or a failed check, 2 a usage error or a file that cannot be read.`;

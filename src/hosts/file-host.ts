@@ -17,7 +17,7 @@ import type { WorkbookHost, WriteReport } from './workbook-host.js';
 import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
 
 export interface FileHostOptions {
-  /** Longest a workbook parse may take (default 20 s). */
+  /** Longest a workbook parse may take (default 60 s). */
   readonly timeLimitMs?: number;
   /** Largest file accepted (default 50 MB). */
   readonly maxBytes?: number;
@@ -29,7 +29,7 @@ export interface FileHostOptions {
   readonly testHook?: 'pollute-prototype' | 'never-finish' | 'exhaust-heap';
 }
 
-export const FILE_DEFAULTS = { timeLimitMs: 20_000, maxBytes: 50 * 1024 * 1024, heapMb: 1024, maxCells: 20_000_000 } as const;
+export const FILE_DEFAULTS = { timeLimitMs: 60_000, maxBytes: 50 * 1024 * 1024, heapMb: 1024, maxCells: 20_000_000 } as const;
 
 type FileKind = 'workbook' | 'csv';
 
