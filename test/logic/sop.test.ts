@@ -27,28 +27,31 @@ const patterns = (n: number, cubes: Cube[]): string[] => cubes.map((c) => cubeTo
 const literals = (cubes: Cube[]): number => cubes.reduce((k, c) => k + popcount(c.mask), 0);
 
 /**
- * The smallest (terms, literals) over every cover by primes: the lowest uncovered on-set
+ * The smallest (terms, literals) over every cover by primes, by dynamic programming over the
+ * set of on-set combinations covered so far (n <= 5: one 32-bit mask): the lowest uncovered
  * combination must be covered by one of the primes holding it, each tried in turn.
  */
 function bruteForceMinimum(f: BoolFunction): [number, number] {
   const primes = primeImplicants(f);
-  const cover = primes.map((p) => cubeMembers(f.n, p).filter((k) => has(f.on, k)));
-  const onList = cubeMembers(f.n, cube(0, 0)).filter((k) => has(f.on, k));
-  let best: [number, number] = [Infinity, Infinity];
-  const walk = (covered: Set<number>, terms: number, lits: number): void => {
-    if (terms > best[0]) return;
-    const open = onList.find((k) => !covered.has(k));
-    if (open === undefined) {
-      if (terms < best[0] || lits < best[1]) best = [terms, lits];
-      return;
-    }
+  const masks = primes.map((p) => cubeMembers(f.n, p).reduce((m, k) => (has(f.on, k) ? m | (1 << k) : m), 0) >>> 0);
+  const all = cubeMembers(f.n, cube(0, 0)).reduce((m, k) => (has(f.on, k) ? m | (1 << k) : m), 0) >>> 0;
+  const memo = new Map<number, [number, number]>();
+  const best = (covered: number): [number, number] => {
+    if (covered === all) return [0, 0];
+    const known = memo.get(covered);
+    if (known) return known;
+    const open = 31 - Math.clz32((all & ~covered) & -(all & ~covered));
+    let out: [number, number] = [Infinity, Infinity];
     primes.forEach((p, i) => {
       if (!cubeContains(p, open)) return;
-      walk(new Set([...covered, ...cover[i]!]), terms + 1, lits + literals([p]));
+      const [t, l] = best((covered | masks[i]!) >>> 0);
+      const here: [number, number] = [t + 1, l + popcount(p.mask)];
+      if (here[0] < out[0] || (here[0] === out[0] && here[1] < out[1])) out = here;
     });
+    memo.set(covered, out);
+    return out;
   };
-  walk(new Set(), 0, 0);
-  return best;
+  return best(0);
 }
 
 describe('minimal AND/OR forms: known answers', () => {
