@@ -8,7 +8,7 @@ import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { cellAddress, parseRange, restrictGrid } from '../spec/grid.js';
 import type { Grid } from '../spec/types.js';
-import { parseCsv } from './csv.js';
+import { parseCsv } from '../spec/csv.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
 import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
 

@@ -2,6 +2,7 @@
 // equal spec headings (`I_GuardA_Closed` for "Guard A closed"). Two columns: spec signal,
 // program variable; read from a CSV file or from a sheet.
 import { fail, ok, type Result } from '../logic/result.js';
+import { csvRecords } from '../spec/csv.js';
 import { cellAddress, gridOrigin, qualifiedAddress } from '../spec/grid.js';
 import type { CellValue, Grid } from '../spec/types.js';
 
@@ -86,57 +87,8 @@ function cellText(value: CellValue): string | undefined {
 
 /** A mapping CSV: comma, semicolon or tab separated (the first line decides), quotes as RFC 4180. */
 export function readMappingCsv(fileName: string, text: string): Result<NameMapping> {
-  const body = text.replace(/^\uFEFF/, '');
-  const firstLine = body.split(/\r?\n/, 1)[0] ?? '';
-  const separator = [';', '\t', ','].find((s) => unquoted(firstLine).includes(s)) ?? ',';
-  const records = splitCsv(body, separator);
+  const records = csvRecords(text);
   if (!records.ok) return fail({ message: `${fileName} ${records.error.message}` });
-  const rows = records.value.map(({ line, cells }) => ({ cells, at: () => `${fileName} line ${line}` }));
+  const rows = records.value.map(({ line, fields }) => ({ cells: fields, at: () => `${fileName} line ${line}` }));
   return pairsOf(fileName, rows);
-}
-
-function unquoted(line: string): string {
-  return line.replace(/"[^"]*"/g, '');
-}
-
-/** Records of a CSV text, each with the line it starts on. */
-function splitCsv(text: string, separator: string): Result<{ line: number; cells: string[] }[]> {
-  const out: { line: number; cells: string[] }[] = [];
-  let cells: string[] = [];
-  let cell = '';
-  let line = 1;
-  let start = 1;
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i]!;
-    if (quoted) {
-      if (c === '"' && text[i + 1] === '"') {
-        cell += '"';
-        i++;
-      } else if (c === '"') quoted = false;
-      else {
-        if (c === '\n') line++;
-        cell += c;
-      }
-    } else if (c === '"' && cell.trim() === '') {
-      quoted = true;
-      cell = '';
-    } else if (c === separator) {
-      cells.push(cell);
-      cell = '';
-    } else if (c === '\n' || c === '\r') {
-      if (c === '\r' && text[i + 1] === '\n') i++;
-      cells.push(cell);
-      out.push({ line: start, cells });
-      cells = [];
-      cell = '';
-      start = ++line;
-    } else cell += c;
-  }
-  if (quoted) return fail({ message: `line ${start}: a quoted field is not closed` });
-  if (cell !== '' || cells.length > 0) {
-    cells.push(cell);
-    out.push({ line: start, cells });
-  }
-  return ok(out);
 }

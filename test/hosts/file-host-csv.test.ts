@@ -1,7 +1,7 @@
 // The CSV reader behind the file host: delimiter detection, quoting (RFC 4180), values.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { csvValue, detectDelimiter, parseCsv, type Delimiter } from '../../src/hosts/csv.js';
+import { csvValue, detectDelimiter, parseCsv, type Delimiter } from '../../src/spec/csv.js';
 
 function rows(text: string): unknown {
   const r = parseCsv(text);
