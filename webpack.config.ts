@@ -35,10 +35,14 @@ const OFFICE_FILES = [
   'ariatelemetry/aria-web-telemetry.js',
 ];
 
-/** Page policy: everything from our own origin; workers and downloads may use blob: URLs. */
+/**
+ * Page policy: everything from our own origin; workers and downloads may use blob: URLs;
+ * 'wasm-unsafe-eval' lets the transform's WebAssembly kernel compile from its bytes (it allows
+ * no JS eval; without it the engine falls back to plain JS).
+ */
 export const CSP = [
   "default-src 'self'",
-  "script-src 'self'",
+  "script-src 'self' 'wasm-unsafe-eval'",
   "style-src 'self'",
   "img-src 'self' data: blob:",
   "worker-src 'self' blob:",

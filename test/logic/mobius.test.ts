@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { fullSet, has, intersect, members, wordCount, type BitSet } from '../../src/logic/bits.js';
-import { mobius, mobiusInPlace } from '../../src/logic/mobius.js';
-import { naiveMobiusBytes } from '../../bench/transform.bench.js';
+import { mobius, mobiusInPlace, mobiusInPlaceJs } from '../../src/logic/mobius.js';
+import { naiveMobius } from '../../bench/transform.bench.js';
 
 /** Random truth values of n inputs, bits beyond 2^n cleared. */
 const functionArb = (minN: number, maxN: number): fc.Arbitrary<{ n: number; values: BitSet }> =>
@@ -12,20 +12,11 @@ const functionArb = (minN: number, maxN: number): fc.Arbitrary<{ n: number; valu
       .map((words) => ({ n, values: intersect(words, fullSet(n)) })),
   );
 
-/** One byte per combination, for the naive reference. */
-function toBytes(values: BitSet, n: number): Uint8Array {
-  const bytes = new Uint8Array(1 << n);
-  for (let k = 0; k < bytes.length; k++) bytes[k] = (values[k >>> 5]! >>> (k & 31)) & 1;
-  return bytes;
-}
-
-/** The naive transform, packed back into words to compare with ours. */
-function naiveMobius(values: BitSet, n: number): BitSet {
-  const bytes = toBytes(values, n);
-  naiveMobiusBytes(bytes);
-  const words = new Uint32Array(wordCount(n));
-  for (let k = 0; k < bytes.length; k++) words[k >>> 5]! |= bytes[k]! << (k & 31);
-  return words;
+/** The JS path alone (the public functions take the kernel from 10 inputs on). */
+function mobiusJs(values: BitSet, n: number): BitSet {
+  const copy = values.slice(0, wordCount(n));
+  mobiusInPlaceJs(copy, n);
+  return copy;
 }
 
 /** Index of the first word in which two sets differ, -1 when equal (cheap for large sets). */
@@ -42,19 +33,23 @@ function scrambled(n: number): BitSet {
 }
 
 describe('Möbius transform on packed words', () => {
-  it('agrees with a naive one-value-per-byte butterfly for random functions of 1 to 14 inputs', () => {
+  it('agrees with a naive one-value-per-byte butterfly for random functions of 1 to 14 inputs, on both paths', () => {
     fc.assert(
       fc.property(functionArb(1, 14), ({ n, values }) => {
-        expect(mobius(values, n)).toEqual(naiveMobius(values, n));
+        const expected = naiveMobius(values, n);
+        expect(mobius(values, n)).toEqual(expected);
+        expect(mobiusJs(values, n)).toEqual(expected);
       }),
       { numRuns: 150 },
     );
   });
 
-  it('agrees with the naive butterfly past one cache block, where levels sweep the whole array (21 to 23 inputs)', () => {
+  it('agrees with the naive butterfly past one cache block, where levels sweep the whole array (21 to 23 inputs), on both paths', () => {
     for (const n of [21, 22, 23]) {
       const values = scrambled(n);
-      expect(firstDifference(mobius(values, n), naiveMobius(values, n))).toBe(-1);
+      const expected = naiveMobius(values, n);
+      expect(firstDifference(mobius(values, n), expected)).toBe(-1);
+      expect(firstDifference(mobiusJs(values, n), expected)).toBe(-1);
     }
   });
 
@@ -96,9 +91,12 @@ describe('Möbius transform on packed words', () => {
     expect(result).not.toBe(values);
   });
 
-  it('treats a number of inputs outside 1..26, or too few words, as a bug', () => {
-    expect(() => mobiusInPlace(new Uint32Array(1), 0)).toThrow(RangeError);
-    expect(() => mobiusInPlace(new Uint32Array(1 << 22), 27)).toThrow(RangeError);
-    expect(() => mobiusInPlace(new Uint32Array(2), 7)).toThrow(RangeError);
+  it('treats a number of inputs outside 1..26, or too few words, as a bug, on both paths', () => {
+    for (const transform of [mobiusInPlace, mobiusInPlaceJs]) {
+      expect(() => transform(new Uint32Array(1), 0)).toThrow(RangeError);
+      expect(() => transform(new Uint32Array(1 << 22), 27)).toThrow(RangeError);
+      expect(() => transform(new Uint32Array(2), 7)).toThrow(RangeError);
+      expect(() => transform(new Uint32Array(16), 12)).toThrow(RangeError);
+    }
   });
 });
