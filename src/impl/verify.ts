@@ -250,14 +250,8 @@ function compare(expr: Expr, table: SpecTable, o: number): Pick<OutputVerdict, '
   const dc = minus(fn.dc, open);
   const unsafeGaps = spec.safe === 1 ? minus(gaps, values) : intersect(gaps, values);
   const counterexamples = check.counterexamples.map((c) => {
-    const row = table.rows.find((r) => cubeContains(r.cube, c.combination) && r.values[o] === c.expected);
-    return {
-      combination: c.combination,
-      inputs: c.inputs,
-      expected: c.expected,
-      actual: c.actual,
-      ...(row ? { specRow: { cells: qualifiedAddress(table.sheet, row.cells), outputCell: qualifiedAddress(table.sheet, row.outputCells[o] ?? '') } } : {}),
-    };
+    const specRow = specRowOf(table, o, c.combination, c.expected);
+    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, ...(specRow ? { specRow } : {}) };
   });
   return {
     status: check.equal ? 'equal' : 'differs',
@@ -276,6 +270,12 @@ function compare(expr: Expr, table: SpecTable, o: number): Pick<OutputVerdict, '
     conflicted: count(conflicted),
     reasons: [],
   };
+}
+
+/** The first spec row that asks output `o` for `expected` on combination `k`: its cells and its output cell. */
+export function specRowOf(table: SpecTable, o: number, k: Combination, expected: 0 | 1): CounterexampleRow['specRow'] {
+  const row = table.rows.find((r) => cubeContains(r.cube, k) && r.values[o] === expected);
+  return row ? { cells: qualifiedAddress(table.sheet, row.cells), outputCell: qualifiedAddress(table.sheet, row.outputCells[o] ?? '') } : undefined;
 }
 
 /** A monomial as an AND of identifiers (TRUE for the constant monomial). */

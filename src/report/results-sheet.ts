@@ -21,7 +21,7 @@ export const LIVE_CHECK_MAX_INPUTS = 12;
 /** Combinations or patterns listed by name in one cell; the count is always complete. */
 const LISTED = 20;
 /** Excel holds at most 32,767 characters in a cell (Microsoft support, "Excel specifications and limits"; from memory). */
-const CELL_CHARS = 32_000;
+export const CELL_CHARS = 32_000;
 
 const FORMS: readonly FormChoice[] = ['andOr', 'xor', 'bestXor'];
 const SHORT: Readonly<Record<FormChoice, string>> = { andOr: 'AND/OR', xor: 'XOR', bestXor: 'best XOR' };
@@ -220,14 +220,14 @@ function cellText(s: string): string {
   return s.length <= CELL_CHARS ? s : `${s.slice(0, CELL_CHARS)} … (cut at ${CELL_CHARS} of ${s.length} characters; see the Structured Text export)`;
 }
 
-function label(value: string): BlockCell {
+export function label(value: string): BlockCell {
   return { value, style: 'label' };
 }
 
-function heading(value: string): BlockCell {
+export function heading(value: string): BlockCell {
   return { value, style: 'heading' };
 }
 
-function code(value: string): BlockCell {
+export function code(value: string): BlockCell {
   return { value, style: 'code' };
 }

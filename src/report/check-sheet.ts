@@ -1,0 +1,203 @@
+// The implementation check as a sheet: what was checked, the verdict per output, the
+// counterexamples as rows (inputs 0/1, expected, actual, the spec row they contradict), the
+// ANF monomials by which implementation and spec differ, and the don't-care/gap notes. A pasted
+// expression (one output) and a program file (every output) come to the same sections.
+import { count, has, type Combination } from '../logic/bits.js';
+import type { ImplCheck } from '../logic/implcheck.js';
+import type { Signal } from '../logic/signals.js';
+import { printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/verify.js';
+import { kindWord } from '../impl/constructs.js';
+import { qualifiedAddress } from '../spec/grid.js';
+import type { SpecTable } from '../spec/types.js';
+import { CAUTION_LINES } from './caution.js';
+import { CELL_CHARS, code, heading, label } from './results-sheet.js';
+import type { BlockCell, SheetBlock } from './sheet-block.js';
+import { sheetName } from './test-steps.js';
+import { fit, plural } from './text.js';
+
+export type CheckSubject =
+  /** An expression typed or pasted for one output of a table, checked by `checkImplementation`. */
+  | { readonly kind: 'expression'; readonly table: SpecTable; readonly output: number; readonly expression: string; readonly check: ImplCheck }
+  /** A program file checked against every output by `verifyImplementation`. */
+  | { readonly kind: 'program'; readonly report: VerifyReport };
+
+type Row = (BlockCell | null)[];
+
+/** One output's check as the sheet shows it, whichever kind of check it came from. */
+interface Section
+  extends Pick<OutputVerdict, 'output' | 'cell' | 'status' | 'combinations' | 'mismatchCount' | 'differenceMonomials' | 'differenceMonomialCount'> {
+  readonly inputs: readonly Signal[];
+  readonly implementation: BlockCell;
+  readonly counterexamples: readonly { readonly inputs: readonly (0 | 1)[]; readonly expected: 0 | 1; readonly actual: 0 | 1; readonly specRow: string }[];
+  /** Label and text: reasons, don't-cares, gaps, conflicts. */
+  readonly notes: readonly (readonly [string, string])[];
+}
+
+interface CheckView {
+  readonly name: string;
+  readonly title: string;
+  readonly about: readonly (readonly [string, BlockCell])[];
+  readonly sections: readonly Section[];
+  /** Program-wide lists (unmatched names, what a truth table cannot judge). */
+  readonly lists: readonly { readonly title: string; readonly items: readonly string[] }[];
+}
+
+const VERDICT_WORD: Readonly<Record<OutputVerdict['status'], string>> = { equal: 'EQUAL', differs: 'DIFFERS', unchecked: 'UNCHECKED', 'not-found': 'NOT FOUND' };
+
+export function checkSheet(subject: CheckSubject): SheetBlock {
+  return layout(subject.kind === 'expression' ? expressionView(subject) : programView(subject.report));
+}
+
+function layout(view: CheckView): SheetBlock {
+  const rows: Row[] = [[{ value: view.title, style: 'title' }]];
+  for (const line of CAUTION_LINES) rows.push([{ value: line, style: 'caution' }]);
+  rows.push([]);
+  for (const [what, cell] of view.about) rows.push([label(what), cell]);
+  rows.push([]);
+  for (const s of view.sections) rows.push(...sectionRows(s), []);
+  for (const list of view.lists) {
+    if (list.items.length === 0) continue;
+    rows.push([heading(list.title)], ...list.items.map((item) => [{ value: item }]), []);
+  }
+  const widest = Math.max(0, ...view.sections.map((s) => s.inputs.length));
+  return { name: view.name, rows, columnWidths: [30, ...Array.from({ length: widest + 2 }, () => 14), 40] };
+}
+
+function sectionRows(s: Section): Row[] {
+  const rows: Row[] = [
+    [heading(`Output ${s.output.header} (${s.output.identifier})`)],
+    [label('Spec cell'), { value: s.cell }],
+    [label('Implementation'), s.implementation],
+    [label('Verdict'), { value: VERDICT_WORD[s.status], style: 'status' }, { value: verdictText(s) }],
+  ];
+  if (s.counterexamples.length > 0) {
+    const shown = s.counterexamples.length < s.mismatchCount ? `first ${s.counterexamples.length} of ${s.mismatchCount}` : `all ${s.mismatchCount}`;
+    rows.push([label('Counterexamples'), { value: shown }]);
+    rows.push([...s.inputs.map((i) => heading(i.header)), heading('Expected (spec)'), heading('Actual (implementation)'), heading('Spec row it contradicts')]);
+    for (const c of s.counterexamples) {
+      rows.push([
+        ...c.inputs.map((v): BlockCell => ({ value: v, style: 'input' })),
+        { value: c.expected, style: 'number' },
+        { value: c.actual, style: 'number' },
+        { value: c.specRow },
+      ]);
+    }
+  }
+  if (s.differenceMonomialCount > 0) {
+    const more = s.differenceMonomialCount > s.differenceMonomials.length ? ` (first ${s.differenceMonomials.length} shown)` : '';
+    rows.push([label('Differs by the XOR of'), { value: `${plural(s.differenceMonomialCount, 'ANF monomial')}${more}` }]);
+    for (const m of s.differenceMonomials) rows.push([null, code(m)]);
+  }
+  for (const [what, text] of s.notes) rows.push([label(what), { value: text }]);
+  return rows;
+}
+
+function verdictText(s: Section): string {
+  switch (s.status) {
+    case 'equal':
+      return `equal on all ${s.combinations} combinations`;
+    case 'differs':
+      return `differs on ${s.mismatchCount} of ${s.combinations} combinations`;
+    case 'unchecked':
+      return 'not checked: see why below';
+    case 'not-found':
+      return 'no implementation found: see why below';
+  }
+}
+
+function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>): CheckView {
+  const { table, output: o, check } = subject;
+  const spec = table.outputs[o]!;
+  const n = table.inputs.length;
+  const where = qualifiedAddress(table.sheet, table.range);
+  const { fn, gaps, conflicted } = spec.built;
+  const openNote = (k: Combination): string =>
+    has(gaps, k) ? `gap (no row covers it): safe value ${spec.safe}` : has(conflicted, k) ? `conflict: safe value ${spec.safe}` : '-';
+  const notes: [string, string][] = [];
+  const dc = count(fn.dc);
+  if (dc > 0) notes.push(["Don't-care", `${plural(dc, 'combination')}; the expression turns ${check.dontCareOn} of them ON (not counted as differences)`]);
+  const gapCount = count(gaps);
+  if (gapCount > 0) notes.push(['Gaps', `${plural(gapCount, 'combination')} no row covers; they take the safe value ${spec.safe} and are checked against it`]);
+  const conflictCount = count(conflicted);
+  if (conflictCount > 0) notes.push(['Conflicts', `${plural(conflictCount, 'combination')} the spec asks to be both 1 and 0; they take the safe value ${spec.safe} and are checked against it`]);
+  const section: Section = {
+    output: spec.signal,
+    cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
+    status: check.equal ? 'equal' : 'differs',
+    combinations: check.combinations,
+    mismatchCount: check.mismatchCount,
+    differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
+    differenceMonomialCount: check.differenceMonomialCount,
+    inputs: table.inputs,
+    implementation: { value: 'the expression above' },
+    counterexamples: check.counterexamples.map((c) => {
+      const row = specRowOf(table, o, c.combination, c.expected);
+      return { inputs: c.inputs, expected: c.expected, actual: c.actual, specRow: row ? specRowText(row) : openNote(c.combination) };
+    }),
+    notes,
+  };
+  return {
+    name: sheetName(table.sheet, ' check'),
+    title: `Interlock Algebra implementation check: ${where}`,
+    about: [
+      ['Checked', { value: `an expression for output ${spec.signal.header}` }],
+      ['Expression', code(fit(subject.expression, CELL_CHARS))],
+      ['Spec table', { value: where }],
+    ],
+    sections: [section],
+    lists: [],
+  };
+}
+
+function programView(report: VerifyReport): CheckView {
+  const tally = (s: OutputVerdict['status']): number => report.outputs.filter((o) => o.status === s).length;
+  const tables = [...new Set(report.outputs.map((o) => o.table))];
+  const sections = report.outputs.map((v): Section => {
+    const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
+    if (v.status === 'equal' || v.status === 'differs') {
+      const n = Math.log2(v.combinations);
+      if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the implementation turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
+      if (v.gaps.count > 0) {
+        const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => k.toString(2).padStart(n, '0'));
+        notes.push([
+          'Gaps',
+          `${plural(v.gaps.count, 'combination')} no row covers (safe value ${v.gaps.safe}); the implementation is not at the safe value on ${v.gaps.unsafe} of them` +
+            `${examples.length > 0 ? `, e.g. ${examples.join(', ')}` : ''} (not counted as differences)`,
+        ]);
+      }
+      if (v.conflicted > 0) notes.push(['Conflicts', `${plural(v.conflicted, 'combination')} the spec asks to be both 1 and 0 (not counted)`]);
+    }
+    return {
+      ...v,
+      inputs: report.inputs[v.table] ?? [],
+      implementation: { value: v.variable ? `${v.variable} (line ${v.line})` : 'none found' },
+      counterexamples: v.counterexamples.map((c) => ({ ...c, specRow: c.specRow ? specRowText(c.specRow) : '-' })),
+      notes,
+    };
+  });
+  return {
+    name: sheetName(report.file.replace(/\.[^.]*$/, ''), ' check'),
+    title: `Interlock Algebra implementation check: ${report.file}`,
+    about: [
+      ['Checked', { value: `program file ${report.file}` }],
+      ...(report.mapping ? [['Names mapped by', { value: report.mapping }] as const] : []),
+      [tables.length === 1 ? 'Spec table' : 'Spec tables', { value: tables.join(', ') }],
+      [
+        'Result',
+        { value: `${tally('equal')} equal, ${tally('differs')} differ, ${tally('unchecked')} unchecked, ${tally('not-found')} not found of ${plural(report.outputs.length, 'output')}` },
+      ],
+    ],
+    sections,
+    lists: [
+      { title: 'Spec signals not matched to the program', items: report.unmatchedSpec },
+      { title: 'Program variables not matched to the spec', items: report.unmatchedProgram },
+      { title: 'Mapping entries not used', items: report.unusedMapping },
+      { title: 'What a truth table cannot judge (combinational logic only)', items: report.cannotJudge.map((c) => `${c.pou} line ${c.line}: ${kindWord(c.kind)}: ${c.what}`) },
+      { title: 'Notes', items: report.notes },
+    ],
+  };
+}
+
+function specRowText(row: NonNullable<OutputVerdict['counterexamples'][number]['specRow']>): string {
+  return `${row.cells} (output cell ${row.outputCell})`;
+}

@@ -1,0 +1,138 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { and, FALSE, not, or, variable, type Expr } from '../../src/logic/expr/ast.js';
+import { parseExpression } from '../../src/logic/expr/parse.js';
+import { printSt } from '../../src/logic/expr/print-st.js';
+import { checkImplementation } from '../../src/logic/implcheck.js';
+import { verifyImplementation } from '../../src/impl/verify.js';
+import { CAUTION_LINES } from '../../src/report/caution.js';
+import { checkSheet } from '../../src/report/check-sheet.js';
+import type { SheetBlock } from '../../src/report/sheet-block.js';
+import type { SpecTable } from '../../src/spec/types.js';
+import { capperTables, implementation } from '../impl/capper.js';
+import { GUARD, tinyTable, VOTE } from './fixtures.js';
+
+const values = (block: SheetBlock) => block.rows.map((r) => r.map((c) => c?.value ?? null));
+const rowsOf = (block: SheetBlock, first: string) => values(block).filter((r) => r[0] === first);
+
+function expressionSheet(table: SpecTable, output: number, expression: string): SheetBlock {
+  const parsed = parseExpression(expression, table.inputs);
+  if (!parsed.ok) throw new Error(parsed.error.message);
+  return checkSheet({ kind: 'expression', table, output, expression, check: checkImplementation(parsed.value, table.outputs[output]!.built.fn) });
+}
+
+/** The counterexample rows: from the column titles ('Expected (spec)' among them) to the next label. */
+function counterexampleRows(block: SheetBlock, from = 0): (string | number | boolean | null)[][] {
+  const all = values(block);
+  const titles = all.findIndex((r, i) => i >= from && r.includes('Expected (spec)'));
+  const out = [];
+  for (let i = titles + 1; i < all.length && typeof all[i]![0] === 'number'; i++) out.push(all[i]!);
+  return out;
+}
+
+describe('implementation check sheet', () => {
+  const guard = tinyTable(GUARD);
+  const stateful = verifyImplementation(capperTables().slice(0, 3), implementation('capper-cell-stateful.st'));
+  const wrong = verifyImplementation(capperTables(), implementation('capper-cell-wrong.st'));
+
+  it('opens with a title, then the caution line by line, for an expression and for a program', () => {
+    for (const block of [expressionSheet(guard, 0, 'Guard_closed'), checkSheet({ kind: 'program', report: wrong })]) {
+      expect(block.rows[0]![0]!.style).toBe('title');
+      expect(block.rows.slice(1, 1 + CAUTION_LINES.length).map((r) => [r[0]!.value, r[0]!.style])).toEqual(CAUTION_LINES.map((l) => [l, 'caution']));
+    }
+  });
+
+  it('names what was checked and the spec table, under a sheet name of at most 31 characters', () => {
+    const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
+    expect(block.name).toBe('Guard logic check');
+    expect(rowsOf(block, 'Checked')).toEqual([['Checked', 'an expression for output Motor permit']]);
+    expect(rowsOf(block, 'Expression')).toEqual([['Expression', 'Two_hand_OK OR Guard_closed']]);
+    expect(rowsOf(block, 'Spec table')).toEqual([['Spec table', "'Guard logic'!A1:E6"]]);
+    const long = tinyTable({ ...GUARD, sheet: 'A very long sheet name for guards' });
+    expect(expressionSheet(long, 0, 'Guard_closed').name.length).toBeLessThanOrEqual(31);
+  });
+
+  it('a differing expression lists every counterexample with its inputs, expected, actual and the spec row it contradicts, and the count', () => {
+    const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
+    expect(rowsOf(block, 'Verdict')).toEqual([['Verdict', 'DIFFERS', 'differs on 2 of 8 combinations']]);
+    expect(rowsOf(block, 'Counterexamples')).toEqual([['Counterexamples', 'all 2']]);
+    const titles = values(block).find((r) => r.includes('Expected (spec)'));
+    expect(titles).toEqual(['Guard closed', 'Two-hand OK', 'Mode (setup)', 'Expected (spec)', 'Actual (implementation)', 'Spec row it contradicts']);
+    expect(counterexampleRows(block)).toEqual([
+      [0, 1, 0, 0, 1, "'Guard logic'!A4:E4 (output cell 'Guard logic'!D4)"],
+      [1, 0, 0, 0, 1, 'gap (no row covers it): safe value 0'],
+    ]);
+  });
+
+  it('every counterexample of a check becomes one row, with the count beside (any implementation of the vote)', () => {
+    const vote = tinyTable(VOTE);
+    const inputs = vote.inputs.map((s, i) => variable(i, s.identifier));
+    const minterm = (k: number): Expr => and(...inputs.map((v, i) => ((k >>> (2 - i)) & 1 ? v : not(v))));
+    fc.assert(
+      fc.property(fc.uniqueArray(fc.integer({ min: 0, max: 7 })), (on) => {
+        const expr = on.length === 0 ? FALSE : or(...on.map(minterm));
+        const check = checkImplementation(expr, vote.outputs[0]!.built.fn);
+        const block = checkSheet({ kind: 'expression', table: vote, output: 0, expression: printSt(expr), check });
+        const rows = counterexampleRows(block).map((r) => r.slice(0, 5));
+        expect(rows).toEqual(check.counterexamples.map((c) => [...c.inputs, c.expected, c.actual]));
+        expect(rowsOf(block, 'Verdict')[0]![2]).toBe(check.equal ? 'equal on all 8 combinations' : `differs on ${check.mismatchCount} of 8 combinations`);
+      }),
+    );
+  });
+
+  it('an equal expression writes the verdict and no counterexamples', () => {
+    const block = expressionSheet(tinyTable(VOTE), 0, 'PS1 AND PS2 OR PS1 AND PS3 OR PS2 AND PS3');
+    expect(rowsOf(block, 'Verdict')).toEqual([['Verdict', 'EQUAL', 'equal on all 8 combinations']]);
+    expect(rowsOf(block, 'Counterexamples')).toEqual([]);
+    expect(rowsOf(block, 'Differs by the XOR of')).toEqual([]);
+  });
+
+  it("notes the don't-cares the expression turns on and the gaps it is checked against", () => {
+    const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
+    expect(rowsOf(block, "Don't-care")).toEqual([["Don't-care", '3 combinations; the expression turns 2 of them ON (not counted as differences)']]);
+    expect(rowsOf(block, 'Gaps')).toEqual([['Gaps', '1 combination no row covers; they take the safe value 0 and are checked against it']]);
+  });
+
+  it('prints the ANF monomials by which an expression differs as Structured Text product terms', () => {
+    // Spec with its don't-cares at the expression's values: Guard·Two ⊕ Guard·Mode ⊕ Two·Mode;
+    // expression Guard ⊕ Two ⊕ Guard·Two. Their XOR is Guard ⊕ Two ⊕ Guard·Mode ⊕ Two·Mode.
+    const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
+    const all = values(block);
+    const at = all.findIndex((r) => r[0] === 'Differs by the XOR of');
+    expect(all[at]).toEqual(['Differs by the XOR of', '4 ANF monomials']);
+    expect(all.slice(at + 1, at + 5)).toEqual([
+      [null, 'Guard_closed'],
+      [null, 'Two_hand_OK'],
+      [null, 'Guard_closed AND Mode_setup'],
+      [null, 'Two_hand_OK AND Mode_setup'],
+    ]);
+  });
+
+  it('a program report writes each output\'s verdict and implementing variable, and the tally', () => {
+    const block = checkSheet({ kind: 'program', report: wrong });
+    expect(block.name).toBe('capper-cell-wrong check');
+    expect(rowsOf(block, 'Verdict').map((r) => r[1])).toEqual(wrong.outputs.map((o) => (o.status === 'equal' ? 'EQUAL' : 'DIFFERS')));
+    expect(rowsOf(block, 'Implementation')).toContainEqual(['Implementation', 'CapperCell.Head_lower_permit (line 49)']);
+    expect(rowsOf(block, 'Result')).toEqual([['Result', '5 equal, 1 differ, 0 unchecked, 0 not found of 6 outputs']]);
+  });
+
+  it('a program report writes the counterexamples with the spec row cells they contradict, and the difference monomial', () => {
+    const block = checkSheet({ kind: 'program', report: wrong });
+    const head = values(block).findIndex((r) => r[0] === 'Output Head lower permit (Head_lower_permit)');
+    expect(counterexampleRows(block, head)).toEqual([
+      [1, 1, 0, 1, 1, 0, 1, "'Chuck and feeder'!B30:J30 (output cell 'Chuck and feeder'!J30)"],
+      [1, 1, 1, 1, 1, 0, 1, "'Chuck and feeder'!B34:J34 (output cell 'Chuck and feeder'!J34)"],
+    ]);
+    expect(values(block)).toContainEqual([null, 'Cap_in_chuck AND Bottle_in_position AND Torque_reached AND Air_pressure_OK']);
+  });
+
+  it('a program report writes why each unchecked output was not checked, and what a truth table cannot judge', () => {
+    const block = checkSheet({ kind: 'program', report: stateful });
+    expect(rowsOf(block, 'Verdict').map((r) => r[1])).toEqual(['UNCHECKED', 'UNCHECKED', 'UNCHECKED', 'UNCHECKED', 'EQUAL']);
+    const why = rowsOf(block, 'Why unchecked').map((r) => r[1]);
+    expect(why).toContain('Spindle_run_permit feeds back into itself (seal-in / latch), read at line 22 (CapperStateful, line 22)');
+    expect(why).toContain('timer AirDebounce (TON): AirDebounce.Q at line 26 (CapperStateful, line 26)');
+    expect(values(block)).toContainEqual(['What a truth table cannot judge (combinational logic only)']);
+    expect(values(block)).toContainEqual(['CapperStateful line 22: seal-in: Spindle_run_permit feeds back into itself (seal-in / latch), read at line 22']);
+  });
+});
