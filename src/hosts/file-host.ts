@@ -1,20 +1,16 @@
 // WorkbookHost over a workbook file (.xlsx/.xlsm) or a CSV file, for the command line.
 // Workbook files are parsed by SheetJS only inside parse-worker.mjs, in a worker thread with
 // a time limit, a heap limit and a file-size limit; plain grids come back and are checked
-// again here. Results are written to a new file: never the input, via a temp file + rename.
+// again cell by cell (parsed-workbook.ts, shared with the standalone page). Results are written to a new file: never the input, via a temp file + rename.
 import { randomBytes } from 'node:crypto';
 import { existsSync, realpathSync, statSync } from 'node:fs';
 import { readFile, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import XLSX from 'xlsx';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
-import { cellAddress, parseRange, restrictGrid } from '../spec/grid.js';
-import type { CellValue, Grid } from '../spec/types.js';
-import { parseCsv } from '../spec/csv.js';
-import type { WorkbookHost, WriteReport } from './workbook-host.js';
-import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
+import { fileKind, ParsedWorkbook, readSheets, type FileKind, type RunParseJob, type SheetData } from './parsed-workbook.js';
+import type { WriteReport } from './workbook-host.js';
 
 export interface FileHostOptions {
   /** Longest a workbook parse may take (default 60 s). */
@@ -31,23 +27,8 @@ export interface FileHostOptions {
 
 export const FILE_DEFAULTS = { timeLimitMs: 60_000, maxBytes: 50 * 1024 * 1024, heapMb: 1024, maxCells: 20_000_000 } as const;
 
-type FileKind = 'workbook' | 'csv';
-
-function fileKind(path: string): FileKind | undefined {
-  const ext = extname(path).toLowerCase();
-  if (ext === '.xlsx' || ext === '.xlsm') return 'workbook';
-  if (ext === '.csv' || ext === '.txt') return 'csv';
-  return undefined;
-}
-
-const ERROR_NAMES: Record<number, string> = Object.fromEntries(Object.entries(ERROR_CODES).map(([name, code]) => [code, name]));
-
-type WorkerAnswer =
-  | { ok: true; sheets?: unknown; bytes?: unknown }
-  | { ok: false; message: string };
-
-/** Run the parsing worker on one job, within the time limit and the heap limit. */
-function runWorker(job: Record<string, unknown>, bytes: Uint8Array, options: FileHostOptions, what: string): Promise<Result<WorkerAnswer>> {
+/** Each job in a fresh parsing worker thread, within the time limit and the heap limit. */
+const workerRunner = (options: FileHostOptions, what: string): RunParseJob => (job, bytes) => {
   const timeLimitMs = options.timeLimitMs ?? FILE_DEFAULTS.timeLimitMs;
   return new Promise((done) => {
     const worker = new Worker(new URL('./parse-worker.mjs', import.meta.url), {
@@ -59,7 +40,7 @@ function runWorker(job: Record<string, unknown>, bytes: Uint8Array, options: Fil
       stderr: true,
     });
     let settled = false;
-    const finish = (answer: Result<WorkerAnswer>): void => {
+    const finish = (answer: Result<unknown>): void => {
       if (settled) return;
       settled = true;
       clearTimeout(timer);
@@ -70,7 +51,7 @@ function runWorker(job: Record<string, unknown>, bytes: Uint8Array, options: Fil
       () => finish(fail({ message: `${what}: reading took longer than the limit of ${timeLimitMs / 1000} s and was stopped` })),
       timeLimitMs,
     );
-    worker.on('message', (answer: WorkerAnswer) => finish(ok(answer)));
+    worker.on('message', (answer: unknown) => finish(ok(answer)));
     worker.on('error', (e: Error & { code?: string }) =>
       finish(
         fail({
@@ -83,56 +64,7 @@ function runWorker(job: Record<string, unknown>, bytes: Uint8Array, options: Fil
     );
     worker.on('exit', (code) => finish(fail({ message: `${what}: the reader stopped unexpectedly (exit ${code})` })));
   });
-}
-
-/** Only plain values cross from the worker: anything else is refused, objects are rebuilt. */
-function plainCell(v: unknown): CellValue | undefined {
-  if (v === null || typeof v === 'boolean' || typeof v === 'string') return v;
-  if (typeof v === 'number') return Number.isFinite(v) ? v : undefined;
-  if (typeof v === 'object' && Object.getPrototypeOf(v) === Object.prototype) {
-    const keys = Object.keys(v);
-    const o = v as Record<string, unknown>;
-    if (keys.length === 1 && keys[0] === 'error' && typeof o.error === 'string') return { error: o.error };
-    if (keys.length === 1 && keys[0] === 'date' && typeof o.date === 'number') return { date: o.date };
-  }
-  return undefined;
-}
-
-interface SheetData {
-  readonly name: string;
-  /** Used range, as a grid; undefined when the sheet is too large to read whole. */
-  readonly grid?: Grid;
-  readonly tooLarge?: { readonly range: string; readonly cells: number };
-}
-
-function checkSheets(raw: unknown, what: string): Result<SheetData[]> {
-  const bad = fail({ message: `${what}: the reader returned something other than sheets of cells` });
-  if (!Array.isArray(raw)) return bad;
-  const out: SheetData[] = [];
-  for (const s of raw as unknown[]) {
-    if (typeof s !== 'object' || s === null) return bad;
-    const { name, origin, cells, tooLarge } = s as Record<string, unknown>;
-    if (typeof name !== 'string' || typeof origin !== 'string') return bad;
-    if (typeof tooLarge === 'number') {
-      out.push({ name, tooLarge: { range: origin, cells: tooLarge } });
-      continue;
-    }
-    if (!Array.isArray(cells)) return bad;
-    const rows: CellValue[][] = [];
-    for (const row of cells as unknown[]) {
-      if (!Array.isArray(row)) return bad;
-      const clean: CellValue[] = new Array(row.length);
-      for (let c = 0; c < row.length; c++) {
-        const v = plainCell(row[c]);
-        if (v === undefined) return bad;
-        clean[c] = v;
-      }
-      rows.push(clean);
-    }
-    out.push({ name, grid: { sheet: name, origin, cells: rows } });
-  }
-  return ok(out);
-}
+};
 
 async function readLimited(path: string, options: FileHostOptions): Promise<Result<Uint8Array>> {
   const maxBytes = options.maxBytes ?? FILE_DEFAULTS.maxBytes;
@@ -149,77 +81,15 @@ async function readLimited(path: string, options: FileHostOptions): Promise<Resu
   return ok(new Uint8Array(await readFile(path)));
 }
 
-/** The grids of a workbook file's sheets, parsed in the isolated worker. */
-async function readWorkbookSheets(path: string, options: FileHostOptions): Promise<Result<SheetData[]>> {
-  const bytes = await readLimited(path, options);
-  if (!bytes.ok) return bytes;
-  // An .xlsx file is a zip; anything else would be sniffed by SheetJS as some other format.
-  const zip = bytes.value.length >= 4 && bytes.value[0] === 0x50 && bytes.value[1] === 0x4b && bytes.value[2] === 3 && bytes.value[3] === 4;
-  if (!zip) return fail({ message: `${path}: not an .xlsx workbook (the file is not a zip package)` });
-  const job = { mode: 'grids', maxCells: options.maxCells ?? FILE_DEFAULTS.maxCells, errorNames: ERROR_NAMES };
-  const answer = await runWorker(job, bytes.value, options, path);
-  if (!answer.ok) return answer;
-  if (!answer.value.ok) return fail({ message: `${path}: not a workbook SheetJS can read (${answer.value.message})` });
-  return checkSheets(answer.value.sheets, path);
-}
-
-async function readCsvSheet(path: string, options: FileHostOptions): Promise<Result<SheetData[]>> {
-  const bytes = await readLimited(path, options);
-  if (!bytes.ok) return bytes;
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes.value);
-  } catch {
-    return fail({ message: `${path}: not UTF-8 text (save the CSV as "CSV UTF-8")` });
-  }
-  const rows = parseCsv(text);
-  if (!rows.ok) return fail({ message: `${path}: ${rows.error.message}` });
-  // Excel names the one sheet of a CSV file after the file.
-  const name = basename(path, extname(path)).slice(0, 31) || 'Sheet1';
-  return ok([{ name, grid: { sheet: name, origin: 'A1', cells: rows.value } }]);
-}
-
 /** A workbook or CSV file opened for reading, with result sheets queued for `save`. */
-export class FileHost implements WorkbookHost {
-  private readonly queued: { name: string; sheet: XLSX.WorkSheet }[] = [];
-
+export class FileHost extends ParsedWorkbook {
   constructor(
     readonly path: string,
-    readonly kind: FileKind,
-    private readonly sheets: readonly SheetData[],
+    kind: FileKind,
+    sheets: readonly SheetData[],
     private readonly options: FileHostOptions,
-  ) {}
-
-  async listSheets(): Promise<string[]> {
-    return this.sheets.map((s) => s.name);
-  }
-
-  /** Why a sheet cannot be read whole, or undefined when it can. */
-  sheetProblem(sheet: string): string | undefined {
-    const s = this.sheets.find((x) => x.name === sheet);
-    if (!s) return `no sheet named "${sheet}"`;
-    if (s.tooLarge) return `sheet "${sheet}" uses ${s.tooLarge.range} (${s.tooLarge.cells} cells), more than can be read at once`;
-    return undefined;
-  }
-
-  async readGrid(sheet: string, range?: string): Promise<Grid> {
-    const problem = this.sheetProblem(sheet);
-    if (problem) throw new Error(`bug: readGrid called for a sheet that cannot be read: ${problem}`);
-    const grid = this.sheets.find((x) => x.name === sheet)!.grid!;
-    if (range === undefined) return grid;
-    const rect = parseRange(range);
-    if (!rect) throw new Error(`bug: readGrid called with range "${range}"`);
-    return restrictGrid(grid, rect) ?? { sheet, origin: cellAddress(rect.top, rect.left), cells: [] };
-  }
-
-  /** Queue a new sheet for `save`; existing sheets are never written into. */
-  async writeSheet(block: SheetBlock): Promise<WriteReport> {
-    const taken = [...this.sheets.map((s) => s.name), ...this.queued.map((q) => q.name)];
-    const name = freeSheetName(block.name, taken);
-    const sheet = sheetFromBlock(block);
-    this.queued.push({ name, sheet });
-    const cells = Object.keys(sheet).filter((k) => !k.startsWith('!')).length;
-    return { sheet: name, range: sheet['!ref'] ?? 'A1', cells };
+  ) {
+    super(path, kind, sheets);
   }
 
   /**
@@ -229,28 +99,9 @@ export class FileHost implements WorkbookHost {
   async save(outPath: string): Promise<Result<string>> {
     if (sameFile(this.path, outPath)) return fail({ message: `${outPath}: is the input file; choose another name for the results` });
     if (extname(outPath).toLowerCase() !== '.xlsx') return fail({ message: `${outPath}: results are written as .xlsx; give a name ending in .xlsx` });
-    const bytes = this.kind === 'workbook' ? await this.appendInWorker() : ok(this.csvWorkbook());
+    const bytes = await this.resultsBytes(() => readLimited(this.path, this.options), workerRunner(this.options, this.path));
     if (!bytes.ok) return bytes;
     return writeOutputFile(this.path, outPath, bytes.value);
-  }
-
-  /** Source parsed again in the worker (never in this realm), our sheets appended there. */
-  private async appendInWorker(): Promise<Result<Uint8Array>> {
-    const source = await readLimited(this.path, this.options);
-    if (!source.ok) return source;
-    const answer = await runWorker({ mode: 'append', sheets: this.queued }, source.value, this.options, this.path);
-    if (!answer.ok) return answer;
-    if (!answer.value.ok) return fail({ message: `${this.path}: could not be copied (${answer.value.message})` });
-    const out = answer.value.bytes;
-    return out instanceof Uint8Array ? ok(out) : fail({ message: `${this.path}: the writer returned no file` });
-  }
-
-  /** A CSV source becomes the first sheet of the results workbook. */
-  private csvWorkbook(): Uint8Array {
-    const book = XLSX.utils.book_new();
-    for (const s of this.sheets) XLSX.utils.book_append_sheet(book, sheetFromCells(s.grid!.cells, s.grid!.origin), s.name);
-    for (const q of this.queued) XLSX.utils.book_append_sheet(book, q.sheet, q.name);
-    return new Uint8Array(XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true }) as ArrayBuffer);
   }
 }
 
@@ -311,7 +162,9 @@ function statSyncSafe(p: string): { dev: number; ino: number } | undefined {
 export async function openFile(path: string, options: FileHostOptions = {}): Promise<Result<FileHost>> {
   const kind = fileKind(path);
   if (!kind) return fail({ message: `${path}: not a workbook or CSV file (expected .xlsx, .xlsm or .csv)` });
-  const sheets = kind === 'workbook' ? await readWorkbookSheets(path, options) : await readCsvSheet(path, options);
+  const bytes = await readLimited(path, options);
+  if (!bytes.ok) return bytes;
+  const sheets = await readSheets(path, basename(path), kind, bytes.value, options.maxCells ?? FILE_DEFAULTS.maxCells, workerRunner(options, path));
   if (!sheets.ok) return sheets;
   return ok(new FileHost(path, kind, sheets.value, options));
 }
