@@ -52,6 +52,7 @@ export function exactCover(problem: CoverProblem, deadline: number, start: reado
   const colOn = new Uint8Array(problem.costs.length).fill(1);
   const chosen: number[] = [];
   if (!top.reduce(rowOn, colOn, chosen)) throw new Error('bug: a row no column covers');
+  if (top.aborted) return { columns: [...start].sort((a, b) => a - b), proven: false };
   let proven = true;
   for (const block of blocks(problem.rows, colRows, rowOn, colOn)) {
     const known = coverWithin(problem.rows, block, start);
@@ -117,7 +118,8 @@ interface Prices {
 }
 
 class Search {
-  private aborted = false;
+  /** The clock passed the deadline: the search (or the reductions) stopped early. */
+  aborted = false;
   private best: number[] = [];
   private bestCost = Infinity;
   private readonly stamp: Int32Array;
@@ -143,11 +145,7 @@ class Search {
   }
 
   private branch(rowOn: Uint8Array, colOn: Uint8Array, chosen: number[], cost: number, start: Prices | undefined): void {
-    if (this.aborted) return;
-    if (now() > this.deadline) {
-      this.aborted = true;
-      return;
-    }
+    if (this.outOfTime()) return;
     const costs = this.costs;
     const all = chosen.slice();
     let prices = start;
@@ -202,6 +200,11 @@ class Search {
       this.branch(rowsLeft, cols.slice(), all.concat(c), cost + costs[c]!, prices);
       if (this.aborted || cost + lead.rounded > this.limit()) return;
     }
+  }
+
+  private outOfTime(): boolean {
+    if (!this.aborted && now() > this.deadline) this.aborted = true;
+    return this.aborted;
   }
 
   /** Costs are integers: only a cover costing at most this much is an improvement. */
@@ -356,6 +359,7 @@ class Search {
   reduce(rowOn: Uint8Array, colOn: Uint8Array, picked: number[]): boolean {
     const { rows, costs } = this;
     for (let changed = true; changed; ) {
+      if (this.outOfTime()) return true;
       changed = false;
       for (let r = 0; r < rows.length; r++) {
         if (!rowOn[r]) continue;
@@ -382,6 +386,7 @@ class Search {
     let changed = false;
     for (let r = 0; r < rows.length; r++) {
       if (!rowOn[r]) continue;
+      if ((r & 255) === 255 && this.outOfTime()) return false;
       const mark = ++this.stampValue;
       let size = 0;
       let rarest = -1;
@@ -412,6 +417,7 @@ class Search {
     let changed = false;
     for (let c = 0; c < colOn.length; c++) {
       if (!colOn[c]) continue;
+      if ((c & 255) === 255 && this.outOfTime()) return false;
       const mark = ++this.stampValue;
       let size = 0;
       let rarest = -1;

@@ -1,8 +1,8 @@
 // Heuristic covers for when an exact one is out of reach: expand, irredundant, reduce.
-import type { BitSet } from './bits.js';
+import { popcount, type BitSet } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import { compareCovers, type CoverProblem } from './cover.js';
-import { cubeInsideSet } from './primes.js';
+import { cubeInsideSet, cubeWithin, now } from './primes.js';
 
 /**
  * Expand: drop literals, leftmost input first, while the cube stays inside `allowed`
@@ -20,20 +20,35 @@ export function expandToPrime(n: number, c: Cube, allowed: BitSet): Cube {
 }
 
 /**
+ * A cover of the on-set's cubes by implicants when there is no time for the cover matrix: each
+ * cube (largest first) not inside one already taken is expanded to a prime while the clock allows, and taken
+ * as it is after that (the cubes are disjoint, so no two taken are the same).
+ */
+export function expandCover(n: number, onCubes: readonly Cube[], allowed: BitSet, deadline: number): Cube[] {
+  const out: Cube[] = [];
+  // Largest cubes first: their primes swallow more of the rest.
+  for (const c of [...onCubes].sort((a, b) => popcount(a.mask) - popcount(b.mask))) {
+    if (now() > deadline) out.push(c);
+    else if (!out.some((p) => cubeWithin(c, p))) out.push(expandToPrime(n, c, allowed));
+  }
+  return out;
+}
+
+/**
  * A good cover (fewest columns, then lowest cost), not proven best, in three steps over the
  * cover matrix: a greedy start (most uncovered rows, then cheapest), irredundant (drop columns whose rows are all
  * covered twice, dearest first), then reduce and re-expand: shrink each chosen column to the rows
  * only it covers and put in the cheapest column that covers those and the most rows besides;
  * repeat irredundant while the cost falls.
  */
-export function heuristicCover(problem: CoverProblem): number[] {
+export function heuristicCover(problem: CoverProblem, deadline = Infinity): number[] {
   const { rows, costs } = problem;
   const colRows: number[][] = costs.map(() => []);
   rows.forEach((cols, r) => cols.forEach((c) => colRows[c]!.push(r)));
-  const chosen = greedy(problem, colRows);
+  const chosen = greedy(problem, colRows, deadline);
   irredundant(problem, colRows, chosen);
-  for (let before = [...chosen]; ; ) {
-    reexpand(problem, colRows, chosen);
+  for (let before = [...chosen]; now() <= deadline; ) {
+    reexpand(problem, colRows, chosen, deadline);
     irredundant(problem, colRows, chosen);
     const after = [...chosen];
     if (compareCovers(problem, after, before) >= 0) break;
@@ -42,7 +57,8 @@ export function heuristicCover(problem: CoverProblem): number[] {
   return [...chosen].sort((a, b) => a - b);
 }
 
-function greedy(problem: CoverProblem, colRows: number[][]): Set<number> {
+/** Most uncovered rows first; past the deadline, each row still open takes its first column. */
+function greedy(problem: CoverProblem, colRows: number[][], deadline: number): Set<number> {
   const { rows, costs } = problem;
   const open = colRows.map((rs) => rs.length);
   const covered = new Uint8Array(rows.length);
@@ -58,6 +74,10 @@ function greedy(problem: CoverProblem, colRows: number[][]): Set<number> {
   // Rows with a single column force it.
   for (const cols of rows) if (cols.length === 1 && !chosen.has(cols[0]!)) take(cols[0]!);
   for (;;) {
+    if (now() > deadline) {
+      rows.forEach((cols, r) => covered[r] || take(cols[0]!));
+      return chosen;
+    }
     let best = -1;
     for (let c = 0; c < costs.length; c++)
       if (open[c]! > 0 && (best < 0 || open[c]! > open[best]! || (open[c] === open[best] && costs[c]! < costs[best]!))) best = c;
@@ -84,10 +104,11 @@ function irredundant(problem: CoverProblem, colRows: number[][], chosen: Set<num
   }
 }
 
-function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number>): void {
+function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number>, deadline: number): void {
   const { rows, costs } = problem;
+  const times = multiplicity(problem, colRows, chosen);
   for (const c of [...chosen]) {
-    const times = multiplicity(problem, colRows, chosen);
+    if (now() > deadline) return;
     const own = colRows[c]!.filter((r) => times[r] === 1);
     if (own.length === 0) continue;
     // Candidates: columns covering every row only c covers.
@@ -101,6 +122,8 @@ function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number
     if (best !== c) {
       chosen.delete(c);
       chosen.add(best);
+      for (const r of colRows[c]!) times[r]!--;
+      for (const r of colRows[best]!) times[r]!++;
     }
   }
 }

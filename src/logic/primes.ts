@@ -24,7 +24,12 @@ export function primesWithin(fn: BoolFunction, deadline: number): Cube[] | null 
   const found =
     fn.n <= LATTICE_MAX_INPUTS ? latticePrimes(fn.n, union(fn.on, fn.dc), deadline) : cubePrimes(fn, deadline);
   if (found === null) return null;
-  return found.filter((p) => cubeMeetsSet(fn.n, p, fn.on)).sort(comparePrinted(fn.n));
+  const touching: Cube[] = [];
+  for (let i = 0; i < found.length; i++) {
+    if ((i & 255) === 255 && now() > deadline) return null;
+    if (cubeMeetsSet(fn.n, found[i]!, fn.on)) touching.push(found[i]!);
+  }
+  return touching.sort(comparePrinted(fn.n));
 }
 
 /**
@@ -247,15 +252,21 @@ export function completeSum(cubes: readonly Cube[], deadline: number): Cube[] | 
   const all: Cube[] = [];
   for (const c of p0) all.push(cube(c.mask | x, c.bits));
   for (const c of p1) all.push(cube(c.mask | x, c.bits | x));
-  for (const a of p0)
+  for (const a of p0) {
+    if (now() > deadline) return null;
     for (const b of p1) if (!cubesDisjoint(a, b)) all.push(cube(a.mask | b.mask, a.bits | b.bits));
-  return absorb(all);
+  }
+  return absorb(all, deadline);
 }
 
-/** Drop every cube contained in another (and duplicates). */
-function absorb(cubes: Cube[]): Cube[] {
+/** Drop every cube contained in another (and duplicates); null when past the deadline. */
+function absorb(cubes: Cube[], deadline: number): Cube[] | null {
   const byLiterals = cubes.map((c) => ({ c, k: popcount(c.mask) })).sort((a, b) => a.k - b.k);
   const kept: Cube[] = [];
-  for (const { c } of byLiterals) if (!kept.some((k) => cubeWithin(c, k))) kept.push(c);
+  for (let i = 0; i < byLiterals.length; i++) {
+    if ((i & 63) === 63 && now() > deadline) return null;
+    const c = byLiterals[i]!.c;
+    if (!kept.some((k) => cubeWithin(c, k))) kept.push(c);
+  }
   return kept;
 }

@@ -3,7 +3,7 @@ import { count, popcount, union } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import type { BoolFunction } from './boolfn.js';
 import { exactCover, type CoverProblem } from './cover.js';
-import { expandToPrime, heuristicCover } from './heuristic.js';
+import { expandCover, heuristicCover } from './heuristic.js';
 import { comparePrinted, cubesDisjoint, now, primesWithin, setToCubes } from './primes.js';
 
 export { primeImplicants } from './primes.js';
@@ -31,19 +31,20 @@ export const DEFAULT_BUDGET_MS = 2000;
  * FALSE is the form with no terms; TRUE is one term with no literals.
  */
 export function minimiseSop(fn: BoolFunction, options: SopOptions = {}): SopForm {
-  const deadline = now() + (options.budgetMs ?? DEFAULT_BUDGET_MS);
+  const budget = options.budgetMs ?? DEFAULT_BUDGET_MS;
+  const deadline = now() + budget;
+  // Primes and the cover matrix get half the budget, leaving the rest for a cheaper cover.
+  const halfway = deadline - budget / 2;
   const { n } = fn;
   if (count(fn.on) === 0) return form(n, [], true);
   const allowed = union(fn.on, fn.dc);
   if (count(allowed) === 2 ** n) return form(n, [cube(0, 0)], true);
   const onCubes = setToCubes(n, fn.on);
-  const primes = primesWithin(fn, deadline);
-  // Out of time for the primes: expand the on-set's own cubes into primes instead.
-  const columns = primes ?? [...new Map(onCubes.map((c) => expandToPrime(n, c, allowed)).map((c) => [`${c.mask}:${c.bits}`, c])).values()];
-  const problem = coverProblem(onCubes, columns);
-  const start = heuristicCover(problem);
-  const result = primes ? exactCover(problem, deadline, start) : { columns: start, proven: false };
-  return form(n, result.columns.map((c) => columns[c]!), result.proven);
+  const primes = primesWithin(fn, halfway);
+  const problem = primes && coverProblem(onCubes, primes, halfway);
+  if (!primes || !problem) return form(n, expandCover(n, onCubes, allowed, deadline), false);
+  const result = exactCover(problem, deadline, heuristicCover(problem, deadline));
+  return form(n, result.columns.map((c) => primes[c]!), result.proven);
 }
 
 function form(n: number, cubes: Cube[], proven: boolean): SopForm {
@@ -54,11 +55,13 @@ function form(n: number, cubes: Cube[], proven: boolean): SopForm {
 /**
  * Rows: the on-set split into pieces that each column either holds whole or misses, one row
  * per distinct set of columns (so rows stay few when the on-set is large). A column costs its
- * literals; the cover search counts columns (product terms) first.
+ * literals; the cover search counts columns (product terms) first. Null past the deadline.
  */
-export function coverProblem(onCubes: readonly Cube[], columns: readonly Cube[]): CoverProblem {
+export function coverProblem(onCubes: readonly Cube[], columns: readonly Cube[], deadline = Infinity): CoverProblem | null {
   let pieces = onCubes.map((c) => ({ c, cols: [] as number[] }));
-  columns.forEach((p, j) => {
+  for (let j = 0; j < columns.length; j++) {
+    if (now() > deadline) return null;
+    const p = columns[j]!;
     const next: typeof pieces = [];
     for (const piece of pieces) {
       const q = piece.c;
@@ -77,7 +80,7 @@ export function coverProblem(onCubes: readonly Cube[], columns: readonly Cube[])
       next.push({ c: inside, cols: piece.cols });
     }
     pieces = next;
-  });
+  }
   const rows = new Map<string, number[]>();
   for (const { cols } of pieces) rows.set(cols.join(','), cols);
   return { rows: [...rows.values()], costs: columns.map((p) => popcount(p.mask)) };
