@@ -8,11 +8,12 @@ import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
 import { CAUTION_LINES } from '../src/report/caution.js';
 import { exportPlcopen } from '../src/report/plcopen-export.js';
 import { resultsSheet } from '../src/report/results-sheet.js';
+import type { SheetBlock } from '../src/report/sheet-block.js';
 import { exportSt } from '../src/report/st-export.js';
 import { stepsCsv, stepsSheet } from '../src/report/test-steps.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
 import type { Grid, SpecOptions } from '../src/spec/types.js';
-import { ExpressionCheck, FileCheck } from './check.js';
+import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
 import type { Analysed } from './engine-protocol.js';
 import { Cancelled, Engine } from './engine.js';
 import { download, safeFileName } from './files.js';
@@ -213,6 +214,21 @@ function FileSource({
   );
 }
 
+/** What was written and where, as the pane reports it. */
+function wroteText(reports: WriteReport[], where: string): string {
+  return `Wrote ${reports.map((r) => `sheet "${r.sheet}" (${r.range}, ${r.cells} cells)`).join(' and ')} ${where}. No existing cell was changed.`;
+}
+
+/** Writes a new sheet where the pane writes: the workbook in Excel, the results workbook on the standalone page. */
+function sheetWriter(mode: PaneMode, file: BrowserFileHost | undefined): WriteSheet | undefined {
+  if (mode.kind === 'excel') return async (block: SheetBlock) => wroteText([await mode.host.writeSheet(block)], 'to this workbook');
+  if (file) {
+    return async (block: SheetBlock) =>
+      wroteText([await file.writeSheet(block)], `to the results workbook of ${file.fileName} (Download results workbook saves it)`);
+  }
+  return undefined;
+}
+
 function HandOver({
   analysed,
   current,
@@ -232,8 +248,7 @@ function HandOver({
   const analysis = analysed.analyses[current]!;
   const base = safeFileName(`${analysis.table.sheet}-${analysis.table.range}`);
   const source = { workbook: sourceName };
-  const say = (reports: WriteReport[], where: string) =>
-    setMessage(`Wrote ${reports.map((r) => `sheet "${r.sheet}" (${r.range}, ${r.cells} cells)`).join(' and ')} ${where}. No existing cell was changed.`);
+  const say = (reports: WriteReport[], where: string) => setMessage(wroteText(reports, where));
   const guard = async (f: () => Promise<void>) => {
     setError(undefined);
     setMessage(undefined);
@@ -305,16 +320,7 @@ function HandOver({
         </button>
       </div>
       <p class="meta">Ladder pictures are under each output. Every file carries the caution below.</p>
-      {message && (
-        <p class="done" role="status">
-          {message}
-        </p>
-      )}
-      {error && (
-        <p class="error" role="alert">
-          {error}
-        </p>
-      )}
+      <Outcome message={message} error={error} />
     </section>
   );
 }
@@ -444,8 +450,8 @@ export function App({ mode }: { mode: PaneMode }) {
             {tables[current] && (
               <>
                 <TableView analysis={tables[current]} selectCell={selectCell} />
-                <ExpressionCheck key={current} analysis={tables[current]} engine={engine} />
-                {mode.kind === 'file' && <FileCheck analyses={tables} engine={engine} />}
+                <ExpressionCheck key={current} analysis={tables[current]} engine={engine} write={sheetWriter(mode, file)} />
+                {mode.kind === 'file' && <FileCheck analyses={tables} engine={engine} write={sheetWriter(mode, file)} />}
                 <HandOver analysed={analysed} current={current} sourceName={sourceName} mode={mode} file={file} />
               </>
             )}

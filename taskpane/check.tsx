@@ -7,11 +7,62 @@ import type { EngineError, Result } from '../src/logic/result.js';
 import type { VerifyReport } from '../src/impl/verify.js';
 import { verifyReportText } from '../src/impl/verify-report.js';
 import { printMonomial } from '../src/impl/verify.js';
+import { checkSheet } from '../src/report/check-sheet.js';
+import type { SheetBlock } from '../src/report/sheet-block.js';
 import type { TableAnalysis } from '../src/spec/analysis-types.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CombinationTable } from './results.js';
 
 const count = (n: number) => n.toLocaleString('en');
+
+/** Writes a new sheet and answers what it wrote and where (from app.tsx: Excel, or the results workbook). */
+export type WriteSheet = (block: SheetBlock) => Promise<string>;
+
+/** The button that writes a check to a new sheet, once per check (a new check gives a new button). */
+function WriteCheckSheet({ write, sheet, label }: { write: WriteSheet; sheet: () => SheetBlock; label: string }) {
+  const [message, setMessage] = useState<string>();
+  const [error, setError] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  const run = async () => {
+    setBusy(true);
+    setError(undefined);
+    try {
+      setMessage(await write(sheet()));
+    } catch (e) {
+      setError((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <>
+      <div class="row">
+        <button type="button" class="secondary" disabled={busy || message !== undefined} onClick={() => void run()}>
+          {busy ? 'Writing…' : label}
+        </button>
+      </div>
+      <Outcome message={message} error={error} />
+    </>
+  );
+}
+
+/** What a write did, or why it failed, announced to screen readers. */
+export function Outcome({ message, error }: { message: string | undefined; error: string | undefined }) {
+  return (
+    <>
+      {message && (
+        <p class="done" role="status">
+          {message}
+        </p>
+      )}
+      {error && (
+        <p class="error" role="alert">
+          {error}
+        </p>
+      )}
+    </>
+  );
+}
 
 function ParseError({ error, text }: { error: EngineError; text: string }) {
   return (
@@ -59,10 +110,10 @@ function CheckResult({ result, analysis }: { result: ImplCheck; analysis: TableA
   );
 }
 
-export function ExpressionCheck({ analysis, engine }: { analysis: TableAnalysis; engine: Engine }) {
+export function ExpressionCheck({ analysis, engine, write }: { analysis: TableAnalysis; engine: Engine; write: WriteSheet | undefined }) {
   const [output, setOutput] = useState(0);
   const [text, setText] = useState('');
-  const [answer, setAnswer] = useState<{ text: string; result: Result<ImplCheck> }>();
+  const [answer, setAnswer] = useState<{ run: number; text: string; output: number; result: Result<ImplCheck> }>();
   const [busy, setBusy] = useState(false);
   const [failure, setFailure] = useState<string>();
   const run = async (e: Event) => {
@@ -70,13 +121,15 @@ export function ExpressionCheck({ analysis, engine }: { analysis: TableAnalysis;
     setBusy(true);
     setFailure(undefined);
     try {
-      setAnswer({ text, result: await engine.check({ kind: 'check', table: analysis.table, output, text }) });
+      const result = await engine.check({ kind: 'check', table: analysis.table, output, text });
+      setAnswer({ run: (answer?.run ?? 0) + 1, text, output, result });
     } catch (err) {
       setFailure(err instanceof Cancelled ? 'The check was stopped.' : String((err as Error).message));
     } finally {
       setBusy(false);
     }
   };
+  const checked = answer?.result.ok ? answer.result.value : undefined;
   return (
     <section class="card" aria-labelledby="check-title">
       <h2 id="check-title">Implementation check</h2>
@@ -105,27 +158,37 @@ export function ExpressionCheck({ analysis, engine }: { analysis: TableAnalysis;
       </form>
       {failure && <p class="error">{failure}</p>}
       {answer && (answer.result.ok ? <CheckResult result={answer.result.value} analysis={analysis} /> : <ParseError error={answer.result.error} text={answer.text} />)}
+      {write && answer && checked && (
+        <WriteCheckSheet
+          key={answer.run}
+          write={write}
+          label={checked.equal ? 'Write the verdict to a new sheet' : 'Write counterexamples to a new sheet'}
+          sheet={() => checkSheet({ kind: 'expression', table: analysis.table, output: answer.output, expression: answer.text, check: checked })}
+        />
+      )}
     </section>
   );
 }
 
 /** An implementation file (.st or PLCopen .xml) checked against every table read. */
-export function FileCheck({ analyses, engine }: { analyses: readonly TableAnalysis[]; engine: Engine }) {
-  const [report, setReport] = useState<{ file: string; result: Result<VerifyReport> }>();
+export function FileCheck({ analyses, engine, write }: { analyses: readonly TableAnalysis[]; engine: Engine; write: WriteSheet | undefined }) {
+  const [report, setReport] = useState<{ run: number; file: string; result: Result<VerifyReport> }>();
   const [busy, setBusy] = useState(false);
   const pick = async (e: Event) => {
     const file = (e.currentTarget as HTMLInputElement).files?.[0];
     if (!file) return;
     setBusy(true);
+    const run = (report?.run ?? 0) + 1;
     try {
       const result = await engine.verify({ kind: 'verify', tables: analyses.map((a) => a.table), fileName: file.name, text: await file.text() });
-      setReport({ file: file.name, result });
+      setReport({ run, file: file.name, result });
     } catch (err) {
-      setReport({ file: file.name, result: { ok: false, error: { message: (err as Error).message } } });
+      setReport({ run, file: file.name, result: { ok: false, error: { message: (err as Error).message } } });
     } finally {
       setBusy(false);
     }
   };
+  const verified = report?.result.ok ? report.result.value : undefined;
   return (
     <section class="card" aria-labelledby="file-check-title">
       <h2 id="file-check-title">Check a program file</h2>
@@ -146,6 +209,14 @@ export function FileCheck({ analyses, engine }: { analyses: readonly TableAnalys
               </li>
             ))}
           </ul>
+          {write && verified && (
+            <WriteCheckSheet
+              key={report.run}
+              write={write}
+              label={verified.outputs.some((o) => o.counterexamples.length > 0) ? 'Write counterexamples to a new sheet' : 'Write the verdicts to a new sheet'}
+              sheet={() => checkSheet({ kind: 'program', report: verified })}
+            />
+          )}
           <details>
             <summary>Full report</summary>
             <pre class="report">{verifyReportText(report.result.value)}</pre>

@@ -14,6 +14,8 @@ import { checkImplementation } from '../../src/logic/implcheck.js';
 import { inputValue } from '../../src/logic/bits.js';
 import { openFile } from '../../src/hosts/file-host.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
+import { checkSheet } from '../../src/report/check-sheet.js';
+import type { SheetBlock } from '../../src/report/sheet-block.js';
 import { exportSt } from '../../src/report/st-export.js';
 import { analyseTable } from '../../src/spec/analyse.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
@@ -213,6 +215,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
   });
 
   const permit = spindle.findIndex((a) => a.inputs.length === 7);
+  let checkBlock: SheetBlock | undefined;
   await check('an implementation check of a wrong expression shows its counterexamples', async () => {
     expect(shown && permit >= 0, 'no results to check against');
     await page.getByLabel('Spec table').selectOption(String(permit));
@@ -231,6 +234,14 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const n = analysis.inputs.length;
     const wantRows = want.counterexamples.map((c) => [...Array.from({ length: n }, (_, i) => String(inputValue(n, c.combination, i))), String(c.expected), String(c.actual)]);
     same(rows, wantRows, 'counterexample rows');
+    checkBlock = checkSheet({ kind: 'expression', table: analysis.table, output: 0, expression: wrong, check: want });
+  });
+
+  await check('the counterexamples are written to a new sheet of the results workbook, which says so', async () => {
+    expect(checkBlock !== undefined, 'no check to write');
+    await page.getByRole('button', { name: 'Write counterexamples to a new sheet' }).click();
+    const said = await page.locator('p.done').filter({ hasText: 'to the results workbook' }).first().textContent({ timeout: 10_000 });
+    expect(said?.includes(`sheet "${checkBlock!.name}"`) === true, `message: ${said}`);
   });
 
   await check('the ladder picture of an output shows as an image', async () => {
@@ -250,7 +261,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
 
   await screenshots(page, 'standalone');
 
-  await check('the results workbook downloads and reads back with the results sheets after the user’s own', async () => {
+  await check('the results workbook downloads and reads back with the results sheets and the check sheet after the user’s own', async () => {
     const [file] = await Promise.all([
       page.waitForEvent('download', { timeout: 30_000 }),
       page.getByRole('button', { name: 'Download results workbook' }).click(),
@@ -261,7 +272,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const book = XLSX.read(readFileSync(path), { type: 'buffer', cellFormula: true });
     const source = XLSX.read(readFileSync(SAMPLE), { type: 'buffer' });
     same(book.SheetNames.slice(0, source.SheetNames.length), source.SheetNames, 'the user’s sheets first, unchanged in order');
-    const added = book.SheetNames.slice(source.SheetNames.length);
+    const added = book.SheetNames.slice(source.SheetNames.length).filter((name) => name !== checkBlock?.name);
     same(added.length, spindle.length, 'one results sheet per table');
     const text = (name: string) =>
       Object.entries(book.Sheets[name]!)
@@ -274,6 +285,18 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     expect(formulas > 0, 'the results sheet has live formulas');
     const userCells = (s: XLSX.WorkSheet) => XLSX.utils.sheet_to_json(s, { header: 1, raw: true, defval: null });
     same(userCells(book.Sheets['Spindle']!), userCells(source.Sheets['Spindle']!), 'the Spindle sheet is unchanged');
+    // The check sheet written earlier, cell for cell as the engine builds it in Node.
+    expect(checkBlock !== undefined && book.SheetNames.includes(checkBlock.name), `no sheet ${checkBlock?.name} among ${book.SheetNames.join(', ')}`);
+    const filled = (rows: readonly (readonly unknown[])[]) =>
+      rows
+        .map((r) => {
+          const cells = r.map((v) => v ?? null);
+          while (cells.length > 0 && cells[cells.length - 1] === null) cells.pop();
+          return cells;
+        })
+        .filter((r) => r.length > 0);
+    const written = userCells(book.Sheets[checkBlock!.name]!) as unknown[][];
+    same(filled(written), filled(checkBlock!.rows.map((r) => r.map((c) => c?.value ?? null))), 'the check sheet');
   });
 
   await check('a program file written from the derived forms checks equal for every output', async () => {
