@@ -111,10 +111,9 @@ function coverWithin(rows: CoverProblem['rows'], block: Block, start: readonly n
   return [...chosen];
 }
 
-/** Prices of the Lagrangian bound: one per row, and one on the column count when capped. */
+/** Prices of the Lagrangian bound, one per row. */
 interface Prices {
   readonly u: Float64Array;
-  readonly mu: number;
 }
 
 class Search {
@@ -175,10 +174,10 @@ class Search {
       for (let c = 0; c < colOn.length; c++) {
         if (!colOn[c]) continue;
         const rc = lead.reduced[c]!;
-        if (rc >= 0 && base + rc > this.limit()) {
+        if (!lead.inRelaxed[c] && base + rc - lead.dearestIn > this.limit()) {
           colOn[c] = 0;
           fixed = true;
-        } else if (rc < 0 && base - rc > this.limit()) {
+        } else if (lead.inRelaxed[c] && base - rc + lead.nextOut > this.limit()) {
           colOn[c] = 0;
           all.push(c);
           cost += costs[c]!;
@@ -227,9 +226,10 @@ class Search {
 
   /**
    * Lower bound on the cost of covering the active rows with at most `capLeft` active columns,
-   * by Lagrangian relaxation: with a price u_r >= 0 on each row and mu >= 0 on the count,
-   * sum(u) - mu * capLeft + sum over columns of min(0, cost + mu - price of its rows) bounds
-   * every such cover. Prices are improved by subgradient steps (Held and Karp's rule) from
+   * by Lagrangian relaxation: with a price u_r >= 0 on each row, sum(u) plus the sum of the at
+   * most `capLeft` most negative reduced costs (cost - price of the column's rows) bounds every
+   * such cover (the count stays a constraint of the relaxed problem rather than getting a
+   * price of its own, which the subgradient steps found hard to tune). Prices are improved by subgradient steps (Held and Karp's rule) from
    * `start`, or from rows sharing no column each priced at their cheapest column (a maximal
    * independent set of rows). Every set of prices also suggests a cover: the columns they make
    * profitable, each open row's lowest-reduced-cost column, less columns made redundant.
@@ -253,26 +253,32 @@ class Search {
       dearest = Math.max(dearest, costs[c]!);
     }
     const u = start ? start.u.slice() : this.independentRowPrices(activeRows, colOn);
-    let mu = start && capped ? start.mu : 0;
     const reduced = new Float64Array(colOn.length);
     const g = new Float64Array(rowOn.length);
+    // The relaxed problem's columns (indices into activeCols), those left out, by reduced cost.
+    const negative: number[] = [];
     let taken = 0;
+    let full = false;
     const evaluate = (): number => {
-      let value = capped ? -mu * capLeft : 0;
+      let value = 0;
       for (const r of activeRows) {
         value += u[r]!;
         g[r] = 1;
       }
-      taken = 0;
+      negative.length = 0;
       for (let i = 0; i < activeCols.length; i++) {
-        let rc = costs[activeCols[i]!]! + mu;
+        let rc = costs[activeCols[i]!]!;
         for (const r of colActiveRows[i]!) rc -= u[r]!;
         reduced[activeCols[i]!] = rc;
-        if (rc < 0) {
-          value += rc;
-          taken++;
-          for (const r of colActiveRows[i]!) g[r]!--;
-        }
+        if (rc < 0) negative.push(i);
+      }
+      full = negative.length >= capLeft;
+      if (negative.length > capLeft) negative.sort((a, b) => reduced[activeCols[a]!]! - reduced[activeCols[b]!]!);
+      taken = Math.min(negative.length, capLeft);
+      for (let k = 0; k < taken; k++) {
+        const i = negative[k]!;
+        value += reduced[activeCols[i]!]!;
+        for (const r of colActiveRows[i]!) g[r]!--;
       }
       return value;
     };
@@ -285,7 +291,7 @@ class Search {
         picked.push(c);
         for (const r of this.colRows[c]!) times[r]!++;
       };
-      for (const c of activeCols) if (reduced[c]! < 0) take(c);
+      for (let k = 0; k < taken; k++) take(activeCols[negative[k]!]!);
       for (const r of activeRows) {
         if (times[r]) continue;
         let pick = -1;
@@ -305,25 +311,23 @@ class Search {
       if (kept.length <= capLeft && total < coverCost) [cover, coverCost] = [kept, total];
     };
     let best = evaluate();
-    let bestPrices: Prices = { u: u.slice(), mu };
+    let bestPrices: Prices = { u: u.slice() };
     if (steps > 0) primal();
     const target = this.limit() - cost;
     let lambda = 2;
     let stall = 0;
     for (let step = 0; step < steps && best <= target && lambda > 0.005; step++) {
-      const gMu = taken - capLeft;
-      let norm = capped && (gMu > 0 || mu > 0) ? gMu * gMu : 0;
+      let norm = 0;
       for (const r of activeRows) if (g[r]! > 0 || u[r]! > 0) norm += g[r]! * g[r]!;
       if (norm === 0) break;
       const goal = Number.isFinite(target) ? target + 1 : best * 1.05 + 1;
       const t = (lambda * (goal - best)) / norm;
       for (const r of activeRows) u[r] = Math.max(0, u[r]! + t * g[r]!);
-      if (capped) mu = Math.max(0, mu + t * gMu);
       const value = evaluate();
       if (step % 8 === 7) primal();
       if (value > best + 1e-9) {
         best = value;
-        bestPrices = { u: u.slice(), mu };
+        bestPrices = { u: u.slice() };
         stall = 0;
       } else if (++stall >= 20) {
         lambda /= 2;
@@ -331,11 +335,16 @@ class Search {
       }
     }
     u.set(bestPrices.u);
-    mu = bestPrices.mu;
     const value = evaluate();
     if (steps > 0) primal();
     const rounded = capped ? value : Math.max(value, Math.ceil(value / dearest - 1e-9) * cheapest);
-    return { value, rounded, prices: bestPrices, reduced, cover, coverCost };
+    // What leaving a relaxed column out, or putting another in, costs the bound at least.
+    const inRelaxed = new Uint8Array(colOn.length);
+    for (let k = 0; k < taken; k++) inRelaxed[activeCols[negative[k]!]!] = 1;
+    let nextOut = 0;
+    for (const c of activeCols) if (!inRelaxed[c]) nextOut = Math.min(nextOut, reduced[c]!);
+    const dearestIn = full && taken > 0 ? reduced[activeCols[negative[taken - 1]!]!]! : 0;
+    return { value, rounded, prices: bestPrices, reduced, inRelaxed, nextOut, dearestIn, cover, coverCost };
   }
 
   /** Prices: rows sharing no column (fewest columns first) each at its cheapest column. */
@@ -453,8 +462,14 @@ interface Bound {
   readonly value: number;
   readonly rounded: number;
   readonly prices: Prices;
-  /** Per column: cost + mu - price of its active rows. */
+  /** Per column: cost - price of its active rows. */
   readonly reduced: Float64Array;
+  /** Columns of the relaxed problem's answer (1), the others (0). */
+  readonly inRelaxed: Uint8Array;
+  /** The lowest reduced cost left out of it, or 0 if none is negative. */
+  readonly nextOut: number;
+  /** When the answer has as many columns as allowed, the highest reduced cost in it; else 0. */
+  readonly dearestIn: number;
   /** A cover of the active rows within the cap that the prices suggested, and its cost. */
   readonly cover: number[] | undefined;
   readonly coverCost: number;
