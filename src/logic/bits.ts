@@ -136,3 +136,25 @@ export function inputSet(n: number, i: number): BitSet {
 export function inputValue(n: number, k: Combination, i: number): 0 | 1 {
   return ((k >>> (n - 1 - i)) & 1) as 0 | 1;
 }
+
+const SWAP_MASKS = [0x55555555, 0x33333333, 0x0f0f0f0f, 0x00ff00ff, 0x0000ffff];
+
+/**
+ * The set mapped through k -> k XOR (1 << bit): every member with that combination bit flipped.
+ * Inside a word, bit pairs swap by mask and shift; across words, whole words swap.
+ */
+export function flipBit(set: BitSet, bit: number): BitSet {
+  const out = new Uint32Array(set.length);
+  if (bit < 5) {
+    const shift = 1 << bit;
+    const m = SWAP_MASKS[bit]!;
+    for (let w = 0; w < set.length; w++) {
+      const x = set[w]!;
+      out[w] = ((x >>> shift) & m) | ((x & m) << shift);
+    }
+  } else {
+    const stride = 1 << (bit - 5);
+    for (let w = 0; w < set.length; w++) out[w] = set[w ^ stride]!;
+  }
+  return out;
+}

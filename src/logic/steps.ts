@@ -2,6 +2,7 @@
 import {
   emptySet,
   has,
+  flipBit,
   intersect,
   isEmpty,
   members,
@@ -147,22 +148,7 @@ function unionOfOthers(sets: readonly BitSet[], n: number): BitSet[] {
 }
 
 /** Within-word swap masks for bit positions 0..4 of a combination. */
-const SWAP_MASKS = [0x55555555, 0x33333333, 0x0f0f0f0f, 0x00ff00ff, 0x0000ffff];
-
 /** The combinations k for which k with input i flipped is in the set. */
 function flipInput(set: BitSet, n: number, input: number): BitSet {
-  const bit = n - 1 - input;
-  const out = new Uint32Array(set.length);
-  if (bit < 5) {
-    const shift = 1 << bit;
-    const m = SWAP_MASKS[bit]!;
-    for (let w = 0; w < set.length; w++) {
-      const x = set[w]!;
-      out[w] = ((x >>> shift) & m) | ((x & m) << shift);
-    }
-  } else {
-    const stride = 1 << (bit - 5);
-    for (let w = 0; w < set.length; w++) out[w] = set[w ^ stride]!;
-  }
-  return out;
+  return flipBit(set, n - 1 - input);
 }

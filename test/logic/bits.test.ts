@@ -5,6 +5,7 @@ import {
   complement,
   count,
   emptySet,
+  flipBit,
   fullSet,
   has,
   inputSet,
@@ -47,6 +48,20 @@ describe('combination sets', () => {
         for (const k of want) add(s, k);
         expect(members(s)).toEqual(want);
         expect(count(complement(s, n))).toBe((1 << n) - want.length);
+      }),
+    );
+  });
+});
+
+describe('flipping one input of every member', () => {
+  it('maps each combination k to k with that bit flipped, within a word and across words', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 9 }), fc.array(fc.nat()), fc.nat(), (n, ks, r) => {
+        const bit = r % n;
+        const s = emptySet(n);
+        for (const k of ks) add(s, k % (1 << n));
+        const flipped = flipBit(s, bit);
+        expect(members(flipped)).toEqual(members(s).map((k) => k ^ (1 << bit)).sort((a, b) => a - b));
       }),
     );
   });
