@@ -160,7 +160,7 @@ class Search {
         this.bestCost = cost;
         return;
       }
-      lead = this.lagrange(rowOn, colOn, cost, prices, start ? 40 : 1500, this.cap - all.length);
+      lead = this.lagrange(rowOn, colOn, cost, prices, start ? 40 : 600, this.cap - all.length);
       prices = lead.prices;
       if (lead.cover && cost + lead.coverCost < this.bestCost) {
         this.best = all.concat(lead.cover);
@@ -316,7 +316,7 @@ class Search {
     const target = this.limit() - cost;
     let lambda = 2;
     let stall = 0;
-    for (let step = 0; step < steps && best <= target && lambda > 0.005; step++) {
+    for (let step = 0; step < steps && best <= target && lambda > 0.01; step++) {
       let norm = 0;
       for (const r of activeRows) if (g[r]! > 0 || u[r]! > 0) norm += g[r]! * g[r]!;
       if (norm === 0) break;
@@ -329,7 +329,7 @@ class Search {
         best = value;
         bestPrices = { u: u.slice() };
         stall = 0;
-      } else if (++stall >= 20) {
+      } else if (++stall >= 10) {
         lambda /= 2;
         stall = 0;
       }
