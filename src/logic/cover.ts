@@ -51,8 +51,9 @@ export function exactCover(problem: CoverProblem, deadline: number, start: reado
   const rowOn = new Uint8Array(problem.rows.length).fill(1);
   const colOn = new Uint8Array(problem.costs.length).fill(1);
   const chosen: number[] = [];
-  if (!top.reduce(rowOn, colOn, chosen)) throw new Error('bug: a row no column covers');
+  const feasible = top.reduce(rowOn, colOn, chosen);
   if (top.aborted) return { columns: [...start].sort((a, b) => a - b), proven: false };
+  if (!feasible) throw new Error('bug: a row no column covers');
   let proven = true;
   for (const block of blocks(problem.rows, colRows, rowOn, colOn)) {
     const known = coverWithin(problem.rows, block, start);
@@ -151,7 +152,8 @@ class Search {
     let lead: Bound;
     for (;;) {
       const picked: number[] = [];
-      if (!this.reduce(rowOn, colOn, picked)) return;
+      // Out of time, the reductions stop part way and may leave a row with no column.
+      if (!this.reduce(rowOn, colOn, picked) || this.aborted) return;
       for (const c of picked) cost += costs[c]!;
       all.push(...picked);
       if (all.length > this.cap || cost > this.limit()) return;
