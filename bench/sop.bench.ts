@@ -2,6 +2,7 @@
 // with 10 % don't-cares, beside sympy's SOPform on the same 6- and 8-input functions (run once
 // in python3 through scripts/sympy_reference.py --time, timed inside Python).
 import { spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
 import { add, emptySet, members } from '../src/logic/bits.js';
 import type { BoolFunction } from '../src/logic/boolfn.js';
 import { now } from '../src/logic/primes.js';
@@ -34,7 +35,7 @@ interface SympyRun {
 
 function sympyTimes(fns: BoolFunction[]): SympyRun | string {
   const input = JSON.stringify(fns.map((f) => ({ n: f.n, on: members(f.on), dc: members(f.dc) })));
-  const run = spawnSync('python3', ['scripts/sympy_reference.py', '--time'], { input, encoding: 'utf8', maxBuffer: 1 << 26 });
+  const run = spawnSync(existsSync('/usr/bin/python3') ? '/usr/bin/python3' : 'python3', ['scripts/sympy_reference.py', '--time'], { input, encoding: 'utf8', maxBuffer: 1 << 26 });
   if (run.error || run.status !== 0) return `sympy not available: python3 cannot run SOPform (${(run.error?.message ?? run.stderr).trim().split('\n').pop()})`;
   return JSON.parse(run.stdout) as SympyRun;
 }

@@ -1,5 +1,5 @@
 // Prime implicants of a function with don't-cares, and the cube/bit-set relations they need.
-import { popcount, union, wordCount, type BitSet } from './bits.js';
+import { flipBit, popcount, union, wordCount, type BitSet } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import type { BoolFunction } from './boolfn.js';
 
@@ -95,25 +95,6 @@ export function cubesDisjoint(a: Cube, b: Cube): boolean {
 
 // ---- the bit-set lattice (small n) -------------------------------------------------------------
 
-const LOW_HALF = [0x55555555, 0x33333333, 0x0f0f0f0f, 0x00ff00ff, 0x0000ffff];
-
-/** x -> x XOR (1 << v) applied to every member of the set. */
-function flip(set: BitSet, v: number): BitSet {
-  const out = new Uint32Array(set.length);
-  if (v < 5) {
-    const s = 1 << v;
-    const lo = LOW_HALF[v]!;
-    for (let i = 0; i < set.length; i++) {
-      const w = set[i]!;
-      out[i] = ((w >>> s) & lo) | ((w & lo) << s);
-    }
-  } else {
-    const d = 1 << (v - 5);
-    for (let i = 0; i < set.length; i++) out[i] = set[i ^ d]!;
-  }
-  return out;
-}
-
 /**
  * For each set D of free inputs, I_D = the x whose cube (D free, the rest as in x) lies in F:
  * I_{D+v} = I_D AND flip_v(I_D). A cube is prime when no I_{D+v} holds it. Layers by |D| keep
@@ -128,7 +109,7 @@ function latticePrimes(n: number, f: BitSet, deadline: number): Cube[] | null {
     for (const [d, set] of layer) {
       if (now() > deadline) return null;
       for (let v = 32 - Math.clz32(d); v < n; v++) {
-        const grown = flip(set, v);
+        const grown = flipBit(set, v);
         let any = 0;
         for (let i = 0; i < grown.length; i++) any |= grown[i]! &= set[i]!;
         if (any !== 0) next.set(d | (1 << v), grown);
