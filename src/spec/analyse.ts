@@ -35,7 +35,7 @@ export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): Ta
 
   // Every output has the same gaps: a row read covers its combinations for all outputs.
   const gapSet = table.outputs[0]?.built.gaps ?? emptySet(n);
-  const gaps = gapCubes(n, table.rows.map((r) => r.cube), gapSet).cubes;
+  const gaps = gapCubes(n, gapSet).cubes;
   progress('gaps');
 
   const problems: Problem[] = [...table.problems];

@@ -200,7 +200,7 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
     );
 
   const outputs = outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
-  if (rows.length > 0) reportGaps(sheet, tableRange, inputs, outputs, rows, problems);
+  if (rows.length > 0) reportGaps(sheet, tableRange, inputs, outputs, problems);
 
   const table: SpecTable = {
     sheet: sheet.grid.sheet,
@@ -369,14 +369,13 @@ function reportGaps(
   tableRange: string,
   inputs: readonly Signal[],
   outputs: readonly OutputSpec[],
-  rows: readonly SpecRow[],
   problems: Problem[],
 ): void {
   const gaps = outputs[0]!.built.gaps;
   const gapCount = count(gaps);
   if (gapCount === 0) return;
   const n = inputs.length;
-  const { cubes, cut } = gapCubes(n, rows.map((r) => r.cube), gaps);
+  const { cubes, cut } = gapCubes(n, gaps);
   const shown = cubes.slice(0, GAP_CUBES_SHOWN).map((c) => cubeToPattern(n, c));
   const more = cubes.length - shown.length;
   const safes = outputs.map((o) => `${o.signal.header} ${o.safe}`).join(', ');

@@ -79,7 +79,7 @@ describe('gaps and conflicts', () => {
     const t = table(['A', 'B'], ['Y'], [[1, 1, 0]], { safeValues: { Y: 1 } });
     const [y] = analyseTable(t).outputs;
     expect(y!.gapCount).toBe(3);
-    expect(y!.gaps.map((c) => cubeToPattern(2, c))).toEqual(['-0', '01']);
+    expect(y!.gaps.map((c) => cubeToPattern(2, c))).toEqual(['0-', '10']);
     expect(y!.andOr.text).toBe('NOT A OR NOT B');
   });
 
