@@ -60,8 +60,8 @@ export function verdictText(v: Verdict): string {
 }
 
 /** A problem outside any table: as in a table's `problems`, with its sheet beside the cell. */
-export function problemJson(p: Problem): { severity: string; sheet: string; cell: string; message: string } {
-  return { severity: p.severity, sheet: p.sheet, cell: p.cell, message: p.message };
+export function problemJson(p: Problem): { severity: string; code: string; sheet: string; cell: string; message: string } {
+  return { severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message };
 }
 
 export async function analyzeCommand(cmd: AnalyzeCommand, io: CliIo, progress: Progress): Promise<ExitCode> {

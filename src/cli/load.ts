@@ -46,7 +46,7 @@ export async function loadTables(file: string, choice: SpecChoice, progress: Pro
     const tooLarge = host.sheetProblem(sheet);
     if (tooLarge) {
       if (choice.sheet !== undefined) return fail(`${file}: ${tooLarge}`);
-      otherProblems.push({ severity: 'warning', sheet, cell: 'A1', message: `not read: ${tooLarge}` });
+      otherProblems.push({ severity: 'warning', code: 'sheet-not-read', sheet, cell: 'A1', message: `not read: ${tooLarge}` });
       continue;
     }
     const read = readSpecTables(await host.readGrid(sheet), specOptions(choice));

@@ -13,7 +13,7 @@ import type { Signal } from '../logic/signals.js';
 import { minimiseSop } from '../logic/sop.js';
 import { uniqueCauseSteps } from '../logic/steps.js';
 import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
-import type { OutputSpec, Problem, SpecTable } from './types.js';
+import type { OutputSpec, Problem, ProblemCode, SpecTable } from './types.js';
 import { gapCubes } from './uncovered.js';
 
 export interface AnalyseOptions {
@@ -136,7 +136,7 @@ function formProof(p: FormProof): FormProof {
 
 /** What the analysis adds to the table's problems for one output, pinned to its header cell. */
 function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
-  const at = (severity: Problem['severity'], message: string): Problem => ({ severity, sheet: table.sheet, cell, message });
+  const at = (severity: Problem['severity'], code: ProblemCode, message: string): Problem => ({ severity, code, sheet: table.sheet, cell, message });
   const out: Problem[] = [];
   const forms: [string, { proof: FormProof }][] = [
     ['AND/OR form', o.andOr],
@@ -145,13 +145,13 @@ function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Prob
   ];
   for (const [name, form] of forms)
     if (form.proof.mismatchCount > 0)
-      out.push(at('error', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
+      out.push(at('error', 'form-differs', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
   if (!o.andOr.proven)
-    out.push(at('info', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal`));
+    out.push(at('info', 'not-proven', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal`));
   if (o.unusedInputs.length > 0) {
     const names = o.unusedInputs.map((i) => table.inputs[i]!.header).join(', ');
     const where = o.dontCareCount > 0 ? ` (don't-cares taken as the safe value ${o.safe})` : '';
-    out.push(at('info', `${o.signal.header} does not depend on ${names}${where}`));
+    out.push(at('info', 'unused-inputs', `${o.signal.header} does not depend on ${names}${where}`));
   }
   return out;
 }

@@ -63,7 +63,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
     range: table.range,
     inputs: analysis.inputs.map((s) => s.header),
     outputs: analysis.outputs.map((o) => outputJson(o, analysis)),
-    problems: analysis.problems.map((p) => ({ severity: p.severity, cell: p.cell, message: p.message })),
+    problems: analysis.problems.map((p) => ({ severity: p.severity, code: p.code, cell: p.cell, message: p.message })),
     roleRule: table.roleRule,
     xReading: table.xReading,
     identifiers,

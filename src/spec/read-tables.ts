@@ -23,7 +23,7 @@ import {
 } from './grid.js';
 import { decideRoles } from './roles.js';
 import { joinSeparated, signalColumns, type BlockLayout, type CellAt } from './table-layout.js';
-import type { Grid, OutputSpec, Problem, Severity, SpecOptions, SpecRow, SpecTable, XReading } from './types.js';
+import type { Grid, OutputSpec, Problem, ProblemCode, Severity, SpecOptions, SpecRow, SpecTable, XReading } from './types.js';
 import { gapCubes } from './uncovered.js';
 
 export interface SpecTablesRead {
@@ -47,19 +47,19 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
   const origin = gridOrigin(grid);
   if (!origin) {
     const message = `bug in the host: the grid's origin "${clip(grid.origin)}" is not an A1 address`;
-    return { tables: [], problems: [{ severity: 'error', sheet: grid.sheet, cell: 'A1', message }] };
+    return { tables: [], problems: [{ severity: 'error', code: 'host-bug', sheet: grid.sheet, cell: 'A1', message }] };
   }
   const range = options.range === undefined ? WHOLE_SHEET : parseRange(options.range);
   if (!range) {
     const message = `the range "${clip(options.range ?? '')}" is not an A1 range such as A1:H20`;
-    return { tables: [], problems: [{ severity: 'error', sheet: grid.sheet, cell: grid.origin, message }] };
+    return { tables: [], problems: [{ severity: 'error', code: 'bad-range', sheet: grid.sheet, cell: grid.origin, message }] };
   }
   // Also cuts a grid that a host let run past the sheet's last row or column.
   const area = restrictGrid(grid, range);
   if (!area) {
     const where = options.range === undefined ? 'the sheet' : `the range ${rangeAddress(range)}`;
     const message = `no spec table found: ${where} holds no filled cells`;
-    return { tables: [], problems: [{ severity: 'warning', sheet: grid.sheet, cell: grid.origin, message }] };
+    return { tables: [], problems: [{ severity: 'warning', code: 'no-table', sheet: grid.sheet, cell: grid.origin, message }] };
   }
   const sheet = new SheetCells(area);
   const tables: SpecTable[] = [];
@@ -68,7 +68,7 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
     if (layout.isNote) {
       if (filledCount(sheet, layout) > 1) {
         const message = 'not read as a spec table: no cell reads 1, 0, TRUE, FALSE or -';
-        problems.push(sheet.problem('info', sheet.range(layout.block), message));
+        problems.push(sheet.problem('info', 'note-block', sheet.range(layout.block), message));
       }
       continue;
     }
@@ -83,7 +83,7 @@ export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTable
   if (tables.length === 0 && !problems.some((p) => p.severity === 'error')) {
     const extent = gridExtent(area);
     const where = extent ? rangeAddress(extent) : area.origin;
-    problems.push(sheet.problem('warning', where, `no spec table found in ${where}: a table is a header row of signal names above rows of 1, 0 and -`));
+    problems.push(sheet.problem('warning', 'no-table', where, `no spec table found in ${where}: a table is a header row of signal names above rows of 1, 0 and -`));
   }
   return { tables, problems };
 }
@@ -130,8 +130,8 @@ class SheetCells {
     });
   }
 
-  problem(severity: Severity, cell: string, message: string): Problem {
-    return { severity, sheet: this.grid.sheet, cell, message };
+  problem(severity: Severity, code: ProblemCode, cell: string, message: string): Problem {
+    return { severity, code, sheet: this.grid.sheet, cell, message };
   }
 }
 
@@ -159,13 +159,13 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
       'no header row: the first row of a spec table names its signals (text), ' +
       (layout.roleRow === undefined ? 'with an optional input/output row above it' : 'below the input/output row') +
       (belowTable ? '; if these rows belong to the table above, delete the empty row between them' : '');
-    return { problems: [sheet.problem('error', headerRange, message)] };
+    return { problems: [sheet.problem('error', 'no-header-row', headerRange, message)] };
   }
 
   const decided = decideRoles(sheet.cellAt, layout, columns, options.inputCount);
   if ('complaints' in decided) {
     const complaints = decided.complaints.map((c) =>
-      sheet.problem('error', c.col === undefined ? headerRange : sheet.address(c.row, c.col), c.message),
+      sheet.problem('error', 'roles-unknown', c.col === undefined ? headerRange : sheet.address(c.row, c.col), c.message),
     );
     return { problems: complaints };
   }
@@ -193,10 +193,10 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
       xCells += row.xCells;
     }
   }
-  if (headerRow === block.bottom) problems.push(sheet.problem('error', headerRange, 'no data rows below the header row'));
+  if (headerRow === block.bottom) problems.push(sheet.problem('error', 'no-data-rows', headerRange, 'no data rows below the header row'));
   if (xCells > 0)
     problems.push(
-      sheet.problem('info', tableRange, `${xCells} cell${xCells === 1 ? '' : 's'} reading X taken as - (any / don't-care), as set`),
+      sheet.problem('info', 'x-read', tableRange, `${xCells} cell${xCells === 1 ? '' : 's'} reading X taken as - (any / don't-care), as set`),
     );
 
   const outputs = outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
@@ -224,6 +224,7 @@ function headerName(sheet: SheetCells, row: number, col: number, problems: Probl
   problems.push(
     sheet.problem(
       'error',
+      'bad-signal-name',
       where,
       isBlank(v) ? 'empty signal name above a data column; name the signal' : 'a signal name must be text; name the signal in words',
     ),
@@ -247,6 +248,7 @@ function reportDuplicates(
       problems.push(
         sheet.problem(
           'error',
+          'duplicate-name',
           sheet.address(row, col),
           `the signal name "${clip(names.get(col)!)}" is already used at ${sheet.address(row, earlier)}; names must differ (ignoring case)`,
         ),
@@ -262,12 +264,13 @@ function shapeProblem(
   inputs: readonly number[],
   outputs: readonly number[],
 ): Problem | undefined {
-  if (inputs.length === 0) return sheet.problem('error', headerRange, 'no input column: mark at least one column as an input');
-  if (outputs.length === 0) return sheet.problem('error', headerRange, 'no output column: mark at least one column as an output');
+  if (inputs.length === 0) return sheet.problem('error', 'no-inputs', headerRange, 'no input column: mark at least one column as an input');
+  if (outputs.length === 0) return sheet.problem('error', 'no-outputs', headerRange, 'no output column: mark at least one column as an output');
   if (inputs.length > MAX_INPUTS) {
     const cells = sheet.range({ top: row, left: inputs[0]!, bottom: row, right: inputs[inputs.length - 1]! });
     return sheet.problem(
       'error',
+      'too-many-inputs',
       cells,
       `${inputs.length} inputs: at most ${MAX_INPUTS} are handled (2^${MAX_INPUTS} combinations); split the table`,
     );
@@ -291,7 +294,7 @@ function readRow(
   const read = (col: number): OutputValue | undefined => {
     const cell = readDataCell(sheet.cellAt(r, col), xReading);
     if (!cell.ok) {
-      problems.push(sheet.problem('error', sheet.address(r, col), cell.reason));
+      problems.push(sheet.problem('error', 'bad-cell', sheet.address(r, col), cell.reason));
       good = false;
       return undefined;
     }
@@ -348,7 +351,7 @@ function buildOutput(
     const message =
       `rows ${a.cells} and ${b.cells} both cover ${describeCube(both, inputs)} but ask ${signal.header} ` +
       `for ${a.values[j]} and ${b.values[j]}; ${c.combinations} ${plural} the safe value ${safe}`;
-    problems.push(sheet.problem('error', b.outputCells[j]!, message));
+    problems.push(sheet.problem('error', 'conflict', b.outputCells[j]!, message));
   }
   return { signal, safe, built: built.value };
 }
@@ -385,5 +388,5 @@ function reportGaps(
     `Uncovered, as patterns over ${inputs.map((s) => s.header).join(', ')} (- = any): ` +
     shown.join(', ') +
     (more > 0 ? ` and ${more}${cut ? '+' : ''} more` : '');
-  problems.push(sheet.problem('warning', tableRange, message));
+  problems.push(sheet.problem('warning', 'gaps', tableRange, message));
 }

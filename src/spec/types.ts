@@ -16,8 +16,15 @@ export interface Grid {
 export type Severity = 'error' | 'warning' | 'info';
 
 /** Something the user should know about their sheet, pinned to a cell ("Sheet1!C7" is sheet + cell). */
+/**
+ * What kind of problem it is, stable across wording changes: tests, the pane and the JSON match
+ * codes, not messages. Kebab-case; add a code when a new kind of problem is reported.
+ */
+export type ProblemCode = string;
+
 export interface Problem {
   readonly severity: Severity;
+  readonly code: ProblemCode;
   readonly sheet: string;
   /** A1 address of the cell (or range) concerned, without the sheet name. */
   readonly cell: string;

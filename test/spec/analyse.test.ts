@@ -108,7 +108,7 @@ describe('what an output depends on', () => {
   it('an input that appears in no XOR term is unused, and the problems say so at the output header', () => {
     const analysis = analyseTable(table(['A', 'B'], ['Y'], fullTable(2, ([a]) => a!)));
     expect(analysis.outputs[0]!.unusedInputs).toEqual([1]);
-    expect(analysis.problems).toContainEqual({ severity: 'info', sheet: 'Capper', cell: 'D4', message: 'Y does not depend on B' });
+    expect(analysis.problems).toContainEqual({ severity: 'info', code: 'unused-inputs', sheet: 'Capper', cell: 'D4', message: 'Y does not depend on B' });
   });
 });
 
@@ -154,7 +154,7 @@ describe('the JSON of an analysis', () => {
       xorTerms: 1,
       check: { combinations: 4, mismatchCount: 0, mismatches: [] },
     });
-    expect(json.problems).toContainEqual({ severity: 'warning', cell: 'B3:D7', message: expect.stringMatching(/^1 input combination/) });
+    expect(json.problems).toContainEqual({ severity: 'warning', code: 'gaps', cell: 'B3:D7', message: expect.stringMatching(/^1 input combination/) });
   });
 
   it('writes combinations as patterns over the inputs, leftmost first', () => {

@@ -254,7 +254,7 @@ describe('the shape of a table', () => {
   it('a header with no data rows below is an error', () => {
     const t = onlyTable([ROLES, HEADERS]);
     expect(errors(t.problems)).toEqual([
-      { severity: 'error', sheet: 'Capper', cell: 'A2:C2', message: 'no data rows below the header row' },
+      { severity: 'error', code: 'no-data-rows', sheet: 'Capper', cell: 'A2:C2', message: 'no data rows below the header row' },
     ]);
   });
 
