@@ -13,6 +13,7 @@ import {
   gridExtent,
   gridOrigin,
   gridWidth,
+  intersectRanges,
   parseRange,
   qualifiedAddress,
   rangeAddress,
@@ -43,6 +44,28 @@ const WHOLE_SHEET = { top: 0, left: 0, bottom: MAX_ROWS - 1, right: MAX_COLUMNS 
  * any problem of severity 'error' means the sheet needs fixing.
  */
 export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTablesRead {
+  return withReadProblems(readCells(grid, options), grid.readProblems ?? []);
+}
+
+/** The host's reading problems go to the table whose range holds their cell, the rest beside the tables. */
+function withReadProblems(read: SpecTablesRead, hostProblems: readonly Problem[]): SpecTablesRead {
+  if (hostProblems.length === 0) return read;
+  const ranges = read.tables.map((t) => parseRange(t.range));
+  const perTable: Problem[][] = read.tables.map(() => []);
+  const beside: Problem[] = [];
+  for (const p of hostProblems) {
+    const at = parseRange(p.cell);
+    const i = at ? ranges.findIndex((r) => r !== undefined && intersectRanges(r, at) !== undefined) : -1;
+    if (i >= 0) perTable[i]!.push(p);
+    else beside.push(p);
+  }
+  return {
+    tables: read.tables.map((t, i) => (perTable[i]!.length === 0 ? t : { ...t, problems: [...perTable[i]!, ...t.problems] })),
+    problems: [...beside, ...read.problems],
+  };
+}
+
+function readCells(grid: Grid, options: SpecOptions): SpecTablesRead {
   const problems: Problem[] = [];
   const origin = gridOrigin(grid);
   if (!origin) {

@@ -11,6 +11,14 @@ export interface Grid {
   readonly sheet: string;
   readonly origin: string;
   readonly cells: readonly (readonly CellValue[])[];
+  /** Merged areas (A1 ranges) that overlap the grid, as the host found them. */
+  readonly merges?: readonly string[];
+  /**
+   * What the host found while reading these cells (hidden rows, formula cells, parts it could
+   * not read), at their addresses: `readSpecTables` hands each to the table whose range holds
+   * it, so that an error there stops that table's claims.
+   */
+  readonly readProblems?: readonly Problem[];
 }
 
 export type Severity = 'error' | 'warning' | 'info';

@@ -338,3 +338,31 @@ describe('finding tables on a sheet', () => {
     expect(errors(read.tables[0]!.problems).map((p) => p.cell)).toEqual(['D3']);
   });
 });
+
+describe("the host's reading problems", () => {
+  const cells = [ROLES, HEADERS, ...AND_ROWS];
+  const hostProblem = (cell: string): Problem => ({
+    severity: 'error',
+    code: 'formula-cell',
+    sheet: 'Capper',
+    cell,
+    message: 'test problem from the host',
+  });
+
+  it('a problem at a cell inside a table belongs to that table', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('B4')] });
+    expect(read.tables[0]!.problems).toContainEqual(hostProblem('B4'));
+    expect(read.problems).toEqual([]);
+  });
+
+  it('a problem outside every table stays beside the tables', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('H40')] });
+    expect(read.tables[0]!.problems).not.toContainEqual(hostProblem('H40'));
+    expect(read.problems).toContainEqual(hostProblem('H40'));
+  });
+
+  it('a problem over a range that overlaps a table belongs to it', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('A5:Z9')] });
+    expect(read.tables[0]!.problems).toContainEqual(hostProblem('A5:Z9'));
+  });
+});
