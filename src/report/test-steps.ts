@@ -3,8 +3,10 @@
 // selection (each step shows one input deciding an output); the full table on request.
 import { has, inputValue, type Combination } from '../logic/bits.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
+import { qualifiedAddress } from '../spec/grid.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
+import { printSetup } from './sheet-looks.js';
 
 /** The full table is offered up to this many inputs (65,536 steps); beyond, unique-cause steps. */
 export const FULL_TABLE_MAX_INPUTS = 16;
@@ -117,6 +119,7 @@ export function stepsSheet(analysis: TableAnalysis, options: StepOptions = {}): 
     name: sheetName(analysis.table.sheet, ' steps'),
     rows,
     columnWidths: [6, ...analysis.inputs.map(() => 12), ...analysis.outputs.map(() => 14), 60, 12, 14],
+    print: printSetup(`Test steps of ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}`),
   };
 }
 
