@@ -30,7 +30,7 @@ const CRC_TABLE = (() => {
   return t;
 })();
 
-/** CRC-32 as zip uses it (ISO 3309 / ITU-T V.42 polynomial). */
+/** CRC-32 as zip and PNG use it (ISO 3309 / ITU-T V.42 polynomial). */
 export function crc32(bytes: Uint8Array): number {
   let c = 0xffffffff;
   for (let i = 0; i < bytes.length; i++) c = CRC_TABLE[(c ^ bytes[i]!) & 0xff]! ^ (c >>> 8);
