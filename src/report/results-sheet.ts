@@ -53,7 +53,7 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
   for (const o of analysis.outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
   rows.push([]);
 
-  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis)), []);
+  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis), analysis.outputs.length), []);
 
   const statusRanges: string[] = [];
   if (n <= LIVE_CHECK_MAX_INPUTS) {
