@@ -71,10 +71,12 @@ const WHOLE_SHEET = { top: 0, left: 0, bottom: MAX_ROWS - 1, right: MAX_COLUMNS 
  * any problem of severity 'error' means the sheet needs fixing.
  */
 export function readSpecTables(grid: Grid, options: SpecOptions = {}): SpecTablesRead {
-  return withReadProblems(readCells(grid, options), grid.readProblems ?? []);
+  const located: Problem[] = [];
+  const read = readCells(grid, options, located);
+  return withReadProblems(read, [...(grid.readProblems ?? []), ...located]);
 }
 
-/** The host's reading problems go to the table whose range holds their cell, the rest beside the tables. */
+/** The host's reading problems (and others found at a cell) go to the table whose range holds their cell, the rest beside the tables. */
 function withReadProblems(read: SpecTablesRead, hostProblems: readonly Problem[]): SpecTablesRead {
   if (hostProblems.length === 0) return read;
   const ranges = read.tables.map((t) => parseRange(t.range));
@@ -92,7 +94,8 @@ function withReadProblems(read: SpecTablesRead, hostProblems: readonly Problem[]
   };
 }
 
-function readCells(grid: Grid, options: SpecOptions): SpecTablesRead {
+/** `located`: problems at cells that go to the table holding them, as the host's do. */
+function readCells(grid: Grid, options: SpecOptions, located: Problem[]): SpecTablesRead {
   const problems: Problem[] = [];
   const origin = gridOrigin(grid);
   if (!origin) {
@@ -119,7 +122,7 @@ function readCells(grid: Grid, options: SpecOptions): SpecTablesRead {
     const cells = compacted.skipped.map(at);
     const plural = cells.length === 1 ? 'blank row' : 'blank rows';
     const message = `${cells.length} ${plural} inside the range ${rangeAddress(range)} skipped (${cells.join(', ')}): the range is read as one table`;
-    problems.push({ ...sheet.problem('info', 'blank-rows-skipped', cells[0]!, message), cells });
+    located.push({ ...sheet.problem('info', 'blank-rows-skipped', cells[0]!, message), cells });
   }
   const tables: SpecTable[] = [];
   const layouts = joinSeparated(sheet.cellAt, sheet.filled, findBlocks(sheet.filled, sheet.width));

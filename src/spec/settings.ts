@@ -5,7 +5,7 @@ import type { HostKind, Setting } from './types.js';
 
 const NAMES: Readonly<Record<Setting, { readonly cli: string; readonly pane: string }>> = {
   'x-means-dont-care': { cli: '--x-means-dont-care', pane: "tick 'X means don't-care'" },
-  inputs: { cli: '--inputs N (the first N signal columns are inputs)', pane: "set 'Inputs: the first N columns'" },
+  inputs: { cli: '--inputs N', pane: "set 'Inputs: the first N columns'" },
   range: { cli: '--range A1:H20', pane: 'select the table and read the selection' },
   'dont-cares': { cli: '--dont-cares safe', pane: "choose 'Don't-cares: safe value'" },
 };
@@ -13,7 +13,7 @@ const NAMES: Readonly<Record<Setting, { readonly cli: string; readonly pane: str
 /** The control or option that changes `setting`, as `host` calls it; both names for 'any'. */
 export function settingName(setting: Setting, host: HostKind = 'any'): string {
   const name = NAMES[setting];
-  if (host === 'cli') return name.cli;
+  if (host === 'cli') return `give ${name.cli}`;
   if (host === 'pane') return name.pane;
   return `${name.pane} (command line: ${name.cli})`;
 }
