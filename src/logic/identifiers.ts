@@ -79,23 +79,29 @@ const SPELLED: Record<string, string> = {
  * unique case-insensitively. Accents are transliterated (ä -> ae, é -> e, ß -> ss); other
  * characters become word breaks. A leading digit gets the prefix `S_`; a reserved word the
  * suffix `_Sig`; a header with nothing usable becomes `Signal_<position>` (1-based).
- * A long name is cut at a word break; when that cut is already taken, whole words are left
- * out instead so that a word tells the headers apart (`Light_curtain_active` beside
- * `Light_curtain_muting`); only when no choice of words does, `_2`, `_3`, ... (a name that is
- * unique as derived keeps it).
+ * A long name is cut at a word break; when that cut is another header's name too (or its
+ * cut), whole words are left out instead so that a word tells the headers apart
+ * (`Light_curtain_active` beside `Light_curtain_muting`); headers alike as names, or ones no
+ * choice of words tells apart, get `_2`, `_3`, ... (a name that is unique as derived keeps it).
  */
 export function toIdentifiers(headers: readonly string[]): string[] {
   const full = headers.map((h, i) => baseIdentifier(h) || `Signal_${i + 1}`);
+  const fits = full.map((f) => f.length <= MAX_IDENTIFIER_LENGTH);
+  const prefix = full.map((f, i) => (fits[i] ? f : wordBreakCut(f)));
   // A name that fits as derived is reserved for its header; cut and repeated names come after.
-  const taken = new Set(full.filter((f) => f.length <= MAX_IDENTIFIER_LENGTH).map((f) => f.toLowerCase()));
+  const taken = new Set(full.filter((_, i) => fits[i]).map((f) => f.toLowerCase()));
   const used = new Set<string>();
-  return full.map((name) => {
-    const fits = name.length <= MAX_IDENTIFIER_LENGTH;
-    const candidates = fits ? [name] : cutCandidates(name);
-    const free = (c: string): boolean => !used.has(c.toLowerCase()) && (fits || !taken.has(c.toLowerCase()));
+  return full.map((name, i) => {
+    // A cut that another, different name also cuts to (or is) tells nothing apart: choose words.
+    const key = prefix[i]!.toLowerCase();
+    const ambiguous = !fits[i] && full.some((other, j) => j !== i && other.toLowerCase() !== name.toLowerCase() && prefix[j]!.toLowerCase() === key);
+    // Headers that read alike as names are told apart by number, not by dropping different words.
+    const twin = full.some((other, j) => j !== i && other.toLowerCase() === name.toLowerCase());
+    const candidates = fits[i] || twin ? [prefix[i]!] : ambiguous ? [...wordChoices(name), prefix[i]!] : [prefix[i]!, ...wordChoices(name)];
+    const free = (c: string): boolean => !used.has(c.toLowerCase()) && (fits[i] || !taken.has(c.toLowerCase()));
     let chosen = candidates.find(free);
     for (let k = 2; chosen === undefined; k++) {
-      const candidate = withSuffix(candidates[0]!, `_${k}`);
+      const candidate = withSuffix(prefix[i]!, `_${k}`);
       if (!used.has(candidate.toLowerCase()) && !taken.has(candidate.toLowerCase()) && !isReserved(candidate)) chosen = candidate;
     }
     used.add(chosen.toLowerCase());
@@ -112,15 +118,23 @@ export function fullIdentifier(header: string): string {
 /** Words of a long name beyond which the choices of words to keep are not searched. */
 const MAX_WORDS_SEARCHED = 12;
 
-/**
- * Shortened forms of a name too long, best first: the cut at a word break, then choices of
- * whole words that keep the first word, preferring the last word kept, then more words, then
- * more characters, then the earlier words.
- */
-function cutCandidates(name: string): string[] {
+/** A name too long cut at a word break (see withSuffix), not left a reserved word. */
+function wordBreakCut(name: string): string {
   const cut = withSuffix(name, '');
-  const first = isReserved(cut) ? withSuffix(cut, '_Sig') : cut;
-  const words = name.split('_');
+  return isReserved(cut) ? withSuffix(cut, '_Sig') : cut;
+}
+
+/**
+ * Shorter forms of a name too long made of whole words, best first: the first word always
+ * kept, then preferring the last word kept, more words, more characters, the earlier words.
+ * A number stays with the word before it (`sensor_2` is one word here).
+ */
+function wordChoices(name: string): string[] {
+  const words: string[] = [];
+  for (const w of name.split('_')) {
+    if (/^[0-9]+$/.test(w) && words.length > 0) words[words.length - 1] += `_${w}`;
+    else words.push(w);
+  }
   const k = Math.min(words.length, MAX_WORDS_SEARCHED);
   const scored: { text: string; key: number[] }[] = [];
   // Subsets that keep word 0: bit j of `pick` keeps word j + 1.
@@ -130,13 +144,9 @@ function cutCandidates(name: string): string[] {
     const text = kept.map((i) => words[i]!).join('_');
     if (text.length > MAX_IDENTIFIER_LENGTH || isReserved(text)) continue;
     const keepsLast = kept[kept.length - 1] === k - 1 ? 1 : 0;
-    // Earlier words first: compare the kept indices, lower is better.
     scored.push({ text, key: [-keepsLast, -kept.length, -text.length, ...kept] });
   }
-  scored.sort((a, b) => compareKeys(a.key, b.key));
-  const out = [first];
-  for (const { text } of scored) if (!out.some((o) => o.toLowerCase() === text.toLowerCase())) out.push(text);
-  return out;
+  return scored.sort((a, b) => compareKeys(a.key, b.key)).map((c) => c.text);
 }
 
 function compareKeys(a: readonly number[], b: readonly number[]): number {
