@@ -67,7 +67,7 @@ describe('role cells cover exactly their columns', () => {
   it('repeated role words (I I Q) give each column its own role, and a blank one is outside', () => {
     const t = readSpecTables(grid([['I', 'I', 'Q', null], ['A', 'B', 'Y', 'Step'], [1, 1, 1, 1], [0, '-', 0, 2]])).tables[0]!;
     expect(headers(t)).toEqual([['A', 'B'], ['Y']]);
-    expect(t.annotations.map((a) => a.reason)).toEqual(['note-header']);
+    expect(t.annotations?.map((a) => a.reason)).toEqual(['note-header']);
   });
 
   it('with no merges and a single word, blank role cells take the role on their left, but a Notes column stays notes', () => {
@@ -85,7 +85,7 @@ describe('role cells cover exactly their columns', () => {
   it('annotation text of any kind never becomes an error', () => {
     const read = readSpecTables(grid([['in', 'out', null], ['A', 'Y', 'Comment'], [1, 1, { error: '#N/A' }], [0, 0, 7]]));
     expect(allProblems(read).filter((p) => p.severity === 'error')).toEqual([]);
-    expect(read.tables[0]!.annotations.map((a) => a.header)).toEqual(['Comment']);
+    expect(read.tables[0]!.annotations?.map((a) => a.header)).toEqual(['Comment']);
   });
 });
 
