@@ -40,12 +40,16 @@ export function layoutGrid(sheet: LayoutSheet): Grid {
 }
 
 export function layoutWorkbook(sample: LayoutWorkbook): XLSX.WorkBook {
+  return workbookOf(sample.sheets.map((sheet) => ({ name: sheet.name, cells: layoutCells(sheet), merges: sheet.merges })));
+}
+
+/** A workbook of sheets given as cells from A1 (and merged areas), columns 20 characters wide. */
+function workbookOf(sheets: readonly { name: string; cells: CellValue[][]; merges?: readonly string[] }[]): XLSX.WorkBook {
   const book = XLSX.utils.book_new();
-  for (const sheet of sample.sheets) {
-    const cells = layoutCells(sheet);
-    const ws = sheetFromCells(cells);
-    ws['!cols'] = cells[0]!.map(() => ({ wch: 18 }));
-    ws['!merges'] = sheet.merges.map((m) => XLSX.utils.decode_range(m));
+  for (const sheet of sheets) {
+    const ws = sheetFromCells(sheet.cells);
+    ws['!cols'] = sheet.cells[0]!.map(() => ({ wch: 20 }));
+    if (sheet.merges) ws['!merges'] = sheet.merges.map((m) => XLSX.utils.decode_range(m));
     XLSX.utils.book_append_sheet(book, ws, sheet.name);
   }
   return book;
@@ -110,14 +114,7 @@ export function sheetCells(sheet: SampleSheet): CellValue[][] {
 }
 
 export function sampleWorkbook(sample: SampleWorkbook): XLSX.WorkBook {
-  const book = XLSX.utils.book_new();
-  for (const sheet of sample.sheets) {
-    const cells = sheetCells(sheet);
-    const ws = sheetFromCells(cells);
-    ws['!cols'] = cells[0]!.map(() => ({ wch: 20 }));
-    XLSX.utils.book_append_sheet(book, ws, sheet.name);
-  }
-  return book;
+  return workbookOf(sample.sheets.map((sheet) => ({ name: sheet.name, cells: sheetCells(sheet) })));
 }
 
 /** The CSV sample: semicolons, CRLF line ends, UTF-8 with a byte-order mark (as Excel saves it). */
