@@ -108,12 +108,16 @@ function analyseOutput(
     unusedInputs: support.flatMap((used, i) => (used ? [] : [i])),
     gaps,
     gapCount,
-    conflicts: output.built.conflicts.map((c) => ({
-      rowCellsA: table.rows[c.rowA]!.cells,
-      rowCellsB: table.rows[c.rowB]!.cells,
-      example: c.example,
-      combinations: c.combinations,
-    })),
+    conflicts: output.built.conflicts.map((c) => {
+      const [a, b] = [table.rows[c.rowA]!, table.rows[c.rowB]!];
+      return {
+        rowCellsA: a.cells,
+        rowCellsB: b.cells,
+        ...(a.note !== undefined || b.note !== undefined ? { notes: [a.note, b.note] as const } : {}),
+        example: c.example,
+        combinations: c.combinations,
+      };
+    }),
     dontCareCount: count(spec.dc),
     steps,
   };

@@ -39,7 +39,13 @@ export interface OutputJson {
   readonly gaps: string[];
   readonly gapCount: number;
   readonly dontCareCount: number;
-  readonly conflicts: { readonly rows: [string, string]; readonly example: string; readonly combinations: number }[];
+  readonly conflicts: {
+    readonly rows: [string, string];
+    /** The rows' notes (annotation columns), null where a row has none; absent when neither has. */
+    readonly notes?: [string | null, string | null];
+    readonly example: string;
+    readonly combinations: number;
+  }[];
   readonly steps: { readonly combination: string; readonly expected: 0 | 1; readonly reason: string }[];
 }
 
@@ -139,6 +145,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
       dontCareCount: o.dontCareCount,
       conflicts: o.conflicts.map((c) => ({
         rows: [c.rowCellsA, c.rowCellsB],
+        ...(c.notes ? { notes: [c.notes[0] ?? null, c.notes[1] ?? null] as [string | null, string | null] } : {}),
         example: combination(c.example),
         combinations: c.combinations,
       })),

@@ -48,6 +48,8 @@ export interface XorForm {
 export interface ConflictReport {
   readonly rowCellsA: string;
   readonly rowCellsB: string;
+  /** The rows' annotation text (notes columns), when they have any. */
+  readonly notes?: readonly [string | undefined, string | undefined];
   readonly example: Combination;
   readonly combinations: number;
 }

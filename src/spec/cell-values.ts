@@ -35,14 +35,13 @@ export function isTagWord(v: CellValue): boolean {
   return w === 'tag' || w === 'tags' || w === 'tag name' || w === 'tagname';
 }
 
-/** Headers of columns that hold notes beside the rows, not signals. */
+/** Headers of columns that hold notes beside the rows, not signals (words no signal is named by alone). */
 const NOTE_WORDS = new Set([
-  'note', 'notes', 'comment', 'comments', 'remark', 'remarks', 'description', 'descr', 'desc',
-  'reference', 'references', 'ref', 'refs', 'explanation', 'reason', 'purpose', 'meaning',
-  'step', 'no', 'no.', 'nr', 'nr.', '#', 'item', 'case', 'why', 'annotation', 'annotations',
+  'note', 'notes', 'comment', 'comments', 'remark', 'remarks', 'description', 'descriptions',
+  'reference', 'references', 'explanation', 'explanations', 'annotation', 'annotations',
 ]);
 
-/** A header that names a column of notes (Notes, Comment, Remarks, Description, Reference, Step, ...). */
+/** A header that names a column of notes (Notes, Comment, Remarks, Description, Reference, ...). */
 export function isNoteWord(v: CellValue): boolean {
   const w = word(v);
   return w !== undefined && NOTE_WORDS.has(w);

@@ -4,6 +4,8 @@ import { members } from '../../src/logic/bits.js';
 import { cubeToPattern } from '../../src/logic/cube.js';
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyImplementation } from '../../src/impl/verify.js';
+import { analyseTable } from '../../src/spec/analyse.js';
+import { analysisJson } from '../../src/spec/analysis-json.js';
 import { allProblems, readSpecTables, type SpecTablesRead } from '../../src/spec/read-tables.js';
 import type { CellValue, Grid, Problem, SpecOptions, SpecTable } from '../../src/spec/types.js';
 import { LAYOUT_WORKBOOKS, layoutGrid } from '../../scripts/make-samples.js';
@@ -65,7 +67,7 @@ describe('role cells cover exactly their columns', () => {
   });
 
   it('repeated role words (I I Q) give each column its own role, and a blank one is outside', () => {
-    const t = readSpecTables(grid([['I', 'I', 'Q', null], ['A', 'B', 'Y', 'Step'], [1, 1, 1, 1], [0, '-', 0, 2]])).tables[0]!;
+    const t = readSpecTables(grid([['I', 'I', 'Q', null], ['A', 'B', 'Y', 'Remarks'], [1, 1, 1, 'first'], [0, '-', 0, null]])).tables[0]!;
     expect(headers(t)).toEqual([['A', 'B'], ['Y']]);
     expect(t.annotations?.map((a) => a.reason)).toEqual(['note-header']);
   });
@@ -80,6 +82,9 @@ describe('role cells cover exactly their columns', () => {
     const read = readSpecTables(grid([['in', 'in', 'out', 'notes'], ['A', 'B', 'Y', 'Notes'], [1, '-', 1, 'run'], [1, 1, 0, 'jam stop']]));
     const conflict = allProblems(read).find((p) => p.code === 'conflict')!;
     expect(conflict.message).toMatch(/rows A3:D3 \("run"\) and A4:D4 \("jam stop"\) both cover/);
+    const json = analysisJson(analyseTable(read.tables[0]!));
+    expect(json.outputs[0]!.conflicts[0]!.notes).toEqual(['run', 'jam stop']);
+    expect(json.annotations).toEqual([{ header: 'Notes', cell: 'D2', reason: 'note-header' }]);
   });
 
   it('annotation text of any kind never becomes an error', () => {
