@@ -179,7 +179,7 @@ function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Prob
 
 const POLICY_WORDS = { minimal: 'as the minimal AND/OR form uses them', safe: 'at the safe value' } as const;
 
-/** How many cubes of a permits-also warning its message spells out (the pattern table has all). */
+/** How many cubes of a permits-also warning its message spells out (its pattern table has up to LISTED). */
 const PERMITS_SHOWN = 8;
 
 /** The don't-cares the resolved function turned ON: a warning at the output's header cell. */
@@ -199,6 +199,6 @@ function permitsAlsoProblem(table: SpecTable, o: OutputAnalysis, cell: string): 
     sheet: table.sheet,
     cell,
     message,
-    patterns: patternTable(table.inputs, cubes),
+    patterns: patternTable(table.inputs, cubes.slice(0, LISTED)),
   };
 }
