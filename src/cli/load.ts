@@ -23,6 +23,8 @@ function specOptions(choice: SpecChoice): SpecOptions {
     xReading: choice.xMeansDontCare ? 'dont-care' : 'none',
     ...(choice.inputs !== undefined ? { inputCount: choice.inputs } : {}),
     safeValues: choice.safe,
+    ...(choice.dontCares !== undefined ? { dontCares: choice.dontCares } : {}),
+    host: 'cli',
   };
 }
 
