@@ -1,0 +1,11 @@
+// The workflow every host shares (DESIGN.md sections 8 and 9): read the tables of a workbook
+// through a WorkbookHost with the user's settings -> analyse -> verdicts -> what may be
+// written and handed over -> the sheets to write. Hosts import this module only.
+export { readGrids, readTables, type GridsRead, type ReadFailure, type TablesRead, type WorkbookChoice } from './read.js';
+export { allCleared, examine, examineTable, workbookVerdictText, type ExamineOptions, type Permission, type TableResult, type Workbook } from './examine.js';
+export { cleared, errorsOf, notAnalysed, verdictWords, type Verdict } from './verdict.js';
+export { sheetsToWrite, tableSheets, writeSheets } from './sheets.js';
+export { handOverFiles, type HandOverFile, type HandOverKind, type HandOverRequest } from './hand-over.js';
+export { checkExpression, implementationWord, programCleared, verifyProgram, type ImplementationWord } from './implementation.js';
+export { problemJson, tableJson, verdictJson, workbookJson } from './json.js';
+export { tableView, workbookView, type TableView, type WorkbookView } from './view.js';
