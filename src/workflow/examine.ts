@@ -70,7 +70,7 @@ function permissions(tables: readonly TableResult[], problems: readonly Problem[
     return { handOver: { allowed: false, reason }, resultsWrite: { allowed: false, reason } };
   }
   const why: string[] = [];
-  for (const t of tables) if (!cleared(t.verdict)) why.push(`${qualifiedAddress(t.table.sheet, t.table.range)} ${verdictWords(t.verdict)}`);
+  for (const t of tables) if (!cleared(t.verdict)) why.push(`${qualifiedAddress(t.table.sheet, t.table.range)} ${t.verdict.kind === 'not-analysed' ? 'is ' : ''}${verdictWords(t.verdict)}`);
   const outside = errorsOf(problems);
   if (outside.length > 0) why.push(`${plural(outside.length, 'error')} outside the tables, the first at ${qualifiedAddress(outside[0]!.sheet, outside[0]!.cell)}`);
   const handOver: Permission =
