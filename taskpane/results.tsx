@@ -240,6 +240,9 @@ export function SpecTableView({ table, handOver, selectCell }: { table: TableVie
         <h2>
           Spec table <CellLink sheet={table.sheet} cell={table.range} selectCell={selectCell} />
         </h2>
+        <p class="table-verdict">
+          Verdict: <VerdictBadge verdict={table.verdict} />
+        </p>
         <p>
           {plural(table.inputs.length, 'input')}, {plural(table.outputs.length, 'output')}, {plural(table.rows, 'row')}. Inputs and
           outputs told apart by {ROLE_RULE[table.roleRule]}.
@@ -247,8 +250,7 @@ export function SpecTableView({ table, handOver, selectCell }: { table: TableVie
         </p>
         {!table.analysed && (
           <p class="verdict not-analysed" role="status">
-            <VerdictBadge verdict={table.verdict} /> No form was derived or proven and nothing of this table is handed over: fix the cells below and
-            read it again.
+            No form was derived or proven and nothing of this table is handed over: fix the cells below and read it again.
           </p>
         )}
         <ProblemList problems={table.problems} selectCell={selectCell} />

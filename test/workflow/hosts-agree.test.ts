@@ -3,44 +3,12 @@
 // the Excel pane's path over the strict Office.js double (cells read in the pane, the engine
 // core answering the pane's requests as its worker does). The standalone page is driven in
 // Chromium by test/browser/run.ts against the same workbooks.
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createExcelHost } from '../../src/hosts/excel-host.js';
 import { readGrids, verdictWords, writeSheets, type WorkbookView } from '../../src/workflow/index.js';
 import { EngineCore } from '../../taskpane/engine-core.js';
-import { runCli, scratch } from '../cli/run-cli.js';
 import { ExcelDouble } from '../hosts/excel-double.js';
-import { trim, WORKBOOKS, xlsxBytes, xlsxSheets, type SheetText, type TestWorkbook } from './workbooks.js';
-
-/** What a host shows and does with one sheet of a workbook. */
-interface Outcome {
-  /** Per table: its verdict words, then each output's. */
-  readonly verdicts: string[][];
-  readonly sheets: SheetText[];
-  readonly handedOver: boolean;
-}
-
-interface JsonDoc {
-  tables: { verdict: { text: string }; outputs: { verdict: { text: string } }[] }[];
-}
-
-async function throughCli(book: TestWorkbook, sheet: string): Promise<Outcome> {
-  const dir = scratch();
-  const file = join(dir, book.file);
-  writeFileSync(file, xlsxBytes(book));
-  const out = join(dir, 'results.xlsx');
-  const analyzed = await runCli('analyze', file, '--sheet', sheet, '--json', '-o', out);
-  const doc = JSON.parse(analyzed.out) as JsonDoc;
-  const st = join(dir, 'out.st');
-  const exported = await runCli('export', file, '--sheet', sheet, '--st', st);
-  expect(exported.code === 0, exported.err).toBe(existsSync(st));
-  return {
-    verdicts: doc.tables.map((t) => [t.verdict.text, ...t.outputs.map((o) => o.verdict.text)]),
-    sheets: xlsxSheets(new Uint8Array(readFileSync(out)), Object.keys(book.sheets).length),
-    handedOver: exported.code === 0,
-  };
-}
+import { cliOutcome, trim, WORKBOOKS, type Outcome, type TestWorkbook } from './workbooks.js';
 
 async function throughExcelPane(book: TestWorkbook, sheet: string): Promise<Outcome> {
   const double = new ExcelDouble();
@@ -73,7 +41,7 @@ describe.each(CASES)('$book.name workbook, sheet $sheet', ({ book, sheet }) => {
   let cli: Outcome;
   let excel: Outcome;
   beforeAll(async () => {
-    cli = await throughCli(book, sheet);
+    cli = await cliOutcome(book, sheet);
     excel = await throughExcelPane(book, sheet);
   });
 
@@ -94,8 +62,8 @@ describe.each(CASES)('$book.name workbook, sheet $sheet', ({ book, sheet }) => {
 describe('what the hosts agree on', () => {
   it('the error cell and the Notes column are not analysed, and nothing of them is handed over', async () => {
     const [, broken, notes] = WORKBOOKS;
-    const a = await throughCli(broken, 'Cell');
-    const b = await throughCli(notes, 'Cell');
+    const a = await cliOutcome(broken, 'Cell');
+    const b = await cliOutcome(notes, 'Cell');
     expect(a.verdicts[0]![0]).toBe('not analysed: 1 error, the first at Cell!B4');
     expect(b.verdicts[0]![0]).toBe('not analysed: 3 errors, the first at Cell!E3');
     expect([a.handedOver, b.handedOver]).toEqual([false, false]);
@@ -103,7 +71,7 @@ describe('what the hosts agree on', () => {
   });
 
   it('the good sample is proven and handed over, with a results and a steps sheet per table', async () => {
-    const good = await throughCli(WORKBOOKS[0], 'Vote');
+    const good = await cliOutcome(WORKBOOKS[0], 'Vote');
     expect(good.verdicts).toEqual([['proven minimum', 'proven minimum']]);
     expect(good.handedOver).toBe(true);
     expect(good.sheets.map((s) => s.name)).toEqual(['Vote results', 'Vote steps']);

@@ -1,11 +1,14 @@
 // The workbooks the workflow's tests and the hosts' tests share, built here from rows: a good
 // one, one with an error cell, and one whose Notes column is read as an output (every row an
 // error). Invented data (demo), with a WorkbookHost over plain rows and an .xlsx writer.
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import XLSX from 'xlsx';
 import type { WorkbookHost, WriteReport } from '../../src/hosts/workbook-host.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
 import { cellAddress, parseRange, restrictGrid } from '../../src/spec/grid.js';
 import type { CellValue, Grid } from '../../src/spec/types.js';
+import { runCli, scratch } from '../cli/run-cli.js';
 
 export type Rows = readonly (readonly (string | number | null)[])[];
 
@@ -134,4 +137,35 @@ export function xlsxSheets(bytes: Uint8Array, skip: number): SheetText[] {
     }
     return { name, rows: trim(rows) };
   });
+}
+
+/** What a host shows and does with one sheet of a workbook. */
+export interface Outcome {
+  /** Per table: its verdict words, then each output's. */
+  readonly verdicts: string[][];
+  /** The sheets it writes (the results workbook's sheets after the user's). */
+  readonly sheets: SheetText[];
+  readonly handedOver: boolean;
+}
+
+interface JsonDoc {
+  tables: { verdict: { text: string }; outputs: { verdict: { text: string } }[] }[];
+}
+
+/** The command line in-process: `analyze --json -o` for verdicts and sheets, `export --st` for the hand-over. */
+export async function cliOutcome(book: TestWorkbook, sheet: string): Promise<Outcome> {
+  const dir = scratch();
+  const file = join(dir, book.file);
+  writeFileSync(file, xlsxBytes(book));
+  const out = join(dir, 'results.xlsx');
+  const analyzed = await runCli('analyze', file, '--sheet', sheet, '--json', '-o', out);
+  const doc = JSON.parse(analyzed.out) as JsonDoc;
+  const st = join(dir, 'out.st');
+  const exported = await runCli('export', file, '--sheet', sheet, '--st', st);
+  if ((exported.code === 0) !== existsSync(st)) throw new Error(`export said ${exported.code} but the file ${existsSync(st) ? 'is' : 'is not'} there`);
+  return {
+    verdicts: doc.tables.map((t) => [t.verdict.text, ...t.outputs.map((o) => o.verdict.text)]),
+    sheets: xlsxSheets(new Uint8Array(readFileSync(out)), Object.keys(book.sheets).length),
+    handedOver: exported.code === 0,
+  };
 }
