@@ -3,7 +3,7 @@
 import type { Signal } from '../logic/signals.js';
 import type { OutputAnalysis } from '../spec/analysis-types.js';
 import type { Problem, RoleRule, XReading } from '../spec/types.js';
-import type { Permission, TableResult, Workbook } from './examine.js';
+import type { TableResult, Workbook } from './examine.js';
 import type { Verdict } from './verdict.js';
 
 export interface TableView {
@@ -21,12 +21,9 @@ export interface TableView {
   readonly analysed?: readonly OutputAnalysis[];
 }
 
-export interface WorkbookView {
-  readonly source: string;
+/** The workbook's verdicts and permissions as they are, its tables as views. */
+export interface WorkbookView extends Omit<Workbook, 'tables'> {
   readonly tables: readonly TableView[];
-  readonly problems: readonly Problem[];
-  readonly handOver: Permission;
-  readonly resultsWrite: Permission;
 }
 
 export function tableView(t: TableResult): TableView {
