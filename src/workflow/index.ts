@@ -4,9 +4,9 @@
 // the report and spec layers only to print and show.
 export { readGrids, readTables, type GridsRead, type ReadFailure, type TablesRead, type WorkbookChoice } from './read.js';
 export { allCleared, examine, examineTable, workbookVerdictText, type ExamineOptions, type Permission, type TableResult, type Workbook } from './examine.js';
-export { cleared, errorsOf, notAnalysed, verdictWords, type Verdict } from './verdict.js';
-export { sheetsToWrite, tableSheets, writeSheets } from './sheets.js';
+export { errorsOf, verdictWords, type Verdict } from './verdict.js';
+export { sheetsToWrite, writeSheets } from './sheets.js';
 export { handOverFiles, type HandOverFile, type HandOverKind, type HandOverRequest } from './hand-over.js';
 export { checkExpression, implementationWord, programCleared, verifyProgram, type ImplementationWord } from './implementation.js';
-export { problemJson, tableJson, verdictJson, workbookJson } from './json.js';
-export { tableView, workbookView, type TableView, type WorkbookView } from './view.js';
+export { workbookJson } from './json.js';
+export { workbookView, type TableView, type WorkbookView } from './view.js';

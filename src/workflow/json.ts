@@ -8,20 +8,20 @@ import { gapCubes } from '../spec/uncovered.js';
 import type { TableResult, Workbook } from './examine.js';
 import { verdictWords, type Verdict } from './verdict.js';
 
-export interface VerdictJson {
+interface VerdictJson {
   readonly kind: Verdict['kind'];
   readonly text: string;
 }
 
-export function verdictJson(v: Verdict): VerdictJson {
+function verdictJson(v: Verdict): VerdictJson {
   return { kind: v.kind, text: verdictWords(v) };
 }
 
-export function problemJson(p: Problem): { severity: string; code: string; sheet: string; cell: string; message: string } {
+function problemJson(p: Problem): { severity: string; code: string; sheet: string; cell: string; message: string } {
   return { severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message };
 }
 
-export function tableJson(t: TableResult): Record<string, unknown> {
+function tableJson(t: TableResult): Record<string, unknown> {
   if (t.analysis) {
     const doc = analysisJson(t.analysis);
     return { ...doc, verdict: verdictJson(t.verdict), outputs: doc.outputs.map((o, j) => ({ ...o, verdict: verdictJson(t.outputs[j]!) })) };

@@ -8,7 +8,7 @@ import { stepsSheet } from '../report/test-steps.js';
 import type { TableResult, Workbook } from './examine.js';
 import { cleared, verdictWords } from './verdict.js';
 
-export function tableSheets(t: TableResult, source: string): SheetBlock[] {
+function tableSheets(t: TableResult, source: string): SheetBlock[] {
   if (!t.analysis) return [notAnalysedSheet(t.table, verdictWords(t.verdict), { source })];
   const results = resultsSheet(t.analysis, { source });
   return cleared(t.verdict) ? [results, stepsSheet(t.analysis)] : [results];

@@ -26,7 +26,7 @@ export interface WorkbookView extends Omit<Workbook, 'tables'> {
   readonly tables: readonly TableView[];
 }
 
-export function tableView(t: TableResult): TableView {
+function tableView(t: TableResult): TableView {
   const { table } = t;
   return {
     id: t.id,
