@@ -267,7 +267,7 @@ function HandOver({ view, engine, mode, file }: { view: WorkbookView; engine: En
       {mode.kind === 'excel' && target && (
         <div class="row">
           <button type="button" disabled={!view.resultsWrite.allowed} onClick={() => guard(async () => setMessage(wroteText(await writeResults(), target.where)))}>
-            Write results and test steps sheets
+            Write results and test records
           </button>
         </div>
       )}

@@ -15,7 +15,7 @@ export interface Requests {
   readonly check: { readonly table: number; readonly output: number; readonly text: string };
   /** A program file against every table examined. */
   readonly verify: { readonly fileName: string; readonly text: string };
-  /** The results and test-steps sheets of every table examined. */
+  /** The results sheets and test records of every table examined. */
   readonly sheets: Record<never, never>;
   /** Files of the hand-over pack. */
   readonly handOver: { readonly files: HandOverRequest };

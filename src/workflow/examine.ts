@@ -32,7 +32,7 @@ export interface Workbook {
   readonly problems: readonly Problem[];
   /** The hand-over pack (Structured Text, PLCopen XML, ladder pictures, test steps). */
   readonly handOver: Permission;
-  /** Results sheets (and test-steps sheets of the cleared tables). */
+  /** Results sheets (and the test records of the cleared tables). */
   readonly resultsWrite: Permission;
 }
 

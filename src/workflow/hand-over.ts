@@ -38,7 +38,7 @@ export function handOverFiles(wb: Workbook, request: HandOverRequest): Result<Ha
     if (kind === 'plcopen')
       files.push({ kind, name: 'interlocks-plcopen.xml', mime: 'application/xml', text: exportPlcopen(analyses, { form, body: request.body ?? 'ST', source }) });
     // Several tables: one CSV, their step lists one after another.
-    if (kind === 'steps') files.push({ kind, name: 'interlocks-test-steps.csv', mime: 'text/csv', text: analyses.map((a) => stepsCsv(a)).join('\r\n') });
+    if (kind === 'steps') files.push({ kind, name: 'interlocks-test-steps.csv', mime: 'text/csv', text: analyses.map((a) => stepsCsv(a, { source: wb.source })).join('\r\n') });
     if (kind === 'ladder') files.push(...ladderFiles(analyses));
   }
   return ok(files);

@@ -279,7 +279,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const source = XLSX.read(readFileSync(SAMPLE), { type: 'buffer' });
     same(book.SheetNames.slice(0, source.SheetNames.length), source.SheetNames, 'the user’s sheets first, unchanged in order');
     const added = book.SheetNames.slice(source.SheetNames.length).filter((name) => name !== checkBlock?.name);
-    same(added.length, 2 * spindle.length, 'a results sheet and a test-steps sheet per table');
+    same(added.length, 2 * spindle.length, 'a results sheet and a test record per table');
     const text = (name: string) =>
       Object.entries(book.Sheets[name]!)
         .filter(([k]) => !k.startsWith('!'))
