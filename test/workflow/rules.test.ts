@@ -23,7 +23,7 @@ import {
   type Workbook,
   type WorkbookChoice,
 } from '../../src/workflow/index.js';
-import { ERROR_CELL, GOOD, gridOf, NOTES, RowsHost, type TestWorkbook } from './workbooks.js';
+import { ERROR_CELL, GOOD, gridOf, NOTES, RowsHost, WORDS_OUTPUT, type TestWorkbook } from './workbooks.js';
 
 async function run(book: TestWorkbook, choice: WorkbookChoice = {}): Promise<Workbook> {
   const grids = await readGrids(new RowsHost(book), choice, book.file);
@@ -42,12 +42,18 @@ describe('a table with an error is not analysed', () => {
     expect(wb.tables[0]!.analysis).toBeUndefined();
   });
 
-  it('a Notes column read as an output makes every row an error: no FALSE is proven for it', async () => {
+  it('a Notes column beside the outputs is an annotation: the table is analysed and proven', async () => {
     const wb = await run(NOTES);
+    expect(new Set(words(wb)[0])).toEqual(new Set(['proven minimum']));
+    expect(wb.tables[0]!.analysis!.outputs.map((o) => o.signal.header)).toEqual(['Motor permit']);
+  });
+
+  it('words in an output column make every row an error: no FALSE is proven for it', async () => {
+    const wb = await run(WORDS_OUTPUT);
     const t = wb.tables[0]!;
     expect(t.analysis).toBeUndefined();
     expect(t.outputs.map((o) => o.kind)).toEqual(['not-analysed', 'not-analysed']);
-    expect(verdictWords(t.verdict)).toBe('not analysed: 3 errors, the first at Cell!E3');
+    expect(verdictWords(t.verdict)).toBe('not analysed: 1 error, the first at Cell!E3:E5');
     // The view a host shows carries no form to badge or prove.
     expect(workbookView(wb).tables[0]!.analysed).toBeUndefined();
   });

@@ -1,6 +1,6 @@
 // The workbooks the workflow's tests and the hosts' tests share, built here from rows: a good
-// one, one with an error cell, and one whose Notes column is read as an output (every row an
-// error). Invented data (demo), with a WorkbookHost over plain rows and an .xlsx writer.
+// one, one with an error cell, one with words in an output column (every row an error), and
+// one with a Notes column beside the outputs (an annotation). Invented data (demo), with a WorkbookHost over plain rows and an .xlsx writer.
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import XLSX from 'xlsx';
@@ -48,7 +48,22 @@ export const ERROR_CELL: TestWorkbook = {
   sheets: { ...GOOD.sheets, Cell: [ROLES, HEADERS, [1, 1, '-', 1], [0, 2, '-', 0], [1, 0, '-', 0]] },
 };
 
-/** A Notes column under the blank role cell right of "output" is an output too: every row has text there. */
+/** A second output whose cells are words, not truth values: every row has an error there. */
+export const WORDS_OUTPUT: TestWorkbook = {
+  name: 'words in an output column',
+  file: 'words.xlsx',
+  sheets: {
+    Cell: [
+      [...ROLES, 'output'],
+      [...HEADERS, 'Lamp'],
+      [1, 1, '-', 1, 'lit'],
+      [0, '-', '-', 0, 'dark'],
+      [1, 0, '-', 0, 'dark'],
+    ],
+  },
+};
+
+/** A Notes column beside the outputs, outside the role cells: an annotation, not an output. */
 export const NOTES: TestWorkbook = {
   name: 'notes column',
   file: 'notes.xlsx',
@@ -63,7 +78,7 @@ export const NOTES: TestWorkbook = {
   },
 };
 
-export const WORKBOOKS = [GOOD, ERROR_CELL, NOTES] as const;
+export const WORKBOOKS = [GOOD, ERROR_CELL, WORDS_OUTPUT, NOTES] as const;
 
 export function gridOf(sheet: string, rows: Rows): Grid {
   return { sheet, origin: 'A1', cells: rows.map((r) => r.map((v): CellValue => (v === '' ? null : v))) };
