@@ -200,9 +200,9 @@ class Builder {
       }
       case 'fb': {
         this.features.add('fb');
-        const { inst, params, body } = this.block(v);
+        const { inst, params, bodies } = this.block(v);
         const fb = this.fbs[this.fbs.length - 1]!;
-        this.fbs[this.fbs.length - 1] = { ...fb, blocks: [...fb.blocks, { section: 'VAR_OUTPUT', decls: [{ name: 'Q', type: 'BOOL' }] }], body: [{ k: 'assign', target: 'Q', value: body }] };
+        this.fbs[this.fbs.length - 1] = { ...fb, blocks: [...fb.blocks, { section: 'VAR_OUTPUT', decls: [{ name: 'Q', type: 'BOOL' }] }], body: [{ k: 'assign', target: 'Q', value: bodies[0]! }] };
         if (this.rng.chance(0.5)) {
           out.push({ k: 'call', inst, inputs: params, inOuts: [], outputs: [] }, { k: 'assign', target: y, value: { k: 'member', inst, field: 'Q' } });
         } else {
@@ -212,14 +212,10 @@ class Builder {
       }
       case 'in-out': {
         this.features.add('in-out');
-        const op = compound ? (v.k as 'and' | 'or' | 'xor') : undefined;
-        const args = compound ? (v as { args: readonly BExpr[] }).args : [];
-        const cut = compound ? this.rng.int(1, args.length - 1) : 0;
-        const before = op ? nary(op, args.slice(0, cut)) : this.randomExpr(1);
-        const inside = op ? nary(op, args.slice(cut)) : v;
-        const { inst, params, body } = this.block(inside);
+        const { before, inside, op } = this.split(v);
+        const { inst, params, bodies } = this.block(inside);
         const fb = this.fbs[this.fbs.length - 1]!;
-        const write: BExpr = op ? { k: op, args: [ref('IO'), body] } : body;
+        const write: BExpr = op ? { k: op, args: [ref('IO'), bodies[0]!] } : bodies[0]!;
         this.fbs[this.fbs.length - 1] = { ...fb, blocks: [...fb.blocks, { section: 'VAR_IN_OUT', decls: [{ name: 'IO', type: 'BOOL' }] }], body: [{ k: 'assign', target: 'IO', value: write }] };
         out.push({ k: 'assign', target: y, value: before }, { k: 'call', inst, inputs: params, inOuts: [{ param: 'IO', target: y }], outputs: [] });
         return;
@@ -271,19 +267,53 @@ class Builder {
   }
 
   /**
-   * A new function block type with one VAR_INPUT per program variable `e` reads, and an
-   * instance of it: `e` rewritten over the block's inputs, and the call's parameters.
+   * A new function block type with one VAR_INPUT per program variable the expressions read,
+   * and an instance of it: the expressions rewritten over the block's inputs, and the call's
+   * parameters.
    */
-  private block(e: BExpr): { inst: string; params: { param: string; value: BExpr }[]; body: BExpr } {
+  private block(...es: BExpr[]): { inst: string; params: { param: string; value: BExpr }[]; bodies: BExpr[] } {
     const type = this.fresh('FbPart');
     const inst = type.replace('FbPart', 'Part');
-    const names = [...new Map([...refsOf(e)].map((n) => [low(n), n])).values()];
+    const read = new Set<string>();
+    es.forEach((e) => refsOf(e, read));
+    const names = [...new Map([...read].map((n) => [low(n), n])).values()];
     const param = new Map(names.map((n, i) => [low(n), `IN${i + 1}`]));
-    const body = mapRefs(e, (n) => ref(param.get(low(n))!));
+    const bodies = es.map((e) => mapRefs(e, (n) => ref(param.get(low(n))!)));
     this.locals.push({ name: inst, type });
     const inputs: VarBlock[] = names.length > 0 ? [{ section: 'VAR_INPUT', decls: names.map((_, i) => ({ name: `IN${i + 1}`, type: 'BOOL' })) }] : [];
     this.fbs.push({ kind: 'FUNCTION_BLOCK', name: type, blocks: inputs, actions: [], body: [] });
-    return { inst, params: names.map((n, i) => ({ param: `IN${i + 1}`, value: ref(n) })), body };
+    return { inst, params: names.map((n, i) => ({ param: `IN${i + 1}`, value: ref(n) })), bodies };
+  }
+
+  /** `f` as a part computed before a call and a part an in-out parameter combines onto it. */
+  private split(f: BExpr): { before: BExpr; inside: BExpr; op?: 'and' | 'or' | 'xor' } {
+    if ((f.k === 'and' || f.k === 'or' || f.k === 'xor') && f.args.length >= 2) {
+      const cut = this.rng.int(1, f.args.length - 1);
+      return { before: nary(f.k, f.args.slice(0, cut)), inside: nary(f.k, f.args.slice(cut)), op: f.k };
+    }
+    return { before: this.randomExpr(1), inside: f };
+  }
+
+  /**
+   * Two outputs through one block: `y0 := part; Inst(IN1 := a, IO := y0); y1 := Inst.Q;`,
+   * the block writing its in-out from the rest of y0 and its output Q from y1.
+   */
+  emitPair(y0: string, f0: BExpr, y1: string, f1: BExpr, out: Stmt[]): void {
+    this.features.add('in-out').add('fb');
+    const { before, inside, op } = this.split(f0);
+    const { inst, params, bodies } = this.block(inside, f1);
+    const fb = this.fbs[this.fbs.length - 1]!;
+    const io: BExpr = op ? { k: op, args: [ref('IO'), bodies[0]!] } : bodies[0]!;
+    this.fbs[this.fbs.length - 1] = {
+      ...fb,
+      blocks: [...fb.blocks, { section: 'VAR_OUTPUT', decls: [{ name: 'Q', type: 'BOOL' }] }, { section: 'VAR_IN_OUT', decls: [{ name: 'IO', type: 'BOOL' }] }],
+      body: [{ k: 'assign', target: 'IO', value: io }, { k: 'assign', target: 'Q', value: bodies[1]! }],
+    };
+    out.push(
+      { k: 'assign', target: y0, value: before },
+      { k: 'call', inst, inputs: params, inOuts: [{ param: 'IO', target: y0 }], outputs: [] },
+      { k: 'assign', target: y1, value: { k: 'member', inst, field: 'Q' } },
+    );
   }
 
   finish(body: Stmt[]): Pou[] {
@@ -372,7 +402,14 @@ export function generateCase(seed: number): FuzzCase {
   const random = rng.chance(0.1);
   if (random) b.features.add('random');
   const body: Stmt[] = [];
-  spec.outputs.forEach((y, o) => b.emit(y, random ? b.randomExpr(3) : b.fromRows(o), body));
+  const targets = spec.outputs.map((y, o) => ({ y, f: random ? b.randomExpr(3) : b.fromRows(o) }));
+  for (let o = 0; o < targets.length; o++) {
+    const [t, next] = [targets[o]!, targets[o + 1]];
+    if (next && rng.chance(0.15)) {
+      b.emitPair(t.y, t.f, next.y, next.f, body);
+      o++;
+    } else b.emit(t.y, t.f, body);
+  }
   let pous = b.finish(body);
   if (rng.chance(0.12)) pous = inputAsConstant(rng, pous, b.features);
   if (rng.chance(0.3)) {

@@ -45,20 +45,32 @@ function firstOf(r: CaseResult): Contradiction | undefined {
   return r.contradictions[0];
 }
 
-function report(runSeed: number, c: FuzzCase, x: Contradiction, seconds: number): string {
-  const small = shrink(c, (d) => judge(d).contradictions.some((y) => y.kind === x.kind));
+interface Shrunk {
+  readonly small: FuzzCase;
+  readonly contradiction: Contradiction;
+  readonly cause: string;
+}
+
+/** The case shrunk while it fails the same way, its contradiction, and the construct it rests on. */
+function shrunk(c: FuzzCase, x: Contradiction, budget: number): Shrunk {
+  const small = shrink(c, (d) => judge(d).contradictions.some((y) => y.kind === x.kind), budget);
   const y = judge(small).contradictions.find((z) => z.kind === x.kind) ?? x;
   const expected = y.output ? expectedVerdicts(small.program, small.spec)[small.spec.outputs.indexOf(y.output)] : undefined;
-  const file = programFile(small.program);
+  return { small, contradiction: y, cause: causeOf(small, y, expected) };
+}
+
+function report(runSeed: number, c: FuzzCase, s: Shrunk, seconds: number): string {
+  const y = s.contradiction;
+  const file = programFile(s.small.program);
   return [
     '',
-    `CONTRADICTION (${y.kind}) after ${seconds.toFixed(1)} s: ${causeOf(small, y, expected)}`,
+    `CONTRADICTION (${y.kind}) after ${seconds.toFixed(1)} s: ${s.cause}`,
     `  run seed ${runSeed}, case ${c.seed} (replay: npm run fuzz -- --case ${c.seed})`,
     y.output ? `  output ${y.output}` : '',
     `  product:     ${y.product}`,
     `  interpreter: ${y.interpreter}`,
     '  spec table (shrunk):',
-    specText(small.spec).replace(/^/gm, '    '),
+    specText(s.small.spec).replace(/^/gm, '    '),
     `  program (shrunk), ${file.name}:`,
     file.text.replace(/^/gm, '    '),
   ]
@@ -84,7 +96,7 @@ function main(): number {
       console.log('1 programs checked, 0 contradictions');
       return 0;
     }
-    console.log(report(opts.caseSeed, c, x, elapsed()));
+    console.log(report(opts.caseSeed, c, shrunk(c, x, 4000), elapsed()));
     return 1;
   }
   console.log(`fuzz: run seed ${opts.seed}, ${opts.seconds} s${opts.keepGoing ? ', keep going' : ''} (replay: npm run fuzz -- --seed ${opts.seed})`);
@@ -109,18 +121,18 @@ function main(): number {
     if (!x) continue;
     contradictions++;
     if (!opts.keepGoing) {
-      console.log(report(opts.seed, c, x, elapsed()));
+      console.log(report(opts.seed, c, shrunk(c, x, 4000), elapsed()));
       console.log(`\n${checked} programs checked, 1 contradiction (run seed ${opts.seed})`);
       return 1;
     }
-    const small = shrink(c, (d) => judge(d).contradictions.some((y) => y.kind === x.kind), 200);
-    const y = judge(small).contradictions.find((z) => z.kind === x.kind) ?? x;
-    const cause = `${causeOf(small, y, y.output ? expectedVerdicts(small.program, small.spec)[small.spec.outputs.indexOf(y.output)] : undefined)} [${y.kind}]`;
+    // A small budget: enough to tell the cause; each cause is printed once.
+    const s = shrunk(c, x, 200);
+    const cause = `${s.cause} [${s.contradiction.kind}]`;
     const seen = causes.get(cause);
     if (seen) seen.count++;
     else {
       causes.set(cause, { seconds: checking, cases: checked, count: 1 });
-      console.log(report(opts.seed, c, x, elapsed()));
+      console.log(report(opts.seed, c, s, elapsed()));
     }
   }
   const tally = [...verdicts].map(([v, n]) => `${n} ${v}`).join(', ');
