@@ -59,13 +59,13 @@ function shrunk(c: FuzzCase, x: Contradiction, budget: number): Shrunk {
   return { small, contradiction: y, cause: causeOf(small, y, expected) };
 }
 
-function report(runSeed: number, c: FuzzCase, s: Shrunk, seconds: number): string {
+function report(runSeed: number | undefined, c: FuzzCase, s: Shrunk, seconds: number): string {
   const y = s.contradiction;
   const file = programFile(s.small.program);
   return [
     '',
     `CONTRADICTION (${y.kind}) after ${seconds.toFixed(1)} s: ${s.cause}`,
-    `  run seed ${runSeed}, case ${c.seed} (replay: npm run fuzz -- --case ${c.seed})`,
+    `  ${runSeed === undefined ? '' : `run seed ${runSeed}, `}case ${c.seed} (replay: npm run fuzz -- --case ${c.seed})`,
     y.output ? `  output ${y.output}` : '',
     `  product:     ${y.product}`,
     `  interpreter: ${y.interpreter}`,
@@ -96,7 +96,7 @@ function main(): number {
       console.log('1 programs checked, 0 contradictions');
       return 0;
     }
-    console.log(report(opts.caseSeed, c, shrunk(c, x, 4000), elapsed()));
+    console.log(report(undefined, c, shrunk(c, x, 4000), elapsed()));
     return 1;
   }
   console.log(`fuzz: run seed ${opts.seed}, ${opts.seconds} s${opts.keepGoing ? ', keep going' : ''} (replay: npm run fuzz -- --seed ${opts.seed})`);

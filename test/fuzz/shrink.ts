@@ -26,6 +26,8 @@ function mentioned(pous: readonly Pou[]): Set<string> {
       else if (s.k === 'case') (names.add(low(s.selector)), s.arms.forEach((a) => stmts(a.body)));
       else if (s.k === 'call') {
         names.add(low(s.inst));
+        // The block's parameters a call names stay declared in the block.
+        [...s.inputs, ...s.inOuts, ...s.outputs].forEach((a) => names.add(low(a.param)));
         s.inputs.forEach((a) => a.value.k !== 'literal' && e(a.value));
         s.inOuts.forEach((a) => names.add(low(a.target)));
         s.outputs.forEach((a) => names.add(low(a.target)));
@@ -72,6 +74,7 @@ function* smallerStmts(list: readonly Stmt[]): Generator<Stmt[]> {
         for (const value of smallerExprs(v)) yield put([{ ...s, inputs: s.inputs.map((x, j) => (j === a ? { ...x, value } : x)) }]);
       }
       for (let a = 0; a < s.outputs.length; a++) yield put([{ ...s, outputs: s.outputs.filter((_, j) => j !== a) }]);
+      for (let a = 0; a < s.inputs.length; a++) yield put([{ ...s, inputs: s.inputs.filter((_, j) => j !== a) }]);
     }
   }
 }
@@ -106,10 +109,10 @@ function* smallerPrograms(p: Program): Generator<Program> {
     for (let a = 0; a < pou.actions.length; a++) {
       for (const body of smallerStmts(pou.actions[a]!.body)) yield with_({ ...pou, actions: pou.actions.map((x, j) => (j === a ? { ...x, body } : x)) });
     }
-    // Declarations nothing mentions (a PROGRAM's inputs and outputs stay: the spec names them).
+    // Declarations nothing mentions (a PROGRAM's inputs stay: the spec names them).
     for (let b = 0; b < pou.blocks.length; b++) {
       const block = pou.blocks[b]!;
-      if (i === main && (block.section === 'VAR_INPUT' || block.section === 'VAR_OUTPUT')) continue;
+      if (i === main && block.section === 'VAR_INPUT') continue;
       for (const d of block.decls) {
         if (used.has(low(d.name))) continue;
         const decls = block.decls.filter((x) => x !== d);
