@@ -96,7 +96,8 @@ function main(): number {
       console.log('1 programs checked, 0 contradictions');
       return 0;
     }
-    console.log(report(undefined, c, shrunk(c, x, 4000), elapsed()));
+    const at = elapsed();
+    console.log(report(undefined, c, shrunk(c, x, 4000), at));
     return 1;
   }
   console.log(`fuzz: run seed ${opts.seed}, ${opts.seconds} s${opts.keepGoing ? ', keep going' : ''} (replay: npm run fuzz -- --seed ${opts.seed})`);
@@ -121,7 +122,8 @@ function main(): number {
     if (!x) continue;
     contradictions++;
     if (!opts.keepGoing) {
-      console.log(report(opts.seed, c, shrunk(c, x, 4000), elapsed()));
+      const at = elapsed();
+      console.log(report(opts.seed, c, shrunk(c, x, 4000), at));
       console.log(`\n${checked} programs checked, 1 contradiction (run seed ${opts.seed})`);
       return 1;
     }
@@ -132,7 +134,7 @@ function main(): number {
     if (seen) seen.count++;
     else {
       causes.set(cause, { seconds: checking, cases: checked, count: 1 });
-      console.log(report(opts.seed, c, s, elapsed()));
+      console.log(report(opts.seed, c, s, checking));
     }
   }
   const tally = [...verdicts].map(([v, n]) => `${n} ${v}`).join(', ');
