@@ -35,18 +35,24 @@ export async function loadTables(file: string, choice: SpecChoice, progress: Pro
   if (!opened.ok) return fail(opened.error.message);
   const host = opened.value;
   const names = await host.listSheets();
+  // A --range may name one of the workbook's Excel tables, which brings its sheet.
+  if (choice.range !== undefined) {
+    const resolved = host.resolveRange(choice.range, choice.sheet);
+    if (!resolved.ok) return fail(`--range ${choice.range}: ${resolved.error}`);
+    choice = { ...choice, ...resolved.value };
+  }
   if (choice.sheet !== undefined && !names.includes(choice.sheet))
     return fail(`${file}: no sheet named "${choice.sheet}" (sheets: ${names.join(', ')})`);
   if (choice.range !== undefined && choice.sheet === undefined && names.length > 1)
     return fail(`--range needs --sheet: ${file} has ${names.length} sheets`);
   const sheets = choice.sheet !== undefined ? [choice.sheet] : names;
   const tables: SpecTable[] = [];
-  const otherProblems: Problem[] = [];
+  // Hidden sheets, damaged parts, sheets not read: problems of the file, beside the tables.
+  const otherProblems: Problem[] = host.fileProblems().filter((p) => sheets.includes(p.sheet));
   for (const sheet of sheets) {
-    const tooLarge = host.sheetProblem(sheet);
-    if (tooLarge) {
-      if (choice.sheet !== undefined) return fail(`${file}: ${tooLarge}`);
-      otherProblems.push({ severity: 'warning', code: 'sheet-not-read', sheet, cell: 'A1', message: `not read: ${tooLarge}` });
+    const notRead = host.sheetProblem(sheet);
+    if (notRead) {
+      if (choice.sheet !== undefined) return fail(`${file}: ${notRead}`);
       continue;
     }
     const read = readSpecTables(await host.readGrid(sheet), specOptions(choice));

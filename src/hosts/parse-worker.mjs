@@ -11,7 +11,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import XLSX from 'xlsx';
 import { attributes, columnName, encodeCell, MAX_ROWS, partText, scanSheet, sheetTables, workbookFacts } from './package-facts.mjs';
-import { readZip, storedZip } from './zip-package.mjs';
+import { readZip, zipOf } from './zip-package.mjs';
 
 /**
  * job:
@@ -255,7 +255,7 @@ async function grids(job) {
     if (facts.sheets.some((s) => s.part === name)) continue;
     problems.push({ severity: 'warning', code: 'damaged-part', sheet: facts.sheets[0]?.name ?? '', cell: 'A1', message: `part ${name} is damaged (${why}); it is not used for reading and not copied to results` });
   }
-  const book = readBook(storedZip(forSheetJs), { dense: true, cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
+  const book = readBook(zipOf(forSheetJs), { dense: true, cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
   const tables = [];
   const sheets = facts.sheets.map((s) => {
     if (s.state !== 'visible')
@@ -275,7 +275,7 @@ async function grids(job) {
 async function append(job) {
   const { parts, damaged, facts } = await openPackage(job.bytes, job.budget);
   for (const s of facts.sheets) if (s.part && damaged.has(s.part)) throw new Refused(`part ${s.part} (sheet "${s.name}") is damaged: ${damaged.get(s.part)}`);
-  const book = readBook(storedZip(partsForSheetJs(parts, facts)), { cellNF: true, cellFormula: true, cellStyles: true });
+  const book = readBook(zipOf(partsForSheetJs(parts, facts)), { cellNF: true, cellFormula: true, cellStyles: true });
   for (const { name, sheet } of job.sheets) XLSX.utils.book_append_sheet(book, sheet, name);
   const out = XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true });
   return { ok: true, bytes: new Uint8Array(out) };

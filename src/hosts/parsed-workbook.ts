@@ -9,6 +9,7 @@ import { parseCsv } from '../spec/csv.js';
 import { cellAddress, intersectRanges, parseRange, restrictGrid } from '../spec/grid.js';
 import type { CellValue, Grid, Problem, Severity } from '../spec/types.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
+import type { ZipBudget } from './zip-package.mjs';
 import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
 
 export type FileKind = 'workbook' | 'csv';
@@ -51,11 +52,7 @@ export interface FileRead {
 export type RunParseJob = (job: Record<string, unknown>, bytes: Uint8Array) => Promise<Result<unknown>>;
 
 /** How far a package may unpack (zip-package.mjs): per part, in all, and its ratio to the packed size. */
-export interface UnpackBudget {
-  readonly maxEntryBytes: number;
-  readonly maxTotalBytes: number;
-  readonly maxRatio: number;
-}
+export type UnpackBudget = ZipBudget;
 
 const ERROR_NAMES: Record<number, string> = Object.fromEntries(Object.entries(ERROR_CODES).map(([name, code]) => [code, name]));
 

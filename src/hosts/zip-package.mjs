@@ -62,7 +62,7 @@ async function inflateRaw(data, limit) {
 }
 
 function megabytes(n) {
-  return `${Math.round((n / (1024 * 1024)) * 10) / 10} MB`;
+  return n < 1024 * 1024 ? `${n.toLocaleString('en-US')} bytes` : `${Math.round((n / (1024 * 1024)) * 10) / 10} MB`;
 }
 
 /**
@@ -160,40 +160,40 @@ export async function readZip(bytes, budget) {
 }
 
 /**
- * A zip package of the entries, stored without compression (APPNOTE method 0), UTF-8 names.
- * @param {{ name: string, data: Uint8Array }[]} entries
+ * A zip package of the entries, UTF-8 names: stored (APPNOTE method 0), or with `deflated` given,
+ * those bytes as the entry's deflate data (method 8) recorded with `data`'s size and CRC-32.
+ * @param {{ name: string, data: Uint8Array, deflated?: Uint8Array }[]} entries
  * @returns {Uint8Array}
  */
-export function storedZip(entries) {
-  const encoded = entries.map((e) => ({ name: new TextEncoder().encode(e.name), data: e.data, crc: crc32(e.data) }));
-  const localSize = encoded.reduce((n, e) => n + 30 + e.name.length + e.data.length, 0);
+export function zipOf(entries) {
+  const encoded = entries.map((e) => ({ name: new TextEncoder().encode(e.name), size: e.data.length, packed: e.deflated ?? e.data, method: e.deflated ? 8 : 0, crc: crc32(e.data) }));
+  const localSize = encoded.reduce((n, e) => n + 30 + e.name.length + e.packed.length, 0);
   const centralSize = encoded.reduce((n, e) => n + 46 + e.name.length, 0);
   const out = new Uint8Array(localSize + centralSize + 22);
   const view = new DataView(out.buffer);
   let at = 0;
   const offsets = [];
+  const common = (e, base) => {
+    view.setUint16(base, 20, true);
+    view.setUint16(base + 2, 0x0800, true);
+    view.setUint16(base + 4, e.method, true);
+    view.setUint32(base + 10, e.crc, true);
+    view.setUint32(base + 14, e.packed.length, true);
+    view.setUint32(base + 18, e.size, true);
+    view.setUint16(base + 22, e.name.length, true);
+  };
   for (const e of encoded) {
     offsets.push(at);
     view.setUint32(at, SIG_LOCAL, true);
-    view.setUint16(at + 4, 20, true);
-    view.setUint16(at + 6, 0x0800, true);
-    view.setUint32(at + 14, e.crc, true);
-    view.setUint32(at + 18, e.data.length, true);
-    view.setUint32(at + 22, e.data.length, true);
-    view.setUint16(at + 26, e.name.length, true);
+    common(e, at + 4);
     out.set(e.name, at + 30);
-    out.set(e.data, at + 30 + e.name.length);
-    at += 30 + e.name.length + e.data.length;
+    out.set(e.packed, at + 30 + e.name.length);
+    at += 30 + e.name.length + e.packed.length;
   }
   encoded.forEach((e, i) => {
     view.setUint32(at, SIG_CENTRAL, true);
     view.setUint16(at + 4, 20, true);
-    view.setUint16(at + 6, 20, true);
-    view.setUint16(at + 8, 0x0800, true);
-    view.setUint32(at + 16, e.crc, true);
-    view.setUint32(at + 20, e.data.length, true);
-    view.setUint32(at + 24, e.data.length, true);
-    view.setUint16(at + 28, e.name.length, true);
+    common(e, at + 6);
     view.setUint32(at + 42, offsets[i], true);
     out.set(e.name, at + 46);
     at += 46 + e.name.length;
