@@ -195,7 +195,7 @@ function FileSource({
             <SheetSelect sheets={sheets} sheet={sheet} setSheet={setSheet} />
             <label>
               Range (optional)
-              <input type="text" value={range} placeholder="A3:H13" size={9} onInput={(e) => setRange((e.currentTarget as HTMLInputElement).value)} />
+              <input type="text" value={range} placeholder="A3:H13 or table" size={12} onInput={(e) => setRange((e.currentTarget as HTMLInputElement).value)} />
             </label>
           </div>
           <button
@@ -203,7 +203,13 @@ function FileSource({
             disabled={busy || !sheet}
             onClick={() => {
               const r = range.trim();
-              read(async () => ({ grid: await file.readGrid(sheet), label: r ? `${qualifiedAddress(sheet, r)}` : `sheet ${sheet}`, ...(r ? { range: r } : {}) }));
+              read(async () => {
+                // The range may name an Excel table of the workbook, which brings its own sheet.
+                const at = r ? file.resolveRange(r) : undefined;
+                if (at && !at.ok) throw new Error(at.error);
+                const on = at?.value.sheet ?? sheet;
+                return { grid: await file.readGrid(on), label: at ? `${qualifiedAddress(on, at.value.range)}` : `sheet ${sheet}`, ...(at ? { range: at.value.range } : {}) };
+              });
             }}
           >
             Find and analyse spec tables

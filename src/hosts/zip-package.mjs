@@ -152,7 +152,7 @@ export async function readZip(bytes, budget) {
       entries.push({ name: h.name, damaged: `it is compressed with method ${h.method}, which workbooks do not use` });
       continue;
     }
-    if (data === undefined || data.length !== h.size) entries.push({ name: h.name, damaged: `it does not unpack to the ${h.size} bytes its header records` });
+    if (data === undefined || data.length !== h.size) entries.push({ name: h.name, damaged: `it does not unpack to the ${h.size.toLocaleString('en-US')} bytes its header records` });
     else if (crc32(data) !== h.crc) entries.push({ name: h.name, damaged: 'its CRC-32 does not match its bytes' });
     else entries.push({ name: h.name, data });
   }
