@@ -21,22 +21,30 @@ export function partText(parts, name) {
 const ENTITIES = { amp: '&', lt: '<', gt: '>', quot: '"', apos: "'" };
 
 function unescapeXml(text) {
+  if (!text.includes('&')) return text;
   return text.replace(/&(#x[0-9a-fA-F]+|#[0-9]+|amp|lt|gt|quot|apos);/g, (_, e) =>
     e[0] === '#' ? String.fromCodePoint(e[1] === 'x' ? parseInt(e.slice(2), 16) : parseInt(e.slice(1), 10)) : ENTITIES[e],
   );
 }
 
 /** The attributes of one tag's text, local names (a prefix such as r: dropped), values unescaped. */
+const ATTRIBUTE = /([A-Za-z_][\w.-]*:)?([A-Za-z_][\w.-]*)\s*=\s*(?:"([^"]*)"|'([^']*)')/g;
+
 export function attributes(tagText) {
   const out = Object.create(null);
-  for (const m of tagText.matchAll(/([A-Za-z_][\w.-]*:)?([A-Za-z_][\w.-]*)\s*=\s*(?:"([^"]*)"|'([^']*)')/g)) out[m[2]] = unescapeXml(m[3] ?? m[4] ?? '');
+  ATTRIBUTE.lastIndex = 0;
+  for (let m; (m = ATTRIBUTE.exec(tagText)); ) out[m[2]] = unescapeXml(m[3] ?? m[4] ?? '');
   return out;
 }
 
 /** Every start tag of the given local names: [name, attribute text, self-closing, index after the tag]. */
+function tagPattern(names) {
+  return new RegExp(`<(?:[A-Za-z_][\\w.-]*:)?(${names.join('|')})(?=[\\s/>])([^<>]*?)(/?)>`, 'g');
+}
+
 function* tags(xml, names) {
-  const re = new RegExp(`<(?:[A-Za-z_][\\w.-]*:)?(${names.join('|')})(?=[\\s/>])([^<>]*?)(/?)>`, 'g');
-  for (const m of xml.matchAll(re)) yield [m[1], m[2], m[3] === '/', m.index + m[0].length];
+  const re = tagPattern(names);
+  for (let m; (m = re.exec(xml)); ) yield [m[1], m[2], m[3] === '/', re.lastIndex];
 }
 
 /** A relationship target resolved against the folder of the part that names it. */
@@ -159,7 +167,13 @@ export function scanSheet(xml, cell) {
     open = undefined;
     valueAt = -1;
   };
-  for (const [name, text, closed, after] of tags(xml, ['row', 'c', 'col', 'f', 'v', 'is', 'mergeCell'])) {
+  // The loop of tags() written out: this runs once per cell of every sheet.
+  const re = tagPattern(['row', 'c', 'col', 'f', 'v', 'is', 'mergeCell']);
+  for (let m; (m = re.exec(xml)); ) {
+    const name = m[1];
+    const text = m[2];
+    const closed = m[3] === '/';
+    const after = re.lastIndex;
     if (name === 'row' || name === 'c') finish();
     const a = name === 'f' || name === 'v' || name === 'is' ? undefined : attributes(text);
     if (name === 'row') {
