@@ -77,6 +77,8 @@ async function openPackage(bytes, budget) {
     else damaged.set(e.name, e.damaged);
   }
   const facts = workbookFacts(parts);
+  // Our XML checks would see nothing in binary parts: nothing read may go unchecked.
+  if (facts && !/\.xml$/i.test(facts.main)) throw new Refused(`the workbook is in the binary format (part ${facts.main}); save it as an .xlsx workbook`);
   if (!facts) {
     const main = [...damaged.keys()].find((n) => /workbook\.xml$/i.test(n));
     throw new Refused(main ? `part ${main} is damaged: ${damaged.get(main)}` : 'the zip package holds no workbook part (not an .xlsx workbook)');

@@ -86,7 +86,7 @@ describe('a damaged or unsafe package is refused with its reason', () => {
     expect(await refusal(bytes)).toMatch(/: its local header names "[^"]+" \(damaged file\)/);
   });
 
-  it('an encrypted entry, a truncated file, a zip that is no workbook and a password-protected workbook', async () => {
+  it('an encrypted entry, a truncated file, a zip that is no workbook, a binary workbook and a password-protected one', async () => {
     const bytes = workbook({ Purge: AND_TABLE });
     const encrypted = bytes.slice();
     const view = new DataView(encrypted.buffer);
@@ -96,6 +96,9 @@ describe('a damaged or unsafe package is refused with its reason', () => {
     expect(await refusal(bytes.subarray(0, bytes.length - 100))).toMatch(/truncated or damaged/);
     const notes = zipOf([{ name: 'notes.txt', data: new TextEncoder().encode('hello') }]);
     expect(await refusal(notes)).toMatch(/holds no workbook part/);
+    const parts = await partsOf(bytes);
+    const binary = patch(put(parts, 'xl/workbook.bin', 'binary'), '_rels/.rels', (x) => x.replace('Target="xl/workbook.xml"', 'Target="xl/workbook.bin"'));
+    expect(await refusal(pack(binary))).toMatch(/the workbook is in the binary format \(part xl\/workbook\.bin\)/);
     const ole = new Uint8Array([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1, 0, 0]);
     expect(await refusal(ole)).toMatch(/encrypted \(password-protected\) or an old \.xls file/);
   });
