@@ -2,9 +2,11 @@
 // SheetJS parses the file only inside a Web Worker that runs the file host's own parsing
 // worker (parse-worker.mjs), one job per worker, stopped after a time limit; plain grids come
 // back and are checked cell by cell (parsed-workbook.ts, shared with the command line). CSV
-// text goes through our own parser (csv.ts), in that worker too (the page stays responsive). Results are new sheets of a copy of the
-// workbook, offered as a download: the user's file is never changed.
+// text goes through our own parser (csv.ts), in that worker too (the page stays responsive).
+// Results are new sheets added to a copy of the workbook's package (xlsx-package.ts), offered
+// as a download: the user's file is never changed.
 import { fail, ok, type Result } from '../logic/result.js';
+import { inflateRawWeb } from './zip-package.mjs';
 import { fileKind, ParsedWorkbook, readSheets, type FileKind, type FileRead, type RunParseJob, type UnpackBudget } from './parsed-workbook.js';
 
 export interface BrowserFileOptions {
@@ -52,7 +54,6 @@ export class BrowserFileHost extends ParsedWorkbook {
     kind: FileKind,
     private readonly source: Uint8Array,
     read: FileRead,
-    private readonly options: BrowserFileOptions,
   ) {
     super(fileName, kind, read);
   }
@@ -64,7 +65,7 @@ export class BrowserFileHost extends ParsedWorkbook {
 
   /** The file's sheets followed by the queued ones, as .xlsx bytes. */
   resultsWorkbook(): Promise<Result<Uint8Array>> {
-    return this.resultsBytes(async () => ok(this.source), jobRunner(this.options, this.fileName), this.options.budget ?? BROWSER_DEFAULTS.budget);
+    return this.resultsBytes(async () => ok(this.source), inflateRawWeb);
   }
 }
 
@@ -77,5 +78,5 @@ export async function openBrowserFile(fileName: string, bytes: Uint8Array, optio
   // CSV is parsed in the worker too: a large file must not freeze the page.
   const limits = { maxCells: options.maxCells ?? BROWSER_DEFAULTS.maxCells, budget: options.budget ?? BROWSER_DEFAULTS.budget, csvInWorker: true };
   const read = await readSheets(fileName, fileName, kind, bytes, limits, jobRunner(options, fileName));
-  return read.ok ? ok(new BrowserFileHost(fileName, kind, bytes, read.value, options)) : read;
+  return read.ok ? ok(new BrowserFileHost(fileName, kind, bytes, read.value)) : read;
 }

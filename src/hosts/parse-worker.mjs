@@ -7,17 +7,17 @@
 // macros: what SheetJS would carry from them cannot reach a sheet), and the prototypes of this
 // realm are frozen, so that a crafted key such as "__proto__" cannot add to them. Only plain
 // grids of numbers, booleans, strings, nulls, {error} and {date} and plain problems go back.
+// (Results are written without SheetJS, at the package level: xlsx-package.ts.)
 // Plain JavaScript importing only xlsx and our two .mjs helpers, so node, tsx and vitest run it as it is.
 import { parentPort, workerData } from 'node:worker_threads';
 import XLSX from 'xlsx';
 import { attributes, columnName, encodeCell, MAX_ROWS, partText, scanSheet, sheetTables, workbookFacts } from './package-facts.mjs';
-import { readZip, zipOf } from './zip-package.mjs';
+import { checkZip, storedEntry, writeZip } from './zip-package.mjs';
 
 /**
  * job:
  *   mode 'grids':  { bytes: Uint8Array, budget, maxCells, errorNames }
  *                  -> { ok, sheets: [{ name, origin, cells | tooLarge | damaged, merges, problems }], tables, problems }
- *   mode 'append': { bytes: Uint8Array, budget, sheets: [{ name, sheet }] } -> { ok, bytes: Uint8Array }
  *   budget: { maxEntryBytes, maxTotalBytes, maxRatio } (zip-package.mjs)
  *   testHook: 'pollute-prototype' | 'never-finish' | 'exhaust-heap' | 'crash' (tests of the isolation only)
  * A failure is { ok: false, message }.
@@ -68,11 +68,11 @@ function partsForSheetJs(parts, facts) {
 
 /** The checked package: parts by name, damaged ones apart; refused when it cannot be a workbook. */
 async function openPackage(bytes, budget) {
-  const zip = await readZip(bytes, budget);
-  if (!zip.ok) throw new Refused(zip.reason);
+  const zip = await checkZip(bytes, budget);
+  if (!zip.ok) throw new Refused(zip.error.message);
   const parts = new Map();
   const damaged = new Map();
-  for (const e of zip.entries) {
+  for (const e of zip.value) {
     if (e.data) parts.set(e.name, e.data);
     else damaged.set(e.name, e.damaged);
   }
@@ -257,7 +257,7 @@ async function grids(job) {
     if (facts.sheets.some((s) => s.part === name)) continue;
     problems.push({ severity: 'warning', code: 'damaged-part', sheet: facts.sheets[0]?.name ?? '', cell: 'A1', message: `part ${name} is damaged (${why}); it is not used for reading and not copied to results` });
   }
-  const book = readBook(zipOf(forSheetJs), { dense: true, cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
+  const book = readBook(writeZip(forSheetJs.map((p) => storedEntry(p.name, p.data))), { dense: true, cellNF: true, cellFormula: false, cellHTML: false, cellText: false });
   const tables = [];
   const sheets = facts.sheets.map((s) => {
     if (s.state !== 'visible')
@@ -273,20 +273,10 @@ async function grids(job) {
   return { ok: true, sheets, tables, problems };
 }
 
-/** The source workbook's sheets as SheetJS keeps them, with our sheets added after its own. */
-async function append(job) {
-  const { parts, damaged, facts } = await openPackage(job.bytes, job.budget);
-  for (const s of facts.sheets) if (s.part && damaged.has(s.part)) throw new Refused(`part ${s.part} (sheet "${s.name}") is damaged: ${damaged.get(s.part)}`);
-  const book = readBook(zipOf(partsForSheetJs(parts, facts)), { cellNF: true, cellFormula: true, cellStyles: true });
-  for (const { name, sheet } of job.sheets) XLSX.utils.book_append_sheet(book, sheet, name);
-  const out = XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true });
-  return { ok: true, bytes: new Uint8Array(out) };
-}
-
 async function answer(job) {
   try {
     runTestHook(job.testHook);
-    return await (job.mode === 'append' ? append(job) : grids(job));
+    return await grids(job);
   } catch (e) {
     const message = e instanceof Refused ? e.message : `not a workbook that can be read (${e instanceof Error ? e.message : String(e)})`;
     return { ok: false, message };
@@ -295,8 +285,7 @@ async function answer(job) {
 
 if (parentPort) {
   // A worker (the page's Web Worker through worker-threads-shim.ts): the job came as workerData.
-  const a = await answer(workerData);
-  parentPort.postMessage(a, a.bytes ? [a.bytes.buffer] : []);
+  parentPort.postMessage(await answer(workerData));
 } else {
   // A child process (file-host.ts): one job over the IPC channel, then exit.
   process.once('message', async (job) => {

@@ -2,10 +2,7 @@
 // never a stack trace, never a verdict stronger than what was read.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { deflateRawSync } from 'node:zlib';
-import XLSX from 'xlsx';
 import { describe, expect, it } from 'vitest';
-import { zipOf } from '../../src/hosts/zip-package.mjs';
 import { AND_TABLE, pack, partsOf, patch, put, saved, workbook } from '../hosts/packages.js';
 import { runCli, scratch } from './run-cli.js';
 
@@ -40,7 +37,7 @@ describe('analyze on damaged and crafted workbooks', () => {
     const parts = await partsOf(workbook({ Purge: AND_TABLE }));
     const original = parts.get(SHEET1)!;
     const flipped = patch(parts, SHEET1, (x) => x.replace('<c r="C6"><v>1</v></c>', '<c r="C6"><v>0</v></c>'));
-    const path = saved('flip.xlsx', zipOf([...flipped].map(([name, data]) => ({ name, data: name === SHEET1 ? original : data, deflated: deflateRawSync(data) }))));
+    const path = saved('flip.xlsx', pack(flipped, { [SHEET1]: original }));
     const all = await runCli('analyze', path, '--json');
     expect(all.code).toBe(1);
     expect(allProblems(all.out)).toEqual([expect.objectContaining({ severity: 'error', code: 'damaged-part', sheet: 'Purge' })]);
@@ -126,13 +123,14 @@ describe('a crafted comment (CVE-2023-30533) cannot reach our process or our she
     expect(run.code).toBe(0);
     expect(Object.getOwnPropertyNames(Object.prototype)).not.toContain('c');
     expect(({} as Record<string, unknown>).c).toBeUndefined();
-    const written = XLSX.read(readFileSync(out));
-    expect(Object.getOwnPropertyNames(Object.prototype)).not.toContain('c');
-    expect(written.SheetNames.slice(1).length).toBe(2);
-    for (const name of written.SheetNames) {
-      const cells = Object.entries(written.Sheets[name]!).filter(([k]) => !k.startsWith('!'));
-      expect(cells.filter(([, c]) => (c as XLSX.CellObject).c !== undefined), name).toEqual([]);
+    // Read back with our own zip reader: SheetJS 0.18.5 would be polluted by the user's part again.
+    const written = partsOf(new Uint8Array(readFileSync(out)));
+    const ours = [...written.keys()].filter((n) => /^xl\/worksheets\/sheet\d+\.xml$/.test(n) && !parts.has(n));
+    expect(ours).toHaveLength(2);
+    for (const sheet of ours) {
+      const rels = written.get(sheet.replace('worksheets/', 'worksheets/_rels/') + '.rels');
+      expect(rels === undefined ? '' : new TextDecoder().decode(rels), sheet).not.toMatch(/comments/);
+      expect(new TextDecoder().decode(written.get(sheet)), sheet).not.toMatch(/attacker text|legacyDrawing/);
     }
-    expect([...(await partsOf(new Uint8Array(readFileSync(out)))).keys()].filter((n) => /comment/i.test(n))).toEqual([]);
   });
 });

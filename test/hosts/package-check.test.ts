@@ -1,13 +1,12 @@
 // Workbook packages are checked before SheetJS sees them, and nothing it skips is lost
 // silently: every case is a small workbook made here, then damaged or crafted by hand.
-import { deflateRawSync } from 'node:zlib';
 import XLSX from 'xlsx';
 import { describe, expect, it } from 'vitest';
 import { openFile, type FileHostOptions } from '../../src/hosts/file-host.js';
-import { crc32, readZip, zipOf } from '../../src/hosts/zip-package.mjs';
+import { checkZip, crc32, storedEntry, writeZip } from '../../src/hosts/zip-package.mjs';
 import { readSpecTables } from '../../src/spec/read-tables.js';
 import type { Problem } from '../../src/spec/types.js';
-import { AND_TABLE, pack, partsOf, patch, put, saved, workbook } from './packages.js';
+import { AND_TABLE, deflatedEntry, pack, partsOf, patch, put, saved, workbook } from './packages.js';
 
 const SHEET1 = 'xl/worksheets/sheet1.xml';
 
@@ -32,8 +31,8 @@ describe('the zip reader', () => {
 
   it('reads back what it packed, stored or deflated', async () => {
     const data = new TextEncoder().encode('<a>'.repeat(1000));
-    const zip = await readZip(zipOf([{ name: 's.xml', data }, { name: 'd.xml', data, deflated: deflateRawSync(data) }]), { maxEntryBytes: 1e6, maxTotalBytes: 1e6, maxRatio: 1000 });
-    expect(zip.ok && zip.entries.map((e) => [e.name, e.data?.length])).toEqual([['s.xml', 3000], ['d.xml', 3000]]);
+    const zip = await checkZip(writeZip([storedEntry('s.xml', data), deflatedEntry('d.xml', data)]), { maxEntryBytes: 1e6, maxTotalBytes: 1e6, maxRatio: 1000 });
+    expect(zip.ok && zip.value.map((e) => [e.name, e.data?.length])).toEqual([['s.xml', 3000], ['d.xml', 3000]]);
   });
 });
 
@@ -43,7 +42,7 @@ describe('a damaged or unsafe package is refused with its reason', () => {
     const good = parts.get(SHEET1)!;
     const flipped = patch(parts, SHEET1, (x) => x.replace('<c r="C6"><v>1</v></c>', '<c r="C6"><v>0</v></c>'));
     // The bytes of the flipped cell under the CRC-32 of the original: a damaged file.
-    const bytes = zipOf([...flipped].map(([name, data]) => ({ name, data: name === SHEET1 ? good : data, deflated: deflateRawSync(data) })));
+    const bytes = pack(flipped, { [SHEET1]: good });
     const host = await opened(bytes);
     expect(host.sheetProblem('Purge')).toMatch(/part xl\/worksheets\/sheet1\.xml is damaged: its CRC-32 does not match its bytes/);
     expect(host.fileProblems().map((p) => ({ ...brief(p), sheet: p.sheet }))).toEqual([{ severity: 'error', code: 'damaged-part', cell: 'A1', sheet: 'Purge' }]);
@@ -52,13 +51,13 @@ describe('a damaged or unsafe package is refused with its reason', () => {
   it('a part that unpacks to more than its header records is damaged', async () => {
     const parts = await partsOf(workbook({ Purge: AND_TABLE }));
     const sheet = parts.get(SHEET1)!;
-    const bytes = zipOf([...parts].map(([name, data]) => ({ name, data: name === SHEET1 ? sheet.subarray(0, 100) : data, deflated: deflateRawSync(data) })));
+    const bytes = pack(parts, { [SHEET1]: sheet.subarray(0, 100) });
     expect((await opened(bytes)).sheetProblem('Purge')).toMatch(/does not unpack to the 100 bytes its header records/);
   });
 
   it('a damaged workbook part makes the whole file unreadable', async () => {
     const parts = await partsOf(workbook({ Purge: AND_TABLE }));
-    const bytes = zipOf([...parts].map(([name, data]) => ({ name, data: name === 'xl/workbook.xml' ? data.map((b) => b ^ 1) : data, deflated: deflateRawSync(data) })));
+    const bytes = pack(parts, { 'xl/workbook.xml': parts.get('xl/workbook.xml')!.map((b) => b ^ 1) });
     expect(await refusal(bytes)).toMatch(/book\.xlsx: part xl\/workbook\.xml is damaged: its CRC-32 does not match/);
   });
 
@@ -94,7 +93,7 @@ describe('a damaged or unsafe package is refused with its reason', () => {
     view.setUint16(cd + 8, view.getUint16(cd + 8, true) | 1, true);
     expect(await refusal(encrypted)).toMatch(/the workbook is encrypted \(part .*\); save it without a password/);
     expect(await refusal(bytes.subarray(0, bytes.length - 100))).toMatch(/truncated or damaged/);
-    const notes = zipOf([{ name: 'notes.txt', data: new TextEncoder().encode('hello') }]);
+    const notes = writeZip([storedEntry('notes.txt', new TextEncoder().encode('hello'))]);
     expect(await refusal(notes)).toMatch(/holds no workbook part/);
     const parts = await partsOf(bytes);
     const binary = patch(put(parts, 'xl/workbook.bin', 'binary'), '_rels/.rels', (x) => x.replace('Target="xl/workbook.xml"', 'Target="xl/workbook.bin"'));

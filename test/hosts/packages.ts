@@ -2,11 +2,13 @@
 // parts, changed as a crafted or damaged file would be, and packed again (zip-package.mjs).
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { deflateRawSync } from 'node:zlib';
 import XLSX from 'xlsx';
-import { readZip, zipOf } from '../../src/hosts/zip-package.mjs';
+import { writeZip } from '../../src/hosts/zip-package.mjs';
 import type { CellValue } from '../../src/spec/types.js';
 import { scratch } from '../cli/run-cli.js';
+import { deflatedEntry } from './workbook-parts.js';
+
+export { deflatedEntry, partsOf } from './workbook-parts.js';
 
 export type Parts = Map<string, Uint8Array>;
 
@@ -28,14 +30,6 @@ export function workbook(sheets: Record<string, CellValue[][]>, shape: (book: XL
   return new Uint8Array(XLSX.write(book, { type: 'array', bookType: 'xlsx', bookSST: true, compression: true }) as ArrayBuffer);
 }
 
-const ANY = { maxEntryBytes: 2 ** 31, maxTotalBytes: 2 ** 31, maxRatio: 1e9 };
-
-export async function partsOf(bytes: Uint8Array): Promise<Parts> {
-  const zip = await readZip(bytes, ANY);
-  if (!zip.ok) throw new Error(zip.reason);
-  return new Map(zip.entries.map((e) => [e.name, e.data!]));
-}
-
 /** The part's text changed by `edit` (which must change it: a patch that misses is a broken test). */
 export function patch(parts: Parts, name: string, edit: (xml: string) => string): Parts {
   const before = new TextDecoder().decode(parts.get(name));
@@ -48,9 +42,9 @@ export function put(parts: Parts, name: string, xml: string): Parts {
   return new Map(parts).set(name, new TextEncoder().encode(xml));
 }
 
-/** The parts packed again, deflated as Excel does (node:zlib). */
-export function pack(parts: Parts): Uint8Array {
-  return zipOf([...parts].map(([name, data]) => ({ name, data, deflated: deflateRawSync(data) })));
+/** The parts packed again, deflated as Excel does; `recorded` may give an entry headers that lie about its bytes. */
+export function pack(parts: Parts, recorded: Readonly<Record<string, Uint8Array>> = {}): Uint8Array {
+  return writeZip([...parts].map(([name, data]) => deflatedEntry(name, data, recorded[name])));
 }
 
 /** Bytes written to a new file in a scratch folder; its path. */
