@@ -5,7 +5,7 @@ import { writeFileSync, mkdirSync } from 'node:fs';
 import { deflateSync } from 'node:zlib';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
-import { crc32 } from '../src/hosts/zip-package.js';
+import { crc32 } from '../src/hosts/zip-package.mjs';
 
 export const ICON_SIZES = [16, 32, 64, 80] as const;
 

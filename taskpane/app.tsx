@@ -188,7 +188,7 @@ function FileSource({
             <SheetSelect sheets={sheets} sheet={sheet} setSheet={setSheet} />
             <label>
               Range (optional)
-              <input type="text" value={range} placeholder="A3:H13" size={9} onInput={(e) => setRange((e.currentTarget as HTMLInputElement).value)} />
+              <input type="text" value={range} placeholder="A3:H13 or table" size={12} onInput={(e) => setRange((e.currentTarget as HTMLInputElement).value)} />
             </label>
           </div>
           <button
@@ -196,7 +196,13 @@ function FileSource({
             disabled={busy || !sheet}
             onClick={() => {
               const r = range.trim();
-              read(async () => ({ choice: { sheet, ...(r ? { range: r } : {}) }, label: r ? `${qualifiedAddress(sheet, r)}` : `sheet ${sheet}` }));
+              read(async () => {
+                // The range may name an Excel table of the workbook, which brings its own sheet.
+                const at = r ? file.resolveRange(r) : undefined;
+                if (at && !at.ok) throw new Error(at.error);
+                const on = at?.value.sheet ?? sheet;
+                return { choice: { sheet: on, ...(at ? { range: at.value.range } : {}) }, label: at ? `${qualifiedAddress(on, at.value.range)}` : `sheet ${sheet}` };
+              });
             }}
           >
             Find and analyse spec tables

@@ -47,7 +47,7 @@ export const USAGE = `Usage:
 
 Spec options:
   --sheet NAME            read only this sheet
-  --range A1:H20          read only this range (of --sheet, or of the only sheet)
+  --range A1:H20|TABLE    read only this range (of --sheet, or of the only sheet), or this Excel table
   --x-means-dont-care     read X cells as '-' (any / don't-care); otherwise an X is an error
   --inputs N              the first N signal columns are inputs, the rest outputs
   --safe NAME=0|1         an output's safe value (default 0); may be given more than once
@@ -113,7 +113,9 @@ function splitWords(argv: readonly string[], flags: Record<string, Kind>): Resul
 function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
   const one = (name: string): string | undefined => values.get(name)?.[0];
   const range = one('--range');
-  if (range !== undefined && !parseRange(range)) return fail(`--range "${range}" is not an A1 range such as A1:H20`);
+  // Otherwise the name of an Excel table, looked up once the file is open (load.ts).
+  if (range !== undefined && !parseRange(range) && !/^[A-Za-z_\\][\w.\\]*$/.test(range))
+    return fail(`--range "${range}" is not an A1 range such as A1:H20 (nor an Excel table name)`);
   const inputsText = one('--inputs');
   const inputs = inputsText === undefined ? undefined : Number(inputsText);
   if (inputs !== undefined && (!Number.isInteger(inputs) || inputs < 1)) return fail(`--inputs needs a whole number of at least 1, got "${inputsText}"`);

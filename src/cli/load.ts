@@ -48,7 +48,10 @@ export async function loadTables(file: string, choice: SpecChoice, progress: Pro
   const opened = await progress.during(`reading ${file}`, openFile(file, choice.timeLimitMs !== undefined ? { timeLimitMs: choice.timeLimitMs } : {}));
   if (!opened.ok) return fail(opened.error.message);
   const host = opened.value;
-  const wanted = workbookChoice(choice);
+  // A --range may name one of the workbook's Excel tables, which brings its sheet.
+  const resolved = choice.range !== undefined ? host.resolveRange(choice.range, choice.sheet) : undefined;
+  if (resolved && !resolved.ok) return fail(`--range ${choice.range}: ${resolved.error}`);
+  const wanted = workbookChoice(resolved ? { ...choice, ...resolved.value } : choice);
   const grids = await readGrids(host, wanted, file);
   if (!grids.ok) return fail(failureText(grids.error));
   const read = readTables(grids.value, wanted);

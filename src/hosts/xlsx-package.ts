@@ -9,7 +9,7 @@ import { cellAddress, parseA1 } from '../spec/grid.js';
 import type { CellValue } from '../spec/types.js';
 import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
 import { LOOKS, STATUS_LOOKS, type Look } from '../report/sheet-looks.js';
-import { readZip, storedEntry, writeZip, type ZipEntry } from './zip-package.js';
+import { readZip, storedEntry, writeZip, type ZipEntry } from './zip-package.mjs';
 
 /** Raw inflate of one entry, refusing output over `maxBytes` (the host's own, bounded). */
 export type InflateRaw = (data: Uint8Array, maxBytes: number) => Promise<Uint8Array>;

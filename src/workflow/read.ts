@@ -41,16 +41,19 @@ export async function readGrids(host: WorkbookHost, choice: WorkbookChoice, sour
     return fail({ code: 'no-sheet', subject: choice.sheet, message: `${source}: no sheet named "${choice.sheet}" (sheets: ${names.join(', ')})` });
   if (choice.range !== undefined && choice.sheet === undefined && names.length > 1)
     return fail({ code: 'range-needs-sheet', subject: choice.range, message: `${source} has ${names.length} sheets` });
+  const sheets = choice.sheet !== undefined ? [choice.sheet] : names;
   const grids: Grid[] = [];
-  const problems: Problem[] = [];
-  for (const sheet of choice.sheet !== undefined ? [choice.sheet] : names) {
+  // What the host found about the file and whole sheets (hidden, damaged, not read) comes first.
+  const problems: Problem[] = (host.fileProblems?.() ?? []).filter((p) => sheets.includes(p.sheet));
+  const lost = new Set(problems.filter((p) => p.severity === 'error').map((p) => p.sheet));
+  for (const sheet of sheets) {
     try {
       grids.push(await host.readGrid(sheet, choice.range));
     } catch (e) {
       // A host says why a sheet cannot be read by throwing (too large, refused by Excel).
       const why = e instanceof Error ? e.message : String(e);
       if (choice.sheet !== undefined) return fail({ code: 'sheet-not-read', subject: sheet, message: why });
-      problems.push({ severity: 'warning', code: 'sheet-not-read', sheet, cell: 'A1', message: `not read: ${why}` });
+      if (!lost.has(sheet)) problems.push({ severity: 'warning', code: 'sheet-not-read', sheet, cell: 'A1', message: `not read: ${why}` });
     }
   }
   return ok({ grids, problems });

@@ -326,6 +326,17 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     expect(st.includes(CAUTION_LINES[0]!), 'caution in the ST file');
     expect(st.includes('FUNCTION_BLOCK'), 'a FUNCTION_BLOCK in the ST file');
   });
+
+  await check('a CSV file is read in the page\'s worker: the sample analyses, a row of 2 million separators is an error', async () => {
+    await page.locator('input[type=file][accept*="xlsx"]').setInputFiles(join(ROOT, 'sample-workbooks/spindle-permit.csv'));
+    await page.getByText('Opened spindle-permit.csv').waitFor({ timeout: 20_000 });
+    await page.getByRole('button', { name: 'Find and analyse spec tables' }).click();
+    await page.locator('section.output').first().waitFor({ timeout: 60_000 });
+    const wide = join(work, 'wide.csv');
+    writeFileSync(wide, `${';'.repeat(2_000_000)}\n`);
+    await page.locator('input[type=file][accept*="xlsx"]').setInputFiles(wide);
+    await page.getByText('has 2,000,001 columns; at most 16,384').waitFor({ timeout: 20_000 });
+  });
 }
 
 /** What the page shows and does with one sheet of a workbook, as the command line's Outcome. */

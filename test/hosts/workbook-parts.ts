@@ -2,7 +2,7 @@
 // when it rebuilds a file: cell styles, merged cells, an Excel Table, defined names, data
 // validation and a comment. Made here from a few strings; no real customer file.
 import { deflateRawSync, inflateRawSync } from 'node:zlib';
-import { crc32, readZip, writeZip, type ZipEntry } from '../../src/hosts/zip-package.js';
+import { crc32, readZip, writeZip, type ZipEntry } from '../../src/hosts/zip-package.mjs';
 
 const MAIN = 'http://schemas.openxmlformats.org/spreadsheetml/2006/main';
 const REL = 'http://schemas.openxmlformats.org/officeDocument/2006/relationships';
@@ -32,13 +32,17 @@ export const USER_PARTS: Readonly<Record<string, string>> = {
 <comments xmlns="${MAIN}"><authors><author>Commissioning</author></authors><commentList><comment ref="C3" authorId="0"><text><t>checked at FAT</t></text></comment></commentList></comments>`,
 };
 
+/**
+ * A deflated entry as Excel stores one; `recorded` (default: the content itself) gives the size
+ * and CRC-32 written in its headers, so that a test can make an entry that lies about its bytes.
+ */
+export function deflatedEntry(name: string, content: Uint8Array, recorded: Uint8Array = content): ZipEntry {
+  return { name, method: 8, crc: crc32(recorded), size: recorded.length, data: deflateRawSync(content), time: 0x6000, date: 0x5a21 };
+}
+
 /** The parts as a zip, deflated as Excel stores them. */
 export function userWorkbook(parts: Readonly<Record<string, string>> = USER_PARTS): Uint8Array {
-  const entries: ZipEntry[] = Object.entries(parts).map(([name, xml]) => {
-    const raw = new TextEncoder().encode(xml);
-    return { name, method: 8, crc: crc32(raw), size: raw.length, data: deflateRawSync(raw), time: 0x6000, date: 0x5a21 };
-  });
-  return writeZip(entries);
+  return writeZip(Object.entries(parts).map(([name, xml]) => deflatedEntry(name, new TextEncoder().encode(xml))));
 }
 
 /** Every part of a package, inflated: name -> bytes. */
