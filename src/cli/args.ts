@@ -30,13 +30,25 @@ export type Command =
       readonly form: FormChoice;
       readonly ladderBody: boolean;
     }
-  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean };
+  | {
+      readonly name: 'verify';
+      readonly file: string;
+      readonly spec: SpecChoice;
+      readonly impl: string;
+      readonly map?: string;
+      readonly json: boolean;
+      /** Gaps are not judged (default: judged at the safe value). */
+      readonly gapsFree: boolean;
+    };
 
 export const USAGE = `Usage:
   interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
   interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
                             [--form and-or|xor|best-xor] [--ld] [spec options]
-  interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+  interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json]
+                            [--gaps-free] [spec options]
+                            (--gaps-free: combinations no row covers are not judged; by
+                            default the program must hold the safe value there)
 
 Spec options:
   --sheet NAME            read only this sheet
@@ -61,7 +73,7 @@ const SPEC_FLAGS: Record<string, Kind> = {
 const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
   analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
   export: { ...SPEC_FLAGS, '--st': 'value', '--plcopen': 'value', '--svg': 'value', '--steps': 'value', '--form': 'value', '--ld': 'flag' },
-  verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag' },
+  verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag', '--gaps-free': 'flag' },
 };
 
 const FORMS: Readonly<Record<string, FormChoice>> = { 'and-or': 'andOr', xor: 'xor', 'best-xor': 'bestXor' };
@@ -156,5 +168,5 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const impl = one('--impl');
   if (impl === undefined) return fail('verify needs --impl <file.st|file.xml>');
   const map = one('--map');
-  return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json') });
+  return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json'), gapsFree: values.has('--gaps-free') });
 }

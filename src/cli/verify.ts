@@ -59,7 +59,7 @@ export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Pro
     return EXIT.failed;
   }
   progress.note(`checking ${cmd.impl} against ${tables.length} spec table(s)`);
-  const report = verifyImplementation(tables, program.value, mapping?.value);
+  const report = verifyImplementation(tables, program.value, mapping?.value, { gapsFree: cmd.gapsFree });
   if (cmd.json) io.out(JSON.stringify(verifyReportJson(report), null, 2) + '\n');
   else io.out(verifyReportText(report));
   const specErrors = [...otherProblems, ...tables.flatMap((t) => t.problems)].filter((p) => p.severity === 'error');
