@@ -301,7 +301,8 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
       if (e.everyOutput) builder.taintEveryOutput('unsupported', `${e.what} (line ${e.line}) of ${header.name}: ${e.everyOutput}`, e.line);
     }
     for (const l of later) {
-      for (const name of l.names) {
+      for (const lower of l.names) {
+        const name = builder.variable(lower, l.line).name;
         if (!builder.isBool(name, l.line)) continue;
         const when = l.what.startsWith('action') ? `it is not called in the body of ${header.name}` : 'it runs when called from outside the scan';
         const value = builder.opaque('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line);
@@ -417,7 +418,7 @@ class Calls {
       if (!own && (d === undefined || d.section === 'input' || d.constant)) return;
       out.push({
         target,
-        why: own ? `VAR_IN_OUT ${formal!.name} of ${callee} (${type}) writes back into ${target.text}` : `${callee} may write back into ${target.text} (its parameters are not known)`,
+        why: own ? `VAR_IN_OUT ${formal!.name} of ${callee} (${instance?.type.trim() ?? callee}) writes back into ${target.text}` : `${callee} may write back into ${target.text} (its parameters are not known)`,
       });
     });
     return out;
@@ -725,7 +726,8 @@ class BodyReader {
       const anchor = [...anchors].reverse().find((a) => a.at <= pos);
       const sourcePos = anchor ? anchor.source + (pos - anchor.at) : first.start + pos;
       const at = [...tokens.slice(from, to)].reverse().find((y) => y.start <= sourcePos) ?? first;
-      const expected = parsed.error.expected ? `expected ${parsed.error.expected}` : parsed.error.message;
+      // A nesting cap says so; other faults say what was expected.
+      const expected = parsed.error.expected && !/nests deeper/.test(parsed.error.message) ? `expected ${parsed.error.expected}` : parsed.error.message;
       throw new LineError(at.line, `in "${clip(text)}": ${expected} near '${this.clean.slice(at.start, at.end)}'`);
     }
     return substitute(parsed.value, values);

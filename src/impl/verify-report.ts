@@ -112,7 +112,7 @@ function openLines(o: OutputVerdict): string[] {
   const n = Math.log2(o.combinations);
   if (o.dontCare.count > 0) out.push(`  don't-care: ${o.dontCare.count} combinations, the implementation turns ${o.dontCare.implementationOn} of them ON (not counted as differences)`);
   if (o.gaps.count > 0) {
-    const judged = o.gaps.judged ? 'judged at the safe value: counted as differences' : 'not judged (--gaps-free): not counted as differences';
+    const judged = o.gaps.judged ? 'judged at the safe value: counted as differences' : 'not judged under --gaps-free, not counted as differences';
     out.push(`  gaps (no row covers them; safe value ${o.gaps.safe}): ${o.gaps.count} combinations, ${o.gaps.unsafe} of them not at the safe value in the implementation (${judged})`);
     for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${inputValues(n, k).join(' ')}`);
   }
