@@ -401,7 +401,8 @@ class Calls {
     const type = (instance ? instance.type : callee).trim().toUpperCase();
     const own = this.context.pouVariables.get(type);
     const standard = !own && (isReserved(type) || blockKind(type, this.context.blockTypes) !== 'function-call');
-    const params = own?.filter((v) => v.section === 'input' || v.section === 'in-out' || v.section === 'output') ?? [];
+    // A FUNCTION's own name is its result, not a parameter.
+    const params = own?.filter((v) => (v.section === 'input' || v.section === 'in-out' || v.section === 'output') && v.name.toUpperCase() !== type) ?? [];
     const line = tokens[open - 1]?.line ?? 1;
     const out: Write[] = [];
     argumentsOf(tokens, open, close, line).forEach((arg, position) => {

@@ -78,7 +78,11 @@ export class PouBuilder {
     private readonly assigned: ReadonlySet<string>,
   ) {
     for (const v of globals) this.declared.set(key(v.name), v);
-    for (const v of header.variables) this.declared.set(key(v.name), v);
+    for (const v of header.variables) {
+      // VAR_EXTERNAL names a global: a constant's value is the global's.
+      const global = v.section === 'external' ? this.declared.get(key(v.name)) : undefined;
+      this.declared.set(key(v.name), global ? { ...v, ...(global.initial !== undefined ? { initial: global.initial } : {}), ...(global.constant ? { constant: true } : {}) } : v);
+    }
   }
 
   get pou(): string {
@@ -178,6 +182,9 @@ export class PouBuilder {
 
   /** A declared initial value (FALSE when none); one that is not a BOOL literal cannot be judged. */
   private initialValue(d: ImplVariable): Expr {
+    if (d.section === 'external' && d.initial === undefined) {
+      return this.opaque('unsupported', `${d.name} (line ${d.line}) is a constant declared outside this file: its value is not known`, d.line);
+    }
     const text = (d.initial ?? 'FALSE').trim();
     if (TRUE_TEXT.test(text)) return TRUE;
     if (FALSE_TEXT.test(text)) return FALSE;
