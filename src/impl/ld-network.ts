@@ -4,7 +4,7 @@
 import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
-import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
+import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
 import { LineError } from './line-error.js';
@@ -143,7 +143,7 @@ class Network {
         stack.push(...missing);
         continue;
       }
-      const power = orFolded(...inputs.map((d) => this.memo.get(keyOf(d.node, d.parameter))!));
+      const power = anyOf(inputs.map((d) => this.memo.get(keyOf(d.node, d.parameter))!));
       this.memo.set(key, this.value(top.node, top.parameter, power));
       stack.pop();
     }
@@ -215,7 +215,7 @@ class Network {
 
   /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */
   private inputOf(node: Node): Expr {
-    return orFolded(...this.connectionsInto(node).map((d) => this.outputOf(d.node, d.parameter)));
+    return anyOf(this.connectionsInto(node).map((d) => this.outputOf(d.node, d.parameter)));
   }
 
   /** Every connection in the body, with the node it belongs to. */

@@ -381,14 +381,17 @@ interface Write {
 
 /** What the POU knows of the things it calls: which of their parameters write back. */
 class Calls {
+  private readonly byName = new Map<string, ImplVariable>();
+
   constructor(
     private readonly context: ReadContext,
-    private readonly header: PouHeader,
-  ) {}
+    header: PouHeader,
+  ) {
+    for (const v of [...context.globals, ...header.variables]) this.byName.set(v.name.toLowerCase(), v);
+  }
 
   private declared(name: string): ImplVariable | undefined {
-    const k = name.toLowerCase();
-    return this.header.variables.find((v) => v.name.toLowerCase() === k) ?? this.context.globals.find((v) => v.name.toLowerCase() === k);
+    return this.byName.get(name.toLowerCase());
   }
 
   /**

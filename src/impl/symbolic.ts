@@ -27,13 +27,24 @@ function isConst(e: Expr, value: boolean): boolean {
 
 /** AND with constants folded (keeps printed forms and trees small). */
 export function andFolded(...args: Expr[]): Expr {
-  if (args.some((a) => isConst(a, false))) return FALSE;
-  return and(...args.filter((a) => !isConst(a, true)));
+  return allOf(args);
 }
 
 export function orFolded(...args: Expr[]): Expr {
-  if (args.some((a) => isConst(a, true))) return TRUE;
-  return or(...args.filter((a) => !isConst(a, false)));
+  return anyOf(args);
+}
+
+/** AND of a list of any length (no argument spreading: an IF may have thousands of branches). */
+export function allOf(list: readonly Expr[]): Expr {
+  if (list.some((a) => isConst(a, false))) return FALSE;
+  const args = list.filter((a) => !isConst(a, true));
+  return args.length <= 1 ? and(...args) : { kind: 'and', args };
+}
+
+export function anyOf(list: readonly Expr[]): Expr {
+  if (list.some((a) => isConst(a, true))) return TRUE;
+  const args = list.filter((a) => !isConst(a, false));
+  return args.length <= 1 ? or(...args) : { kind: 'or', args };
 }
 
 export function notFolded(a: Expr): Expr {
@@ -245,7 +256,11 @@ export class PouBuilder {
       end: (line: number) => {
         const changed = new Map<string, number[]>();
         branches.forEach((b, i) => {
-          for (const k of b.changes.keys()) changed.set(k, [...(changed.get(k) ?? []), i]);
+          for (const k of b.changes.keys()) {
+            const list = changed.get(k);
+            if (list) list.push(i);
+            else changed.set(k, [i]);
+          }
         });
         for (const [k, taken] of changed) {
           const values = taken.map((i) => branches[i]!.changes.get(k)!);
@@ -257,9 +272,9 @@ export class PouBuilder {
           const terms = taken.map((i, j) => andFolded(branches[i]!.guard, values[j]!));
           if (!all) {
             const prior = this.env.get(k) ?? this.before(this.variable(k, line).name, line, true);
-            terms.push(andFolded(...taken.map((i) => notFolded(branches[i]!.guard)), prior));
+            terms.push(allOf([...taken.map((i) => notFolded(branches[i]!.guard)), prior]));
           }
-          this.set(k, orFolded(...terms));
+          this.set(k, anyOf(terms));
         }
       },
     };
