@@ -375,7 +375,7 @@ function argumentsOf(tokens: readonly Token[], open: number, close: number, line
 
 /** A variable a call may write: a `=>` output, or an actual passed to a VAR_IN_OUT (or maybe one). */
 interface Write {
-  readonly target: Token;
+  readonly target: { readonly text: string; readonly line: number };
   readonly why: string;
 }
 
@@ -395,6 +395,16 @@ class Calls {
   }
 
   /**
+   * Whether a call statement of `callee` is of something whose effects are known: a declared
+   * instance, a POU of the file, a standard function. Anything else (an action or a program
+   * not in the file) may write any variable.
+   */
+  known(callee: string): boolean {
+    const type = (this.declared(callee)?.type ?? callee).trim().toUpperCase();
+    return this.declared(callee) !== undefined || this.context.pouVariables.has(type) || isReserved(type);
+  }
+
+  /**
    * The variables a call of `callee` with arguments in tokens [open, close) writes. The
    * project's own POUs say which parameters are VAR_IN_OUT; standard functions and blocks
    * write only their `=>` outputs; anything else may write back any variable passed to it.
@@ -408,6 +418,13 @@ class Calls {
     const params = own?.filter((v) => (v.section === 'input' || v.section === 'in-out' || v.section === 'output') && v.name.toUpperCase() !== type) ?? [];
     const line = tokens[open - 1]?.line ?? 1;
     const out: Write[] = [];
+    // A block or function of the file that declares globals (VAR_EXTERNAL) may write them.
+    for (const g of own ?? []) {
+      const here = this.declared(g.name);
+      if (g.section === 'external' && !g.constant && here && (here.section === 'global' || here.section === 'external')) {
+        out.push({ target: { text: here.name, line }, why: `${callee} (${instance?.type.trim() ?? callee}) may write the global ${here.name} (its VAR_EXTERNAL)` });
+      }
+    }
     argumentsOf(tokens, open, close, line).forEach((arg, position) => {
       const target = tokens[arg.from];
       if (arg.to !== arg.from + 1 || target?.kind !== 'ident') return;
@@ -607,6 +624,11 @@ class BodyReader {
       if (this.actionDepth >= MAX_ACTION_DEPTH) throw new LineError(name.line, `actions call actions deeper than ${MAX_ACTION_DEPTH} levels (at ${action.name})`);
       this.runState.called.add(name.text.toUpperCase());
       new BodyReader(this.context, this.b, this.calls, action.tokens, action.text, this.runState, this.actionDepth + 1).run();
+      return;
+    }
+    if (!this.calls.known(name.text)) {
+      const what = `call of ${name.text} at line ${name.line}: no instance, function or action of that name is read, so what it writes is not known`;
+      this.writeBack(name.text, 'function-call', from, to, this.b.taintEveryOutput('function-call', what, name.line));
       return;
     }
     const declared = this.b.variable(name.text, name.line);

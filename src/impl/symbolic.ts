@@ -136,8 +136,10 @@ export class PouBuilder {
   }
 
   /** A construct (RETURN, jump) after which no output of the POU can be judged. */
-  taintEveryOutput(kind: CannotJudgeKind, what: string, line: number): void {
-    this.everyOutput.push(this.cannotJudge(kind, what, line));
+  taintEveryOutput(kind: CannotJudgeKind, what: string, line: number): CannotJudge {
+    const item = this.cannotJudge(kind, what, line);
+    this.everyOutput.push(item);
+    return item;
   }
 
   note(text: string): void {

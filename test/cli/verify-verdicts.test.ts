@@ -97,6 +97,13 @@ describe('verify: what calls write back', () => {
 });
 
 describe('verify: actions', () => {
+  it('a call of an action (or anything) that is not in the file leaves every output unchecked', async () => {
+    const r = await verify(st('VAR_INPUT A : BOOL; END_VAR', 'Y := A AND B;\nClearAll();'));
+    expect(r.code).toBe(1);
+    expect(r.out).toContain('UNCHECKED  Y');
+    expect(r.out).toContain('call of ClearAll at line 6: no instance, function or action of that name is read, so what it writes is not known');
+  });
+
   it('an ST action called by the body is run there: its OR replaces the AND, which differs', async () => {
     const r = await verify(st('VAR_INPUT A : BOOL; END_VAR', 'Y := A AND B;\nWiden();\nACTION Widen:\n  Y := A OR B;\nEND_ACTION'));
     expect(r.code).toBe(1);

@@ -348,6 +348,16 @@ ${program('', 'q := a;\nr := Flip(b, q);')}`;
     expectFunction(pou, 'q', 'a');
   });
 
+  it('a block of the file that declares a global as VAR_EXTERNAL may write that global', () => {
+    const text = `VAR_GLOBAL g : BOOL; END_VAR
+FUNCTION_BLOCK Reset VAR_EXTERNAL g : BOOL; END_VAR g := FALSE; END_FUNCTION_BLOCK
+PROGRAM P VAR_INPUT a : BOOL; END_VAR VAR_EXTERNAL g : BOOL; END_VAR VAR R1 : Reset; END_VAR
+g := a;
+R1();
+END_PROGRAM`;
+    expect(output(pouOf(text, 1), 'g').cannotJudge.map((c) => c.what)).toEqual(['R1 (Reset) may write the global g (its VAR_EXTERNAL) at line 5']);
+  });
+
   it('a method of an instance called with a variable may write it back', () => {
     const pou = pouOf(program('VAR Drive : Motor; END_VAR', 'q := a;\nDrive.Start(q);'));
     expect(kinds(output(pou, 'q'))).toEqual(['function-block']);
