@@ -33,14 +33,26 @@ export type Command =
       readonly form: FormChoice;
       readonly ladderBody: boolean;
     }
-  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean }
+  | {
+      readonly name: 'verify';
+      readonly file: string;
+      readonly spec: SpecChoice;
+      readonly impl: string;
+      readonly map?: string;
+      readonly json: boolean;
+      /** Gaps are not judged (default: judged at the safe value). */
+      readonly gapsFree: boolean;
+    }
   | { readonly name: 'record'; readonly file: string; readonly json: boolean; readonly timeLimitMs?: number };
 
 export const USAGE = `Usage:
   interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
   interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
                             [--form and-or|xor|best-xor] [--ld] [spec options]
-  interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+  interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json]
+                            [--gaps-free] [spec options]
+                            (--gaps-free: combinations no row covers are not judged; by
+                            default the program must hold the safe value there)
   interlock-algebra record  <filled-record.xlsx> [--json]
                             reads filled-in test records back: each step passed, failed or not run,
                             and whether the table is still the revision the record was made from
@@ -72,7 +84,7 @@ const SPEC_FLAGS: Record<string, Kind> = {
 const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
   analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
   export: { ...SPEC_FLAGS, '--st': 'value', '--plcopen': 'value', '--svg': 'value', '--steps': 'value', '--form': 'value', '--ld': 'flag' },
-  verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag' },
+  verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag', '--gaps-free': 'flag' },
   // The settings come from the record itself, so that the table is read as it was then.
   record: { '--json': 'flag', '--time-limit': 'value' },
 };
@@ -179,5 +191,5 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const impl = one('--impl');
   if (impl === undefined) return fail('verify needs --impl <file.st|file.xml>');
   const map = one('--map');
-  return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json') });
+  return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json'), gapsFree: values.has('--gaps-free') });
 }

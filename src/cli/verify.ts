@@ -60,7 +60,7 @@ export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Pro
   }
   progress.note(`checking ${cmd.impl} against ${wb.tables.length} spec table(s)`);
   // Outputs of a table with errors come back UNCHECKED: the workflow's rule, as in every host.
-  const report = verifyProgram(wb, program.value, mapping?.value);
+  const report = verifyProgram(wb, program.value, mapping?.value, { gapsFree: cmd.gapsFree });
   if (cmd.json) io.out(JSON.stringify(verifyReportJson(report), null, 2) + '\n');
   else io.out(verifyReportText(report));
   for (const p of errorsOf([...wb.problems, ...wb.tables.flatMap((t) => t.problems)])) io.err(problemLine(p) + '\n');

@@ -36,6 +36,7 @@ const WORDS: Readonly<Record<CannotJudgeKind, string>> = {
   'non-bool': 'non-BOOL value',
   'control-flow': 'control flow',
   unsupported: 'unsupported construct',
+  undriven: 'not an input',
 };
 
 /** The kind in words, as reports print it. */

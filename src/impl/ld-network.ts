@@ -4,7 +4,7 @@
 import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
-import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
+import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
 import { LineError } from './line-error.js';
@@ -39,6 +39,7 @@ class Network {
   private readonly nodes = new Map<string, Node>();
   private readonly order: Node[] = [];
   private readonly blocks = new Map<string, CannotJudge>();
+  private readonly connectors = new Map<string, Node>();
   private readonly b: PouBuilder;
   private memo = new Map<string, Expr>();
 
@@ -57,6 +58,8 @@ class Network {
       const node = { el, kind, id };
       this.nodes.set(id, node);
       this.order.push(node);
+      const connectorName = el.attrs['name'];
+      if (kind === 'connector' && connectorName !== undefined && !this.connectors.has(connectorName)) this.connectors.set(connectorName, node);
     }
     const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => this.variableOf(n).toLowerCase()));
     this.b = new PouBuilder(header, context.globals, assigned);
@@ -120,17 +123,58 @@ class Network {
     return name;
   }
 
-  /** The power or value flowing out of a node (of one of its outputs, for a block). */
-  private outputOf(node: Node, parameter: string | undefined): Expr {
-    const key = `${node.id}/${parameter ?? ''}`;
-    const known = this.memo.get(key);
-    if (known) return known;
+  /**
+   * The power or value flowing out of a node (of one of its outputs, for a block). Rungs can
+   * be thousands of contacts long: the network is walked with an explicit stack.
+   */
+  private outputOf(start: Node, parameter: string | undefined): Expr {
+    const keyOf = (n: Node, p: string | undefined): string => `${n.id}/${p ?? ''}`;
+    const stack: { node: Node; parameter: string | undefined }[] = [{ node: start, parameter }];
+    while (stack.length > 0) {
+      const top = stack[stack.length - 1]!;
+      const key = keyOf(top.node, top.parameter);
+      if (this.memo.has(key)) {
+        stack.pop();
+        continue;
+      }
+      const inputs = this.sources(top.node);
+      const missing = inputs.filter((d) => !this.memo.has(keyOf(d.node, d.parameter)));
+      if (missing.length > 0) {
+        stack.push(...missing);
+        continue;
+      }
+      const power = anyOf(inputs.map((d) => this.memo.get(keyOf(d.node, d.parameter))!));
+      this.memo.set(key, this.value(top.node, top.parameter, power));
+      stack.pop();
+    }
+    return this.memo.get(keyOf(start, parameter))!;
+  }
+
+  /** What flows into a node: its connections (a continuation: those of its connector). */
+  private sources(node: Node): { node: Node; parameter: string | undefined }[] {
+    if (node.kind === 'continuation') {
+      const connector = this.connector(node);
+      return connector ? this.connectionsInto(connector) : [];
+    }
+    return node.kind === 'contact' || node.kind === 'coil' || node.kind === 'inOutVariable' ? this.connectionsInto(node) : [];
+  }
+
+  private connectionsInto(node: Node): { node: Node; parameter: string | undefined }[] {
+    const point = childNamed(node.el, 'connectionPointIn');
+    const connections = point ? childrenNamed(point, 'connection') : [];
+    return connections.map((c) => ({ node: this.nodes.get(c.attrs['refLocalId']!)!, parameter: c.attrs['formalParameter'] }));
+  }
+
+  private connector(node: Node): Node | undefined {
+    return this.connectors.get(node.el.attrs['name'] ?? '');
+  }
+
+  /** A node's output, given the OR of what flows into it. */
+  private value(node: Node, parameter: string | undefined, power: Expr): Expr {
     const line = node.el.line;
-    let value: Expr;
     switch (node.kind) {
       case 'leftPowerRail':
-        value = TRUE;
-        break;
+        return TRUE;
       case 'contact': {
         const name = this.variableOf(node);
         const edge = node.el.attrs['edge'] ?? 'none';
@@ -138,33 +182,24 @@ class Network {
         if (edge !== 'none') contact = this.b.opaque('edge', `${edge}-edge contact ${name}, localId ${node.id}`, line);
         else contact = this.readVariable(node, name);
         if (node.el.attrs['negated'] === 'true') contact = notFolded(contact);
-        value = andFolded(this.inputOf(node), contact);
-        break;
+        return andFolded(power, contact);
       }
       case 'coil':
       case 'inOutVariable':
-        value = this.inputOf(node);
-        break;
+        return power;
       case 'inVariable': {
         const v = this.readVariable(node, this.variableOf(node));
-        value = node.el.attrs['negated'] === 'true' ? notFolded(v) : v;
-        break;
+        return node.el.attrs['negated'] === 'true' ? notFolded(v) : v;
       }
       case 'block':
-        value = this.b.leafFor(this.blocks.get(node.id)!, `${node.el.attrs['instanceName'] ?? node.el.attrs['typeName']}.${parameter ?? ''}`);
-        break;
+        return this.b.leafFor(this.blocks.get(node.id)!, `${node.el.attrs['instanceName'] ?? node.el.attrs['typeName']}.${parameter ?? ''}`);
       case 'continuation': {
-        const name = node.el.attrs['name'];
-        const connector = this.order.find((n) => n.kind === 'connector' && n.el.attrs['name'] === name);
-        if (!connector) throw new LineError(line, `continuation ${name ?? ''} (localId ${node.id}) has no connector of that name`);
-        value = this.inputOf(connector);
-        break;
+        if (!this.connector(node)) throw new LineError(line, `continuation ${node.el.attrs['name'] ?? ''} (localId ${node.id}) has no connector of that name`);
+        return power;
       }
       default:
         throw new LineError(line, `a connection refers to localId ${node.id}, a ${node.kind}, which has no output`);
     }
-    this.memo.set(key, value);
-    return value;
   }
 
   private readVariable(node: Node, name: string): Expr {
@@ -180,9 +215,7 @@ class Network {
 
   /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */
   private inputOf(node: Node): Expr {
-    const point = childNamed(node.el, 'connectionPointIn');
-    const connections = point ? childrenNamed(point, 'connection') : [];
-    return orFolded(...connections.map((c) => this.outputOf(this.nodes.get(c.attrs['refLocalId']!)!, c.attrs['formalParameter'])));
+    return anyOf(this.connectionsInto(node).map((d) => this.outputOf(d.node, d.parameter)));
   }
 
   /** Every connection in the body, with the node it belongs to. */
@@ -217,23 +250,30 @@ class Network {
       into.set(node.id, list);
     }
     for (const c of this.order.filter((n) => n.kind === 'continuation')) {
-      const connector = this.order.find((n) => n.kind === 'connector' && n.el.attrs['name'] === c.el.attrs['name']);
+      const connector = this.connector(c);
       if (connector) into.set(c.id, [connector.id]);
     }
     const state = new Map<string, 'open' | 'done'>();
-    const path: string[] = [];
-    const visit = (id: string): void => {
-      if (state.get(id) === 'done') return;
-      if (state.get(id) === 'open') {
-        const loop = [...path.slice(path.indexOf(id)), id].reverse();
-        throw new LineError(this.nodes.get(id)!.el.line, `connections form a loop in ${this.header.name}: localId ${loop.join(' -> ')}`);
+    for (const root of this.order) {
+      if (state.has(root.id)) continue;
+      // Depth-first with an explicit stack: `path` holds the open nodes and how far each got.
+      const path: { id: string; next: number }[] = [{ id: root.id, next: 0 }];
+      state.set(root.id, 'open');
+      while (path.length > 0) {
+        const top = path[path.length - 1]!;
+        const from = (into.get(top.id) ?? [])[top.next++];
+        if (from === undefined) {
+          state.set(top.id, 'done');
+          path.pop();
+        } else if (state.get(from) === 'open') {
+          const ids = path.map((p) => p.id);
+          const loop = [...ids.slice(ids.indexOf(from)), from].reverse();
+          throw new LineError(this.nodes.get(from)!.el.line, `connections form a loop in ${this.header.name}: localId ${loop.join(' -> ')}`);
+        } else if (!state.has(from)) {
+          state.set(from, 'open');
+          path.push({ id: from, next: 0 });
+        }
       }
-      state.set(id, 'open');
-      path.push(id);
-      for (const from of into.get(id) ?? []) visit(from);
-      path.pop();
-      state.set(id, 'done');
-    };
-    for (const node of this.order) visit(node.id);
+    }
   }
 }

@@ -6,15 +6,49 @@ import { FALSE, TRUE } from '../logic/expr/ast.js';
 import { parseExpression } from '../logic/expr/parse.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { Signal } from '../logic/signals.js';
+import { isReserved } from '../logic/identifiers.js';
 import { blockKind, kindWord } from './constructs.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
 import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';
-import type { ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, VarSection } from './types.js';
+import type { CannotJudge, CannotJudgeKind, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, VarSection } from './types.js';
 import { LineError } from './line-error.js';
 
-/** An ST body's context: also the text its tokens' offsets point into. */
-export interface StContext extends ReadContext {
+/** The text a run of tokens points into, and the same text with comments blanked. */
+export interface StText {
   readonly source: string;
+  readonly clean: string;
+}
+
+/** Statements as tokens, with the text they come from. */
+export interface StBlock {
+  readonly name: string;
+  readonly line: number;
+  readonly tokens: readonly Token[];
+  readonly text: StText;
+}
+
+/**
+ * A POU's ST body with what belongs to it: actions (run where the body calls them), and
+ * blocks that run at times a single scan does not show (methods, transitions, steps, actions
+ * in a language not read): what they write is unchecked.
+ */
+export interface StBody {
+  readonly tokens: readonly Token[];
+  readonly text: StText;
+  readonly actions: readonly StBlock[];
+  readonly elsewhere: readonly { readonly what: string; readonly line: number; readonly tokens?: readonly Token[]; readonly everyOutput?: string }[];
+}
+
+/** The source with everything outside the tokens (comments) blanked; offsets and lines kept. */
+export function stText(source: string, tokens: readonly Token[]): StText {
+  const parts: string[] = [];
+  let at = 0;
+  for (const t of tokens) {
+    parts.push(source.slice(at, t.start).replace(/[^\n]/g, ' '), source.slice(t.start, t.end));
+    at = t.end;
+  }
+  parts.push(source.slice(at).replace(/[^\n]/g, ' '));
+  return { source, clean: parts.join('') };
 }
 
 const SECTIONS: Readonly<Record<string, VarSection>> = {
@@ -50,6 +84,16 @@ const STATEMENT_WORDS = new Set([
   ...Object.keys(SECTIONS), 'END_VAR', ...Object.values(POU_END), ...Object.keys(POU_END),
 ]);
 
+/** Blocks inside a POU that are not its body. */
+const INNER_BLOCKS: Readonly<Record<string, string>> = {
+  ACTION: 'END_ACTION',
+  METHOD: 'END_METHOD',
+  PROPERTY: 'END_PROPERTY',
+  TRANSITION: 'END_TRANSITION',
+  STEP: 'END_STEP',
+  INITIAL_STEP: 'END_STEP',
+};
+
 const LOGIC_FUNCTIONS = new Set(['AND', 'OR', 'XOR', 'NOT']);
 const BOOL_WORDS = new Set(['TRUE', 'FALSE']);
 
@@ -61,10 +105,17 @@ export function readStFile(file: string, text: string): Result<ImplProgram> {
   try {
     const found = findPous(tokens, text);
     const blockTypes = new Set(found.pous.filter((p) => p.kind === 'FUNCTION_BLOCK').map((p) => p.name.toUpperCase()));
-    const context: StContext = { file, source: text, globals: found.globals, blockTypes };
+    const pouVariables = new Map(found.pous.map((p) => [p.name.toUpperCase(), p.variables]));
+    const context: ReadContext = { file, globals: found.globals, blockTypes, pouVariables };
+    const whole = stText(text, tokens);
     const pous: ImplPou[] = [];
     for (const p of found.pous) {
-      const read = readStBody(context, p, tokens.slice(p.bodyStart, p.bodyEnd));
+      const read = readStBody(context, p, {
+        tokens: p.body,
+        text: whole,
+        actions: p.actions.map((a) => ({ ...a, text: whole })),
+        elsewhere: p.elsewhere,
+      });
       if (!read.ok) return read;
       pous.push(read.value);
     }
@@ -77,8 +128,9 @@ export function readStFile(file: string, text: string): Result<ImplProgram> {
 }
 
 interface FoundPou extends PouHeader {
-  readonly bodyStart: number;
-  readonly bodyEnd: number;
+  readonly body: Token[];
+  readonly actions: { name: string; line: number; tokens: Token[] }[];
+  readonly elsewhere: { what: string; line: number; tokens: Token[]; everyOutput?: string }[];
 }
 
 /** POU headers, declarations and body extents; global variables of the whole file. */
@@ -106,15 +158,39 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
         i = readSection(tokens, i, source, variables);
       }
       const end = POU_END[kind];
-      const bodyStart = i;
+      const body: Token[] = [];
+      const actions: FoundPou['actions'] = [];
+      const elsewhere: FoundPou['elsewhere'] = [];
       while (i < tokens.length && !isWord(tokens[i], end)) {
-        if (isWord(tokens[i], 'PROGRAM', 'FUNCTION_BLOCK', 'FUNCTION')) {
-          throw new LineError(tokens[i]!.line, `${word} ${nameToken.text} (line ${t.line}) has no ${end} before this`);
+        const x = tokens[i]!;
+        if (isWord(x, 'PROGRAM', 'FUNCTION_BLOCK', 'FUNCTION')) {
+          throw new LineError(x.line, `${word} ${nameToken.text} (line ${t.line}) has no ${end} before this`);
+        }
+        // A block starts with its word and a name (a variable called Step is no block).
+        const inner = x.kind === 'ident' && tokens[i + 1]?.kind === 'ident' ? INNER_BLOCKS[x.text.toUpperCase()] : undefined;
+        if (inner === undefined) {
+          body.push(x);
+          i++;
+          continue;
+        }
+        const from = i;
+        while (i < tokens.length && !isWord(tokens[i], inner)) i++;
+        if (i >= tokens.length) throw new LineError(x.line, `${x.text} has no ${inner}`);
+        const blockWord = x.text.toUpperCase();
+        const blockName = tokens[from + 1]?.kind === 'ident' ? tokens[from + 1]!.text : '';
+        if (blockWord === 'ACTION') {
+          const colon = isOp(tokens[from + 2], ':') ? from + 3 : from + 2;
+          actions.push({ name: blockName, line: x.line, tokens: tokens.slice(colon, i) });
+        } else {
+          const what = `${blockWord.toLowerCase().replace('_', ' ')} ${blockName}`;
+          const sfc = blockWord !== 'METHOD' && blockWord !== 'PROPERTY';
+          const everyOutput = sfc ? 'sequential function chart elements are not read' : undefined;
+          elsewhere.push({ what, line: x.line, tokens: tokens.slice(from + 2, i), ...(everyOutput ? { everyOutput } : {}) });
         }
         i++;
       }
       if (i >= tokens.length) throw new LineError(t.line, `${word} ${nameToken.text} has no ${end}`);
-      pous.push({ name: nameToken.text, kind, language: 'ST', line: t.line, variables, bodyStart, bodyEnd: i });
+      pous.push({ name: nameToken.text, kind, language: 'ST', line: t.line, variables, body, actions, elsewhere });
       i++;
     } else if (word === 'VAR_GLOBAL') {
       i = readSection(tokens, i, source, globals);
@@ -139,26 +215,33 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
   const head = tokens[start]!;
   const section = SECTIONS[head.text.toUpperCase()]!;
   let i = start + 1;
-  while (isWord(tokens[i], 'CONSTANT', 'RETAIN', 'NON_RETAIN', 'PERSISTENT')) i++;
+  let constant = false;
+  while (isWord(tokens[i], 'CONSTANT', 'RETAIN', 'NON_RETAIN', 'PERSISTENT')) {
+    if (isWord(tokens[i], 'CONSTANT')) constant = true;
+    i++;
+  }
   while (!isWord(tokens[i], 'END_VAR')) {
     if (i >= tokens.length) throw new LineError(head.line, `${head.text} has no END_VAR`);
-    const names: Token[] = [];
+    const names: { token: Token; address?: string }[] = [];
     for (;;) {
       const name = tokens[i];
       if (name?.kind !== 'ident' || STATEMENT_WORDS.has(name.text.toUpperCase())) {
         throw new LineError(name?.line ?? head.line, `expected a variable name in ${head.text}`);
       }
-      names.push(name);
       i++;
-      if (isWord(tokens[i], 'AT')) i += 2;
+      if (isWord(tokens[i], 'AT')) {
+        names.push({ token: name, address: tokens[i + 1]?.text ?? '' });
+        i += 2;
+      } else names.push({ token: name });
       if (!isOp(tokens[i], ',')) break;
       i++;
     }
-    if (!isOp(tokens[i], ':')) throw new LineError(names[0]!.line, `expected ':' and a type after ${names.map((n) => n.text).join(', ')}`);
+    const first = names[0]!.token;
+    if (!isOp(tokens[i], ':')) throw new LineError(first.line, `expected ':' and a type after ${names.map((n) => n.token.text).join(', ')}`);
     i++;
     const typeStart = i;
     i = skipTo(tokens, i, (t) => isOp(t, ':=') || isOp(t, ';'), head.line, 'declaration');
-    if (i === typeStart) throw new LineError(names[0]!.line, `expected a type for ${names[0]!.text}`);
+    if (i === typeStart) throw new LineError(first.line, `expected a type for ${first.text}`);
     const type = sourceOf(source, tokens, typeStart, i);
     let initial: string | undefined;
     if (isOp(tokens[i], ':=')) {
@@ -167,7 +250,17 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
       initial = sourceOf(source, tokens, initStart, i);
     }
     i++;
-    for (const n of names) into.push({ name: n.text, section, type, line: n.line, ...(initial !== undefined ? { initial } : {}) });
+    for (const { token, address } of names) {
+      into.push({
+        name: token.text,
+        section,
+        type,
+        line: token.line,
+        ...(initial !== undefined ? { initial } : {}),
+        ...(address !== undefined ? { address } : {}),
+        ...(constant ? { constant } : {}),
+      });
+    }
   }
   return i + 1;
 }
@@ -189,10 +282,34 @@ function sourceOf(source: string, tokens: readonly Token[], from: number, to: nu
 }
 
 /** Read one POU's statements (tokens between its declarations and its END_xxx). */
-export function readStBody(context: StContext, header: PouHeader, tokens: readonly Token[]): Result<ImplPou> {
+export function readStBody(context: ReadContext, header: PouHeader, body: StBody): Result<ImplPou> {
   try {
-    const builder = new PouBuilder(header, context.globals, assignedNames(tokens));
-    new BodyReader(context, builder, tokens).run();
+    const calls = new Calls(context, header);
+    const assigned = assignedNames(body.tokens, calls);
+    for (const a of body.actions) for (const n of assignedNames(a.tokens, calls)) assigned.add(n);
+    const elsewhereWrites = body.elsewhere.map((e) => ownWrites(e.tokens ?? [], calls, header));
+    for (const names of elsewhereWrites) for (const n of names) assigned.add(n);
+    const builder = new PouBuilder(header, context.globals, assigned);
+    const run = { actions: new Map(body.actions.map((a) => [a.name.toUpperCase(), a])), called: new Set<string>(), steps: 0 };
+    new BodyReader(context, builder, calls, body.tokens, body.text, run, 0).run();
+    // What runs outside the scan's statements may change what they assign, at a time unknown.
+    const later: { what: string; line: number; names: readonly string[] }[] = body.elsewhere.map((e, i) => ({ ...e, names: [...elsewhereWrites[i]!] }));
+    for (const a of body.actions) {
+      if (!run.called.has(a.name.toUpperCase())) later.push({ what: `action ${a.name}`, line: a.line, names: [...ownWrites(a.tokens, calls, header)] });
+    }
+    for (const e of body.elsewhere) {
+      if (e.everyOutput) builder.taintEveryOutput('unsupported', `${e.what} (line ${e.line}) of ${header.name}: ${e.everyOutput}`, e.line);
+    }
+    for (const l of later) {
+      for (const lower of l.names) {
+        const name = builder.variable(lower, l.line).name;
+        if (!builder.isBool(name, l.line)) continue;
+        const when = l.what.startsWith('action') ? `it is not called in the body of ${header.name}` : 'it runs when called from outside the scan';
+        const value = builder.opaque('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line);
+        const now = builder.assignedValue(name);
+        builder.assign(name, now ? orFolded(now, value) : value, l.line);
+      }
+    }
     return ok(builder.finish());
   } catch (e) {
     if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
@@ -200,8 +317,14 @@ export function readStBody(context: StContext, header: PouHeader, tokens: readon
   }
 }
 
-/** Every name the body assigns: `x :=`, `x S=`, `x R=`, and call outputs `=> x`. */
-function assignedNames(tokens: readonly Token[]): Set<string> {
+/** Names of the POU's own variables that a block (action, method...) assigns. */
+function ownWrites(tokens: readonly Token[], calls: Calls, header: PouHeader): Set<string> {
+  const own = new Set(header.variables.map((v) => v.name.toLowerCase()));
+  return new Set([...assignedNames(tokens, calls)].filter((n) => own.has(n)));
+}
+
+/** Every name the body assigns: `x :=`, `x S=`, `x R=`, call outputs `=> x` and in-out actuals. */
+function assignedNames(tokens: readonly Token[], calls: Calls): Set<string> {
   const out = new Set<string>();
   tokens.forEach((t, i) => {
     if (t.kind !== 'ident') return;
@@ -211,12 +334,130 @@ function assignedNames(tokens: readonly Token[]): Set<string> {
     if ((isOp(next, ':=') && !named) || isOp(prev, '=>') || (isWord(next, 'S', 'R') && isOp(tokens[i + 2], '='))) {
       out.add(t.text.toLowerCase());
     }
+    if (isOp(next, '(') && !STATEMENT_WORDS.has(t.text.toUpperCase())) {
+      const close = skipTo(tokens, i + 2, (y) => isOp(y, ')'), t.line, 'call');
+      for (const w of calls.writes(calleeAt(tokens, i), tokens, i + 2, close, undefined)) out.add(w.target.text.toLowerCase());
+    }
   });
   return out;
 }
 
+/** The name called at token k (followed by '('): `f`, or a path `inst.m` ending at k. */
+function calleeAt(tokens: readonly Token[], k: number): string {
+  let j = k;
+  while (isOp(tokens[j - 1], '.') && tokens[j - 2]?.kind === 'ident') j -= 2;
+  return tokens.slice(j, k + 1).map((x) => x.text).join('');
+}
+
+/** One argument of a call: `p := e`, `p => x`, or positional `e` (tokens [from, to)). */
+interface Argument {
+  readonly param?: string;
+  readonly output: boolean;
+  readonly from: number;
+  readonly to: number;
+}
+
+function argumentsOf(tokens: readonly Token[], open: number, close: number, line: number): Argument[] {
+  const out: Argument[] = [];
+  let i = open;
+  while (i < close) {
+    const end = Math.min(skipTo(tokens, i, (x) => isOp(x, ',') || isOp(x, ')'), line, 'call'), close);
+    const notOut = isWord(tokens[i], 'NOT') ? 1 : 0;
+    const head = tokens[i + notOut];
+    const op = tokens[i + notOut + 1];
+    if (head?.kind === 'ident' && (isOp(op, ':=') || isOp(op, '=>')) && i + notOut + 2 <= end) {
+      out.push({ param: head.text, output: isOp(op, '=>'), from: i + notOut + 2, to: end });
+    } else if (end > i) out.push({ output: false, from: i, to: end });
+    i = end + 1;
+  }
+  return out;
+}
+
+/** A variable a call may write: a `=>` output, or an actual passed to a VAR_IN_OUT (or maybe one). */
+interface Write {
+  readonly target: { readonly text: string; readonly line: number };
+  readonly why: string;
+}
+
+/** What the POU knows of the things it calls: which of their parameters write back. */
+class Calls {
+  private readonly byName = new Map<string, ImplVariable>();
+
+  constructor(
+    private readonly context: ReadContext,
+    header: PouHeader,
+  ) {
+    for (const v of [...context.globals, ...header.variables]) this.byName.set(v.name.toLowerCase(), v);
+  }
+
+  private declared(name: string): ImplVariable | undefined {
+    return this.byName.get(name.toLowerCase());
+  }
+
+  /**
+   * Whether a call statement of `callee` is of something whose effects are known: a declared
+   * instance, a POU of the file, a standard function. Anything else (an action or a program
+   * not in the file) may write any variable.
+   */
+  known(callee: string): boolean {
+    const type = (this.declared(callee)?.type ?? callee).trim().toUpperCase();
+    return this.declared(callee) !== undefined || this.context.pouVariables.has(type) || isReserved(type);
+  }
+
+  /**
+   * The variables a call of `callee` with arguments in tokens [open, close) writes. The
+   * project's own POUs say which parameters are VAR_IN_OUT; standard functions and blocks
+   * write only their `=>` outputs; anything else may write back any variable passed to it.
+   */
+  writes(callee: string, tokens: readonly Token[], open: number, close: number, b: PouBuilder | undefined): Write[] {
+    const instance = this.declared(callee);
+    const type = (instance ? instance.type : callee).trim().toUpperCase();
+    const own = this.context.pouVariables.get(type);
+    const standard = !own && (isReserved(type) || blockKind(type, this.context.blockTypes) !== 'function-call');
+    // A FUNCTION's own name is its result, not a parameter.
+    const params = own?.filter((v) => (v.section === 'input' || v.section === 'in-out' || v.section === 'output') && v.name.toUpperCase() !== type) ?? [];
+    const line = tokens[open - 1]?.line ?? 1;
+    const out: Write[] = [];
+    // A block or function of the file that declares globals (VAR_EXTERNAL) may write them.
+    for (const g of own ?? []) {
+      const here = this.declared(g.name);
+      if (g.section === 'external' && !g.constant && here && (here.section === 'global' || here.section === 'external')) {
+        out.push({ target: { text: here.name, line }, why: `${callee} (${instance?.type.trim() ?? callee}) may write the global ${here.name} (its VAR_EXTERNAL)` });
+      }
+    }
+    argumentsOf(tokens, open, close, line).forEach((arg, position) => {
+      const target = tokens[arg.from];
+      if (arg.to !== arg.from + 1 || target?.kind !== 'ident') return;
+      if (arg.output) {
+        out.push({ target, why: `output ${arg.param} of ${callee} (=> ${target.text})` });
+        return;
+      }
+      if (standard) return;
+      const formal = arg.param === undefined ? params[position] : params.find((p) => p.name.toLowerCase() === arg.param!.toLowerCase());
+      if (own && formal?.section !== 'in-out') return;
+      const d = b ? b.variable(target.text, target.line) : this.declared(target.text);
+      if (!own && (d === undefined || d.section === 'input' || d.constant)) return;
+      out.push({
+        target,
+        why: own ? `VAR_IN_OUT ${formal!.name} of ${callee} (${instance?.type.trim() ?? callee}) writes back into ${target.text}` : `${callee} may write back into ${target.text} (its parameters are not known)`,
+      });
+    });
+    return out;
+  }
+}
+
 /** Far deeper than hand-written code goes; keeps the reader's recursion bounded. */
 const MAX_IF_DEPTH = 100;
+/** Actions calling actions: deeper than this is refused (it is recursion). */
+const MAX_ACTION_DEPTH = 16;
+/** Statements run in all, actions inlined at every call counted each time. */
+const MAX_STEPS = 1_000_000;
+
+interface Run {
+  readonly actions: ReadonlyMap<string, StBlock>;
+  readonly called: Set<string>;
+  steps: number;
+}
 
 class BodyReader {
   private i = 0;
@@ -225,13 +466,15 @@ class BodyReader {
   private readonly clean: string;
 
   constructor(
-    private readonly context: StContext,
+    private readonly context: ReadContext,
     private readonly b: PouBuilder,
+    private readonly calls: Calls,
     private readonly tokens: readonly Token[],
+    text: StText,
+    private readonly runState: Run,
+    private readonly actionDepth: number,
   ) {
-    const chars = context.source.replace(/[^\n]/g, ' ').split('');
-    for (const t of tokens) for (let k = t.start; k < t.end; k++) chars[k] = context.source[k]!;
-    this.clean = chars.join('');
+    this.clean = text.clean;
   }
 
   run(): void {
@@ -245,7 +488,10 @@ class BodyReader {
 
   /** Statements until one of the words `until` (not consumed) or the end. */
   private statements(until: readonly string[]): void {
-    while (this.i < this.tokens.length && !isWord(this.t, ...until)) this.statement();
+    while (this.i < this.tokens.length && !isWord(this.t, ...until)) {
+      if (++this.runState.steps > MAX_STEPS) throw new LineError(this.t!.line, `more than ${MAX_STEPS} statements to run (actions called again and again)`);
+      this.statement();
+    }
   }
 
   private statement(): void {
@@ -261,7 +507,7 @@ class BodyReader {
     if (word === 'RETURN' || word === 'EXIT' || word === 'CONTINUE') {
       this.i++;
       if (isOp(this.t, ';')) this.i++;
-      const last = this.i >= this.tokens.length;
+      const last = this.i >= this.tokens.length && this.actionDepth === 0;
       if (!(word === 'RETURN' && last)) this.b.taintEveryOutput('control-flow', `${word} at line ${t.line}`, t.line);
       return;
     }
@@ -276,9 +522,9 @@ class BodyReader {
     let keyword = 'IF';
     while (keyword === 'IF' || keyword === 'ELSIF') {
       this.i++;
-      chain.enter();
       const thenAt = skipTo(this.tokens, this.i, (x) => isWord(x, 'THEN'), line, `${keyword} condition`);
       const cond = this.expression(this.i, thenAt);
+      chain.enter();
       this.i = thenAt + 1;
       this.statements(['ELSIF', 'ELSE', 'END_IF']);
       chain.leave(cond);
@@ -315,14 +561,23 @@ class BodyReader {
     const inside = this.tokens.slice(start, this.i);
     this.i++;
     if (isOp(this.t, ';')) this.i++;
-    for (const name of assignedNames(inside)) {
+    const names = assignedNames(inside, this.calls);
+    // An action called inside writes what the action assigns.
+    inside.forEach((x, k) => {
+      const action = x.kind === 'ident' && isOp(inside[k + 1], '(') ? this.runState.actions.get(x.text.toUpperCase()) : undefined;
+      if (action) {
+        this.runState.called.add(x.text.toUpperCase());
+        for (const n of assignedNames(action.tokens, this.calls)) names.add(n);
+      }
+    });
+    for (const name of names) {
       const v = this.b.variable(name, open.line);
       if (!this.b.isBool(v.name, open.line)) continue;
       this.b.assign(v.name, this.b.opaque('control-flow', `${word} at line ${open.line} assigns ${v.name}`, open.line), open.line);
     }
   }
 
-  /** `x := e;`, `x S= e;`, `x R= e;`, `inst(...);`, `f(...);`. */
+  /** `x := e;`, `x S= e;`, `x R= e;`, `inst(...);`, `f(...);`, `inst.m(...);`. */
   private targetStatement(): void {
     const first = this.t!;
     let end = this.i + 1;
@@ -336,19 +591,24 @@ class BodyReader {
     if (isOp(after, ':=')) {
       const semi = skipTo(this.tokens, end + 1, (x) => isOp(x, ';'), first.line, 'assignment');
       if (simple && this.b.isBool(first.text, first.line)) this.b.assign(first.text, this.expression(end + 1, semi), first.line);
-      else if (!simple) this.b.cannotJudge('unsupported', `assignment to ${target} at line ${first.line}`, first.line);
+      else {
+        this.callWritesIn(end + 1, semi);
+        if (!simple) this.b.cannotJudge('unsupported', `assignment to ${target} at line ${first.line}`, first.line);
+      }
       this.i = semi + 1;
     } else if (isWord(after, 'S', 'R') && isOp(this.tokens[end + 1], '=')) {
       const semi = skipTo(this.tokens, end + 2, (x) => isOp(x, ';'), first.line, 'assignment');
       const op = `${after!.text.toUpperCase()}=`;
+      this.callWritesIn(end + 2, semi);
       // Both S= and R= of one variable stay in its reasons: the later one keeps the earlier one's value.
       const value = this.b.opaque('set-reset', `${op} on ${target} at line ${first.line}`, first.line);
       const before = simple ? this.b.assignedValue(target) : undefined;
       if (simple) this.b.assign(target, before ? orFolded(before, value) : value, first.line);
       this.i = semi + 1;
-    } else if (isOp(after, '(') && simple) {
+    } else if (isOp(after, '(')) {
       const close = skipTo(this.tokens, end + 1, (x) => isOp(x, ')'), first.line, 'call');
-      this.call(first, end + 1, close);
+      if (simple) this.call(first, end + 1, close);
+      else this.pathCall(target, first, end + 1, close);
       this.i = close + 1;
       if (isOp(this.t, ';')) this.i++;
     } else {
@@ -356,8 +616,21 @@ class BodyReader {
     }
   }
 
-  /** A call statement: an instance of a timer, counter... or a function. Outputs `=> x` become opaque. */
+  /** A call statement: an action of the POU (run here), an instance of a timer, counter... or a function. */
   private call(name: Token, from: number, to: number): void {
+    const action = this.runState.actions.get(name.text.toUpperCase());
+    if (action) {
+      if (from !== to) throw new LineError(name.line, `action ${action.name} is called with arguments`);
+      if (this.actionDepth >= MAX_ACTION_DEPTH) throw new LineError(name.line, `actions call actions deeper than ${MAX_ACTION_DEPTH} levels (at ${action.name})`);
+      this.runState.called.add(name.text.toUpperCase());
+      new BodyReader(this.context, this.b, this.calls, action.tokens, action.text, this.runState, this.actionDepth + 1).run();
+      return;
+    }
+    if (!this.calls.known(name.text)) {
+      const what = `call of ${name.text} at line ${name.line}: no instance, function or action of that name is read, so what it writes is not known`;
+      this.writeBack(name.text, 'function-call', from, to, this.b.taintEveryOutput('function-call', what, name.line));
+      return;
+    }
     const declared = this.b.variable(name.text, name.line);
     const kind = declared.section === 'undeclared' ? 'function-call' : blockKind(declared.type, this.context.blockTypes);
     const what =
@@ -365,11 +638,38 @@ class BodyReader {
         ? `call of ${name.text} at line ${name.line}`
         : `${kindWord(kind)} ${name.text} (${declared.type}) called at line ${name.line}`;
     const item = this.b.cannotJudge(kind, what, name.line);
+    this.writeBack(name.text, kind, from, to, item);
+  }
+
+  /** Calls inside an expression (tokens [from, to)) that write back: their targets become opaque. */
+  private callWritesIn(from: number, to: number): void {
     for (let k = from; k < to; k++) {
-      const out = this.tokens[k + 1];
-      if (isOp(this.tokens[k], '=>') && out?.kind === 'ident' && this.b.isBool(out.text, out.line)) {
-        this.b.assign(out.text, this.b.leafFor(item, `${name.text}=>${out.text}`), out.line);
+      const x = this.tokens[k]!;
+      if (x.kind !== 'ident' || !isOp(this.tokens[k + 1], '(') || LOGIC_FUNCTIONS.has(x.text.toUpperCase())) continue;
+      const close = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
+      const callee = calleeAt(this.tokens, k);
+      for (const w of this.calls.writes(callee, this.tokens, k + 2, close, this.b)) {
+        if (this.b.isBool(w.target.text, w.target.line)) {
+          this.b.assign(w.target.text, this.b.opaque('function-call', `${w.why} at line ${w.target.line}`, w.target.line), w.target.line);
+        }
       }
+    }
+  }
+
+  /** `inst.m(...)`: a method or action of an instance, not read; what it may write back is opaque. */
+  private pathCall(path: string, first: Token, from: number, to: number): void {
+    const item = this.b.cannotJudge('function-block', `call of ${path} at line ${first.line} (a method or action of an instance, not read)`, first.line);
+    this.writeBack(path, 'function-block', from, to, item);
+  }
+
+
+  /** Variables the call writes (outputs `=> x`, in-out actuals) take a value from it that is not judged. */
+  private writeBack(callee: string, kind: CannotJudgeKind, from: number, to: number, item: CannotJudge): void {
+    for (const w of this.calls.writes(callee, this.tokens, from, to, this.b)) {
+      const out = w.target;
+      if (!this.b.isBool(out.text, out.line)) continue;
+      const value = w.why.startsWith('output') ? this.b.leafFor(item, `${callee}=>${out.text}`) : this.b.opaque(kind, `${w.why} at line ${out.line}`, out.line);
+      this.b.assign(out.text, value, out.line);
     }
   }
 
@@ -379,6 +679,12 @@ class BodyReader {
    * variable substituted by its current value.
    */
   private expression(from: number, to: number): Expr {
+    const value = this.valueOf(from, to);
+    this.callWritesIn(from, to);
+    return value;
+  }
+
+  private valueOf(from: number, to: number): Expr {
     const tokens = this.tokens;
     const first = tokens[from];
     if (!first || from >= to) throw new LineError(tokens[from - 1]?.line ?? 1, 'expected an expression');
@@ -425,8 +731,15 @@ class BodyReader {
         k = close;
       } else if (k + 1 < to && (isOp(next, '.') || isOp(next, '['))) {
         const end = this.accessEnd(k, to);
-        replace(k, end, this.access(k, this.clean.slice(x.start, tokens[end - 1]!.end)));
-        k = end - 1;
+        const path = this.clean.slice(x.start, tokens[end - 1]!.end);
+        if (end < to && isOp(tokens[end], '(')) {
+          const close = skipTo(tokens, end + 1, (y) => isOp(y, ')'), x.line, 'call');
+          replace(k, close + 1, this.b.opaque('function-block', `call of ${path}(...) at line ${x.line}`, x.line));
+          k = close;
+        } else {
+          replace(k, end, this.access(k, path));
+          k = end - 1;
+        }
       } else {
         replace(k, k + 1, this.b.read(x.text, lineAt(k)));
       }
@@ -439,7 +752,8 @@ class BodyReader {
       const anchor = [...anchors].reverse().find((a) => a.at <= pos);
       const sourcePos = anchor ? anchor.source + (pos - anchor.at) : first.start + pos;
       const at = [...tokens.slice(from, to)].reverse().find((y) => y.start <= sourcePos) ?? first;
-      const expected = parsed.error.expected ? `expected ${parsed.error.expected}` : parsed.error.message;
+      // A nesting cap says so; other faults say what was expected.
+      const expected = parsed.error.expected && !/nests deeper/.test(parsed.error.message) ? `expected ${parsed.error.expected}` : parsed.error.message;
       throw new LineError(at.line, `in "${clip(text)}": ${expected} near '${this.clean.slice(at.start, at.end)}'`);
     }
     return substitute(parsed.value, values);
@@ -485,6 +799,7 @@ class BodyReader {
           k = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
         } else if (isOp(this.tokens[k + 1], '.') || isOp(this.tokens[k + 1], '[')) {
           k = this.accessEnd(k, to) - 1;
+          if (k + 1 < to && isOp(this.tokens[k + 1], '(')) k = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
         } else if (!this.b.isBool(x.text, x.line)) {
           return { kind: 'non-bool', why: `uses ${x.text} (${this.b.variable(x.text, x.line).type})` };
         }

@@ -2,10 +2,16 @@
 // leaves (inputs, previous-scan values, and opaque values a truth table cannot judge). Both
 // the ST and the LD readers drive it; at the end each assigned BOOL becomes an ImplOutput.
 import { FALSE, TRUE, and, not, or, variable, type Expr } from '../logic/expr/ast.js';
-import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable } from './types.js';
+import { postOrder } from '../logic/implcheck.js';
+import { mapVars } from './expr-dag.js';
+import { LineError } from './line-error.js';
+import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable, VarSection } from './types.js';
 
 type Leaf =
+  /** An input by its declaration (VAR_INPUT, a global, an input address...). */
   | { readonly kind: 'input'; readonly name: string }
+  /** Read, never written, and no input by its declaration: an input only if a mapping says so. */
+  | { readonly kind: 'undriven'; readonly name: string; readonly item: CannotJudge }
   /** The variable's value from the previous scan; `kept` = an IF left it unassigned. */
   | { readonly kind: 'prev'; readonly name: string; readonly line: number; readonly kept: boolean }
   | { readonly kind: 'opaque'; readonly item: CannotJudge };
@@ -21,13 +27,24 @@ function isConst(e: Expr, value: boolean): boolean {
 
 /** AND with constants folded (keeps printed forms and trees small). */
 export function andFolded(...args: Expr[]): Expr {
-  if (args.some((a) => isConst(a, false))) return FALSE;
-  return and(...args.filter((a) => !isConst(a, true)));
+  return allOf(args);
 }
 
 export function orFolded(...args: Expr[]): Expr {
-  if (args.some((a) => isConst(a, true))) return TRUE;
-  return or(...args.filter((a) => !isConst(a, false)));
+  return anyOf(args);
+}
+
+/** AND of a list of any length (no argument spreading: an IF may have thousands of branches). */
+export function allOf(list: readonly Expr[]): Expr {
+  if (list.some((a) => isConst(a, false))) return FALSE;
+  const args = list.filter((a) => !isConst(a, true));
+  return args.length <= 1 ? and(...args) : { kind: 'and', args };
+}
+
+export function anyOf(list: readonly Expr[]): Expr {
+  if (list.some((a) => isConst(a, true))) return TRUE;
+  const args = list.filter((a) => !isConst(a, false));
+  return args.length <= 1 ? or(...args) : { kind: 'or', args };
 }
 
 export function notFolded(a: Expr): Expr {
@@ -37,18 +54,30 @@ export function notFolded(a: Expr): Expr {
 }
 
 const TRUE_TEXT = /^(TRUE|1|BOOL#(TRUE|1))$/i;
+const FALSE_TEXT = /^(FALSE|0|BOOL#(FALSE|0))$/i;
+
+/** Sections whose variables come from outside the POU when it does not write them. */
+const FROM_OUTSIDE: ReadonlySet<VarSection> = new Set(['input', 'in-out', 'global', 'external', 'undeclared']);
+
+/** Reasons listed per output at most (the verdict needs one; a report more than this is noise). */
+const MAX_REASONS = 20;
+const NO_REASONS: readonly number[] = [];
 
 export class PouBuilder {
   private readonly leaves: Leaf[] = [];
   private readonly leafOf = new Map<string, number>();
-  private env = new Map<string, Expr>();
+  private readonly env = new Map<string, Expr>();
+  /** Per open IF branch: each variable it assigned, with its value before the branch. */
+  private readonly journal: Map<string, Expr | undefined>[] = [];
   private readonly lastLine = new Map<string, number>();
   private readonly assignedOrder: string[] = [];
   private readonly items: CannotJudge[] = [];
+  private readonly itemByWhat = new Map<string, CannotJudge>();
   private readonly everyOutput: CannotJudge[] = [];
   private readonly notes: string[] = [];
   private readonly declared = new Map<string, ImplVariable>();
   private readonly undeclared = new Map<string, ImplVariable>();
+  private readonly initialValues = new Map<string, Expr>();
 
   /**
    * `assigned`: every variable the POU assigns somewhere (lower case); reading one of them
@@ -60,7 +89,11 @@ export class PouBuilder {
     private readonly assigned: ReadonlySet<string>,
   ) {
     for (const v of globals) this.declared.set(key(v.name), v);
-    for (const v of header.variables) this.declared.set(key(v.name), v);
+    for (const v of header.variables) {
+      // VAR_EXTERNAL names a global: a constant's value is the global's.
+      const global = v.section === 'external' ? this.declared.get(key(v.name)) : undefined;
+      this.declared.set(key(v.name), global ? { ...v, ...(global.initial !== undefined ? { initial: global.initial } : {}), ...(global.constant ? { constant: true } : {}) } : v);
+    }
   }
 
   get pou(): string {
@@ -87,6 +120,7 @@ export class PouBuilder {
   cannotJudge(kind: CannotJudgeKind, what: string, line: number): CannotJudge {
     const item: CannotJudge = { kind, pou: this.header.name, line, what };
     this.items.push(item);
+    this.itemByWhat.set(what, item);
     return item;
   }
 
@@ -102,8 +136,10 @@ export class PouBuilder {
   }
 
   /** A construct (RETURN, jump) after which no output of the POU can be judged. */
-  taintEveryOutput(kind: CannotJudgeKind, what: string, line: number): void {
-    this.everyOutput.push(this.cannotJudge(kind, what, line));
+  taintEveryOutput(kind: CannotJudgeKind, what: string, line: number): CannotJudge {
+    const item = this.cannotJudge(kind, what, line);
+    this.everyOutput.push(item);
+    return item;
   }
 
   note(text: string): void {
@@ -122,64 +158,125 @@ export class PouBuilder {
     return this.env.get(key(name));
   }
 
-  /** The value a variable has before this scan assigns it. */
+  /**
+   * The value a variable has before this scan assigns it. A constant, a VAR_TEMP (and a
+   * FUNCTION's own variables) and a variable the POU never writes that has an initial value
+   * are that value. Otherwise: written somewhere in the POU = its previous-scan value; from
+   * outside by its declaration = an input; else undriven.
+   */
   private before(name: string, line: number, kept: boolean): Expr {
     const k = key(name);
     const d = this.variable(name, line);
-    const scanLocal = d.section === 'temp' || (this.header.kind === 'FUNCTION' && d.section !== 'input');
-    if (scanLocal) return TRUE_TEXT.test(d.initial ?? '') ? TRUE : FALSE;
-    const stateful = this.assigned.has(k) && d.section !== 'input';
-    const leafKey = (stateful ? 'prev:' : 'in:') + k;
+    const scanLocal = d.section === 'temp' || (this.header.kind === 'FUNCTION' && !FROM_OUTSIDE.has(d.section));
+    if (d.constant || scanLocal) return this.initialValue(d);
+    const written = this.assigned.has(k);
+    if (!written && d.initial !== undefined && !FROM_OUTSIDE.has(d.section)) return this.initialValue(d);
+    const kind: Leaf['kind'] =
+      written && d.section !== 'input' ? 'prev' : FROM_OUTSIDE.has(d.section) || /^%I/i.test(d.address ?? '') ? 'input' : 'undriven';
+    const leafKey = `${kind}:${k}`;
     let index = this.leafOf.get(leafKey);
     if (index === undefined) {
-      this.leaves.push(stateful ? { kind: 'prev', name: d.name, line, kept } : { kind: 'input', name: d.name });
+      const where = `${d.section === 'output' ? 'VAR_OUTPUT' : 'VAR'}, line ${d.line}`;
+      const what =
+        `${d.name} (${where}) is read at line ${line} but never written in ${this.header.name} and is no input: ` +
+        'it stays FALSE or is set from outside; declare it VAR_INPUT or map it to a spec input';
+      this.leaves.push(
+        kind === 'prev'
+          ? { kind, name: d.name, line, kept }
+          : kind === 'input'
+            ? { kind, name: d.name }
+            : { kind, name: d.name, item: this.cannotJudge('undriven', what, line) },
+      );
       index = this.leaves.length - 1;
       this.leafOf.set(leafKey, index);
     }
     return variable(index, d.name);
   }
 
+  /** A declared initial value (FALSE when none); one that is not a BOOL literal cannot be judged. */
+  private initialValue(d: ImplVariable): Expr {
+    if (d.section === 'external' && d.initial === undefined) {
+      return this.opaque('unsupported', `${d.name} (line ${d.line}) is a constant declared outside this file: its value is not known`, d.line);
+    }
+    const text = (d.initial ?? 'FALSE').trim();
+    if (TRUE_TEXT.test(text)) return TRUE;
+    if (FALSE_TEXT.test(text)) return FALSE;
+    const k = key(d.name);
+    let value = this.initialValues.get(k);
+    if (!value) {
+      value = this.opaque('unsupported', `initial value '${text}' of ${d.name} (line ${d.line}) is not read`, d.line);
+      this.initialValues.set(k, value);
+    }
+    return value;
+  }
+
   assign(name: string, value: Expr, line: number): void {
     const k = key(name);
-    this.variable(name, line);
+    const d = this.variable(name, line);
+    if (d.constant) throw new LineError(line, `${d.name} is a CONSTANT (line ${d.line}) and cannot be assigned`);
     if (!this.lastLine.has(k)) this.assignedOrder.push(k);
     this.lastLine.set(k, line);
+    this.set(k, value);
+  }
+
+  /** Set a value, remembering in the open IF branch what it replaced. */
+  private set(k: string, value: Expr): void {
+    const open = this.journal[this.journal.length - 1];
+    if (open && !open.has(k)) open.set(k, this.env.get(k));
     this.env.set(k, value);
   }
 
   /**
    * Run an IF / ELSIF / ELSE chain. `enter` starts a branch from the values before the IF (its
    * condition is read with them); `leave` closes it with its condition (null for ELSE). `end`
-   * merges: value = (c1 AND v1) OR (NOT c1 AND c2 AND v2) ... and a branch that does not assign
-   * a variable keeps the value it had before the IF.
+   * merges: branch i is taken when g_i = c_i AND NOT c_1 ... AND NOT c_(i-1); a variable that
+   * branches S assign becomes OR over S of (g_i AND v_i), OR (no branch of S taken AND its
+   * value before the IF). Work and size are in proportion to what the branches assign.
    */
   beginIf(): IfChain {
-    const before = new Map(this.env);
-    const branches: { guard: Expr; env: Map<string, Expr> }[] = [];
-    const notYet: Expr[] = [];
+    const branches: { guard: Expr; changes: Map<string, Expr> }[] = [];
+    let rest: Expr = TRUE;
     let hasElse = false;
+    let open: Map<string, Expr | undefined> | undefined;
     return {
       enter: () => {
-        this.env = new Map(before);
+        open = new Map();
+        this.journal.push(open);
       },
       leave: (cond: Expr | null) => {
-        branches.push({ guard: andFolded(...notYet, cond ?? TRUE), env: this.env });
-        if (cond) notYet.push(notFolded(cond));
+        this.journal.pop();
+        const changes = new Map<string, Expr>();
+        for (const [k, old] of open!) {
+          changes.set(k, this.env.get(k)!);
+          if (old === undefined) this.env.delete(k);
+          else this.env.set(k, old);
+        }
+        branches.push({ guard: andFolded(rest, cond ?? TRUE), changes });
+        if (cond) rest = andFolded(rest, notFolded(cond));
         else hasElse = true;
       },
       end: (line: number) => {
-        if (!hasElse) branches.push({ guard: andFolded(...notYet), env: before });
-        const changed = new Set<string>();
-        for (const b of branches) for (const [k, v] of b.env) if (before.get(k) !== v) changed.add(k);
-        this.env = new Map(before);
-        for (const k of changed) {
-          const name = this.variable(k, line).name;
-          const prior = before.get(k) ?? this.before(name, line, true);
-          const values = branches.map((b) => b.env.get(k) ?? prior);
-          const value = values.every((v) => v === values[0])
-            ? values[0]!
-            : orFolded(...branches.map((b, i) => andFolded(b.guard, values[i]!)));
-          this.env.set(k, value);
+        const changed = new Map<string, number[]>();
+        branches.forEach((b, i) => {
+          for (const k of b.changes.keys()) {
+            const list = changed.get(k);
+            if (list) list.push(i);
+            else changed.set(k, [i]);
+          }
+        });
+        for (const [k, taken] of changed) {
+          const values = taken.map((i) => branches[i]!.changes.get(k)!);
+          const all = hasElse && taken.length === branches.length;
+          if (all && values.every((v) => v === values[0])) {
+            this.set(k, values[0]!);
+            continue;
+          }
+          const terms = taken.map((i, j) => andFolded(branches[i]!.guard, values[j]!));
+          if (!all) {
+            const prior = this.env.get(k) ?? this.before(this.variable(k, line).name, line, true);
+            terms.push(allOf([...taken.map((i) => notFolded(branches[i]!.guard)), prior]));
+          }
+          this.set(k, anyOf(terms));
         }
       },
     };
@@ -187,13 +284,17 @@ export class PouBuilder {
 
   finish(): ImplPou {
     const inputs: string[] = [];
+    const undriven: { name: string; item: CannotJudge }[] = [];
     const inputIndex = new Map<number, number>();
     this.leaves.forEach((leaf, i) => {
-      if (leaf.kind === 'input') {
+      if (leaf.kind === 'input' || leaf.kind === 'undriven') {
         inputIndex.set(i, inputs.length);
         inputs.push(leaf.name);
+        if (leaf.kind === 'undriven') undriven.push({ name: leaf.name, item: leaf.item });
       }
     });
+    const remapped = new Map<Expr, Expr>();
+    const reasonLeaves = new Map<Expr, readonly number[]>();
     const outputs: ImplOutput[] = [];
     for (const k of this.assignedOrder) {
       const d = this.variable(k, 0);
@@ -201,21 +302,16 @@ export class PouBuilder {
       const value = this.env.get(k)!;
       const line = this.lastLine.get(k)!;
       const reasons = [...this.everyOutput];
-      for (const i of leavesOf(value)) {
+      for (const i of this.reasonsOf(value, reasonLeaves)) {
         const leaf = this.leaves[i]!;
         if (leaf.kind === 'opaque') reasons.push(leaf.item);
         else if (leaf.kind === 'prev') reasons.push(this.stateReason(d.name, leaf, line));
-      }
-      const size = expandedSize(value);
-      if (size > MAX_EXPANDED) {
-        const what = `${d.name} grows to about ${size.toExponential(1)} operations once intermediates are substituted, too many to evaluate`;
-        reasons.push(this.cannotJudge('unsupported', what, line));
       }
       const unique = [...new Set(reasons)];
       outputs.push(
         unique.length > 0
           ? { name: d.name, section: d.section, line, cannotJudge: unique }
-          : { name: d.name, section: d.section, line, expr: remap(value, inputIndex), cannotJudge: [] },
+          : { name: d.name, section: d.section, line, expr: mapVars(value, (v) => variable(inputIndex.get(v.input)!, v.name), remapped), cannotJudge: [] },
       );
     }
     return {
@@ -225,10 +321,29 @@ export class PouBuilder {
       line: this.header.line,
       variables: [...this.header.variables, ...this.undeclared.values()],
       inputs,
+      undriven,
       outputs,
       cannotJudge: this.items,
       notes: this.notes,
     };
+  }
+
+  /**
+   * The first MAX_REASONS leaves (by index) under `root` that make it unjudgeable: opaque and
+   * previous-scan values. `memo` is shared by every output, so the POU is walked once.
+   */
+  private reasonsOf(root: Expr, memo: Map<Expr, readonly number[]>): readonly number[] {
+    for (const x of postOrder([root], (e) => memo.has(e))) {
+      if (x.kind === 'var') {
+        const leaf = this.leaves[x.input]!;
+        memo.set(x, leaf.kind === 'opaque' || leaf.kind === 'prev' ? [x.input] : NO_REASONS);
+        continue;
+      }
+      const kids = x.kind === 'not' ? [x.arg] : x.kind === 'const' ? [] : x.args;
+      const lists = [...new Set(kids.map((c) => memo.get(c)!).filter((l) => l.length > 0))];
+      memo.set(x, lists.length === 0 ? NO_REASONS : lists.length === 1 ? lists[0]! : [...new Set(lists.flat())].sort((a, b) => a - b).slice(0, MAX_REASONS));
+    }
+    return memo.get(root)!;
   }
 
   /** The reason an output that depends on a previous-scan value cannot be judged (recorded once). */
@@ -239,8 +354,7 @@ export class PouBuilder {
         ? `${output} keeps its previous value when no branch of the IF at line ${leaf.line} assigns it (latch)`
         : `${output} feeds back into itself (seal-in / latch), read at line ${leaf.line}`
       : `${output} (line ${line}) uses ${leaf.name} from the previous scan (${leaf.kept ? 'kept by the IF' : 'read'} at line ${leaf.line}, before this scan assigns it)`;
-    const existing = this.items.find((c) => c.what === what);
-    return existing ?? this.cannotJudge(self ? 'seal-in' : 'previous-scan', what, self ? leaf.line : line);
+    return this.itemByWhat.get(what) ?? this.cannotJudge(self ? 'seal-in' : 'previous-scan', what, self ? leaf.line : line);
   }
 }
 
@@ -248,55 +362,4 @@ export interface IfChain {
   enter(): void;
   leave(cond: Expr | null): void;
   end(line: number): void;
-}
-
-/**
- * Substituted expressions share subtrees; evaluated as trees they may blow up (a variable
- * rewritten from itself twice per statement doubles each time). Beyond this they are reported.
- */
-const MAX_EXPANDED = 2_000_000;
-
-/** Node count of the expression written out as a tree (shared subtrees counted each time). */
-function expandedSize(e: Expr): number {
-  const memo = new Map<Expr, number>();
-  const go = (x: Expr): number => {
-    const known = memo.get(x);
-    if (known !== undefined) return known;
-    const n = x.kind === 'not' ? 1 + go(x.arg) : x.kind === 'const' || x.kind === 'var' ? 1 : x.args.reduce((sum, a) => sum + go(a), 1);
-    memo.set(x, n);
-    return n;
-  };
-  return go(e);
-}
-
-/** Leaf indices an expression uses (each shared subtree visited once). */
-function leavesOf(e: Expr): number[] {
-  const seen = new Set<Expr>();
-  const out = new Set<number>();
-  const walk = (x: Expr): void => {
-    if (seen.has(x)) return;
-    seen.add(x);
-    if (x.kind === 'var') out.add(x.input);
-    else if (x.kind === 'not') walk(x.arg);
-    else if (x.kind !== 'const') x.args.forEach(walk);
-  };
-  walk(e);
-  return [...out].sort((a, b) => a - b);
-}
-
-/** The same expression with leaf indices replaced by input indices; shared subtrees stay shared. */
-function remap(e: Expr, index: ReadonlyMap<number, number>): Expr {
-  const memo = new Map<Expr, Expr>();
-  const go = (x: Expr): Expr => {
-    const done = memo.get(x);
-    if (done) return done;
-    let r: Expr;
-    if (x.kind === 'var') r = variable(index.get(x.input)!, x.name);
-    else if (x.kind === 'not') r = not(go(x.arg));
-    else if (x.kind === 'const') r = x;
-    else r = { kind: x.kind, args: x.args.map(go) };
-    memo.set(x, r);
-    return r;
-  };
-  return go(e);
 }

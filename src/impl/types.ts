@@ -21,7 +21,13 @@ export type CannotJudgeKind =
   /** CASE, loops, RETURN, jumps: the flow itself is not a Boolean function. */
   | 'control-flow'
   /** Array elements, structure members, bodies in languages not read. */
-  | 'unsupported';
+  | 'unsupported'
+  /**
+   * A variable read but never written in the POU that is no input (VAR, VAR_OUTPUT without an
+   * initial value): its value comes from outside the POU or stays FALSE. A mapping that names
+   * it for a spec input makes it an input.
+   */
+  | 'undriven';
 
 /** One construct a truth table cannot judge, where it is. */
 export interface CannotJudge {
@@ -42,6 +48,10 @@ export interface ImplVariable {
   readonly type: string;
   /** Initial value as written after `:=`, if any. */
   readonly initial?: string;
+  /** Direct address after AT (`%IX0.1`): an input address makes the variable an input. */
+  readonly address?: string;
+  /** Declared CONSTANT: its initial value (FALSE when none) is all it ever is. */
+  readonly constant?: boolean;
   readonly line: number;
 }
 
@@ -68,8 +78,13 @@ export interface ImplPou {
   readonly language: 'ST' | 'LD' | 'FBD' | 'IL' | 'SFC';
   readonly line: number;
   readonly variables: readonly ImplVariable[];
-  /** Variables read but never assigned in the POU: the inputs of its outputs' expressions. */
+  /** Variables read before the scan assigns them: the inputs of its outputs' expressions. */
   readonly inputs: readonly string[];
+  /**
+   * Those of `inputs` that are not inputs by their declaration (`undriven` reads): an output
+   * that uses one is unchecked unless a mapping names it for a spec input.
+   */
+  readonly undriven: readonly { readonly name: string; readonly item: CannotJudge }[];
   readonly outputs: readonly ImplOutput[];
   /** Every construct found that a truth table cannot judge, whether or not an output uses it. */
   readonly cannotJudge: readonly CannotJudge[];
@@ -89,4 +104,6 @@ export interface ReadContext {
   readonly globals: readonly ImplVariable[];
   /** Names of function block types the project defines (upper case). */
   readonly blockTypes: ReadonlySet<string>;
+  /** Declarations of the project's own POUs (upper-case name): which parameters write back. */
+  readonly pouVariables: ReadonlyMap<string, readonly ImplVariable[]>;
 }

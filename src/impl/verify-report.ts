@@ -52,7 +52,7 @@ export function verifyReportText(report: VerifyReport): string {
     lines.push('');
     const impl = o.variable ? ` = ${o.variable} (line ${o.line})` : '';
     lines.push(`${WORD[o.status]}  ${o.output.header} [${o.cell}]${impl}`);
-    if (o.status === 'equal') lines.push(`  equal on all ${o.combinations} combinations`);
+    if (o.status === 'equal') lines.push(`  ${equalLine(o)}`);
     if (o.status === 'differs') lines.push(...differences(report, o));
     for (const r of o.reasons) lines.push(`  ${r}`);
     if (o.status === 'equal' || o.status === 'differs') lines.push(...openLines(o));
@@ -79,13 +79,26 @@ export function verifyReportText(report: VerifyReport): string {
   return lines.join('\n') + '\n';
 }
 
+/** "equal on all N combinations" only when all N were judged. */
+function equalLine(o: OutputVerdict): string {
+  if (o.gaps.judged || o.gaps.count === 0) return `equal on all ${o.combinations} combinations`;
+  return `equal on the ${o.combinations - o.gaps.count} specified combinations; ${o.gaps.count} gap combinations not judged (--gaps-free)`;
+}
+
+/** Where a counterexample's expected value comes from. */
+function sourceText(c: OutputVerdict['counterexamples'][number], safe: 0 | 1): string {
+  if (c.source === 'gap') return `gap: no row covers it, safe value ${safe}`;
+  if (c.source === 'conflict') return `conflict: rows ask for 1 and 0, safe value ${safe}`;
+  return c.specRow ? `${c.specRow.cells} (output cell ${c.specRow.outputCell})` : '-';
+}
+
 function differences(report: VerifyReport, o: OutputVerdict): string[] {
   const inputs = report.inputs[o.table] ?? [];
   const out = [`  differs on ${o.mismatchCount} of ${o.combinations} combinations${o.mismatchCount > o.counterexamples.length ? ` (first ${o.counterexamples.length} shown)` : ''}:`];
   out.push(`    ${inputs.map((s) => s.identifier).join(' ')} | spec impl | spec row`);
   for (const c of o.counterexamples) {
     const cells = c.inputs.map((v, i) => String(v).padStart(inputs[i]?.identifier.length ?? 1)).join(' ');
-    const row = c.specRow ? `${c.specRow.cells} (output cell ${c.specRow.outputCell})` : '-';
+    const row = sourceText(c, o.gaps.safe);
     out.push(`    ${cells} | ${String(c.expected).padStart(4)} ${String(c.actual).padStart(4)} | ${row}`);
   }
   const more = o.differenceMonomialCount > o.differenceMonomials.length ? ` (first ${o.differenceMonomials.length} of ${o.differenceMonomialCount})` : '';
@@ -99,9 +112,10 @@ function openLines(o: OutputVerdict): string[] {
   const n = Math.log2(o.combinations);
   if (o.dontCare.count > 0) out.push(`  don't-care: ${o.dontCare.count} combinations, the implementation turns ${o.dontCare.implementationOn} of them ON (not counted as differences)`);
   if (o.gaps.count > 0) {
-    out.push(`  gaps (no row covers them; safe value ${o.gaps.safe}): ${o.gaps.count} combinations, ${o.gaps.unsafe} of them not at the safe value in the implementation (not counted as differences)`);
+    const judged = o.gaps.judged ? 'judged at the safe value: counted as differences' : 'not judged under --gaps-free, not counted as differences';
+    out.push(`  gaps (no row covers them; safe value ${o.gaps.safe}): ${o.gaps.count} combinations, ${o.gaps.unsafe} of them not at the safe value in the implementation (${judged})`);
     for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${inputValues(n, k).join(' ')}`);
   }
-  if (o.conflicted > 0) out.push(`  conflicts: ${o.conflicted} combinations the spec asks to be both 1 and 0 (not counted)`);
+  if (o.conflicted > 0) out.push(`  conflicts: ${o.conflicted} combinations the spec asks to be both 1 and 0 (judged at the safe value ${o.gaps.safe})`);
   return out;
 }

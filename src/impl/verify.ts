@@ -1,13 +1,14 @@
 // Implementation check of a whole program: each spec output matched to the variable that
 // implements it, its inputs matched to the program's, and the two functions compared on every
-// input combination. Don't-cares, gaps and conflicts are reported beside, never as differences.
+// input combination. Gaps and conflicts are judged at the safe value, as the spec's functions
+// take them (`gapsFree` leaves gaps unjudged); don't-cares are reported beside, never differences.
 import type { Monomial } from '../logic/anf.js';
-import { count, intersect, members, minus, union, type Combination } from '../logic/bits.js';
+import { count, has, intersect, members, minus, union, type Combination } from '../logic/bits.js';
 import type { BoolFunction } from '../logic/boolfn.js';
 import { cubeContains } from '../logic/cube.js';
 import { variable, type Expr } from '../logic/expr/ast.js';
-import { truthTable } from '../logic/expr/evaluate.js';
 import { checkImplementation } from '../logic/implcheck.js';
+import { mapVars, nodeCount, varsOf } from './expr-dag.js';
 import { LISTED } from '../logic/proof.js';
 import { signalIndex, type Signal } from '../logic/signals.js';
 import { qualifiedAddress } from '../spec/grid.js';
@@ -23,6 +24,8 @@ export interface CounterexampleRow {
   readonly inputs: readonly (0 | 1)[];
   readonly expected: 0 | 1;
   readonly actual: 0 | 1;
+  /** Where `expected` comes from: a spec row, or the safe value of a gap or a conflict. */
+  readonly source: 'row' | 'gap' | 'conflict';
   /** The spec row that asks for `expected` here: its cells, and its cell for this output. */
   readonly specRow?: { readonly cells: string; readonly outputCell: string };
 }
@@ -52,8 +55,11 @@ export interface OutputVerdict {
   readonly differenceMonomials: readonly string[];
   readonly differenceMonomialCount: number;
   readonly dontCare: OpenCombinations;
-  /** Gaps take the safe value in the spec; those where the implementation is not safe are counted. */
-  readonly gaps: OpenCombinations & { readonly safe: 0 | 1; readonly unsafe: number; readonly unsafeExamples: readonly Combination[] };
+  /**
+   * Gaps take the safe value in the spec; those where the implementation is not safe are
+   * counted, and are differences unless `judged` is false (`gapsFree`).
+   */
+  readonly gaps: OpenCombinations & { readonly safe: 0 | 1; readonly unsafe: number; readonly unsafeExamples: readonly Combination[]; readonly judged: boolean };
   /** Combinations the spec asks to be both 1 and 0. */
   readonly conflicted: number;
   /** Why the output is unchecked or not found. */
@@ -78,6 +84,17 @@ export interface VerifyReport {
   readonly notes: readonly string[];
 }
 
+export interface VerifyOptions {
+  /** Gaps are not judged (they are reported, never differences). Default: judged at the safe value. */
+  readonly gapsFree?: boolean;
+}
+
+/**
+ * Evaluating an output costs (distinct expression nodes) x (2^n / 32) words; beyond this it
+ * is unchecked rather than run for minutes.
+ */
+const MAX_EVALUATION_WORDS = 2 ** 31;
+
 const same = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase();
 
 /** Split "Pou.Var" into its POU and variable; a plain name has no POU. */
@@ -100,7 +117,7 @@ function stands(mapping: NameMapping | undefined, signal: Signal, pou: ImplPou, 
   return signalIndex([signal], name) === 0;
 }
 
-export function verifyImplementation(tables: readonly SpecTable[], impl: ImplProgram, mapping?: NameMapping): VerifyReport {
+export function verifyImplementation(tables: readonly SpecTable[], impl: ImplProgram, mapping?: NameMapping, options: VerifyOptions = {}): VerifyReport {
   const outputs: OutputVerdict[] = [];
   const inputs: Record<string, readonly Signal[]> = {};
   const usedProgram = new Set<string>();
@@ -109,7 +126,7 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
     const where = qualifiedAddress(table.sheet, table.range);
     inputs[where] = table.inputs;
     table.outputs.forEach((spec, o) => {
-      const verdict = verifyOutput(table, o, impl, mapping);
+      const verdict = verifyOutput(table, o, impl, mapping, options);
       outputs.push(verdict);
       if (verdict.variable) usedProgram.add(verdict.variable.toLowerCase());
       if (verdict.status === 'not-found') unmatchedSpec.push(`${where}: output ${spec.signal.header}`);
@@ -157,7 +174,7 @@ function unusedPairs(tables: readonly SpecTable[], impl: ImplProgram, mapping: N
   return out;
 }
 
-function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: NameMapping | undefined): OutputVerdict {
+function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: NameMapping | undefined, options: VerifyOptions): OutputVerdict {
   const spec = table.outputs[o]!;
   const n = table.inputs.length;
   const base = {
@@ -170,7 +187,7 @@ function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: N
     differenceMonomials: [],
     differenceMonomialCount: 0,
     dontCare: { count: 0, implementationOn: 0 },
-    gaps: { count: 0, implementationOn: 0, safe: spec.safe, unsafe: 0, unsafeExamples: [] },
+    gaps: { count: 0, implementationOn: 0, safe: spec.safe, unsafe: 0, unsafeExamples: [], judged: !options.gapsFree },
     conflicted: 0,
     cannotJudge: [],
   };
@@ -192,66 +209,71 @@ function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: N
     return { ...found, status: 'unchecked', cannotJudge: out.cannotJudge, reasons: out.cannotJudge.map((c) => `${c.what} (${c.pou}, line ${c.line})`) };
   }
   const remapped = toSpecInputs(out, pou, table, mapping);
-  if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons };
-  return { ...found, ...compare(remapped.expr, table, o) };
+  if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons, cannotJudge: remapped.cannotJudge };
+  const work = nodeCount(remapped.expr) * Math.ceil(2 ** n / 32);
+  if (work > MAX_EVALUATION_WORDS) {
+    return { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}) is too large to evaluate over ${n} inputs (${nodeCount(remapped.expr)} distinct operations)`] };
+  }
+  return { ...found, ...compare(remapped.expr, table, o, options) };
 }
 
-/** The output's expression over the spec's inputs, or why its inputs do not all match. */
+/**
+ * The output's expression over the spec's inputs, or why its inputs do not all match. A read
+ * the POU does not declare as an input (`undriven`) counts only when a mapping names it.
+ */
 function toSpecInputs(
   out: ImplOutput,
   pou: ImplPou,
   table: SpecTable,
   mapping: NameMapping | undefined,
-): { ok: true; expr: Expr } | { ok: false; reasons: string[] } {
+): { ok: true; expr: Expr } | { ok: false; reasons: string[]; cannotJudge: CannotJudge[] } {
   const index: number[] = [];
   const reasons: string[] = [];
+  const cannotJudge: CannotJudge[] = [];
+  const undriven = new Map(pou.undriven.map((u) => [u.name.toLowerCase(), u.item]));
+  const mapped = (name: string): boolean =>
+    mapping?.pairs.some((p) => {
+      const q = qualified(p.program);
+      return same(q.name, name) && (q.pou === undefined || same(q.pou, pou.name));
+    }) ?? false;
   pou.inputs.forEach((name, j) => {
     const matches = table.inputs.map((s, i) => (stands(mapping, s, pou, name) ? i : -1)).filter((i) => i >= 0);
     if (matches.length > 1) reasons.push(`${name} stands for more than one spec input (${matches.map((i) => table.inputs[i]!.header).join(', ')})`);
     index[j] = matches.length === 1 ? matches[0]! : -1;
   });
-  const used = new Set<number>();
-  const walk = (e: Expr): void => {
-    if (e.kind === 'var') used.add(e.input);
-    else if (e.kind === 'not') walk(e.arg);
-    else if (e.kind !== 'const') e.args.forEach(walk);
-  };
-  walk(out.expr!);
-  for (const j of [...used].sort((a, b) => a - b)) {
-    if (index[j] === -1 && !reasons.some((r) => r.startsWith(`${pou.inputs[j]} `))) {
-      reasons.push(`${out.name} uses ${pou.inputs[j]}, which matches no input of the spec table (map it in a mapping table)`);
+  for (const j of varsOf(out.expr!)) {
+    const name = pou.inputs[j]!;
+    const item = undriven.get(name.toLowerCase());
+    if (item && !mapped(name)) {
+      reasons.push(`${item.what} (${item.pou}, line ${item.line})`);
+      cannotJudge.push(item);
+    } else if (index[j] === -1 && !reasons.some((r) => r.startsWith(`${name} `))) {
+      reasons.push(`${out.name} uses ${name}, which matches no input of the spec table (map it in a mapping table)`);
     }
   }
-  if (reasons.length > 0) return { ok: false, reasons };
-  const go = (e: Expr): Expr => {
-    switch (e.kind) {
-      case 'const':
-        return e;
-      case 'var':
-        return variable(index[e.input]!, table.inputs[index[e.input]!]!.identifier);
-      case 'not':
-        return { kind: 'not', arg: go(e.arg) };
-      default:
-        return { kind: e.kind, args: e.args.map(go) };
-    }
-  };
-  return { ok: true, expr: go(out.expr!) };
+  if (reasons.length > 0) return { ok: false, reasons, cannotJudge };
+  return { ok: true, expr: mapVars(out.expr!, (v) => variable(index[v.input]!, table.inputs[index[v.input]!]!.identifier)) };
 }
 
-function compare(expr: Expr, table: SpecTable, o: number): Pick<OutputVerdict, 'status' | 'mismatchCount' | 'counterexamples' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'> {
+function compare(
+  expr: Expr,
+  table: SpecTable,
+  o: number,
+  options: VerifyOptions,
+): Pick<OutputVerdict, 'status' | 'mismatchCount' | 'counterexamples' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'> {
   const spec = table.outputs[o]!;
   const { fn, gaps, conflicted } = spec.built;
   const n = fn.n;
-  // Gaps and conflicts are the spec's own business: they join the don't-cares for the check.
-  const open = union(gaps, conflicted);
-  const judged: BoolFunction = { n, on: minus(fn.on, open), dc: union(fn.dc, open) };
+  // The spec's function already gives gaps and conflicts the safe value; --gaps-free frees gaps.
+  const judged: BoolFunction = options.gapsFree ? { n, on: minus(fn.on, gaps), dc: union(fn.dc, gaps) } : fn;
   const check = checkImplementation(expr, judged);
-  const values = truthTable(expr, n);
-  const dc = minus(fn.dc, open);
+  const values = check.values;
+  const dc = minus(fn.dc, union(gaps, conflicted));
   const unsafeGaps = spec.safe === 1 ? minus(gaps, values) : intersect(gaps, values);
   const counterexamples = check.counterexamples.map((c) => {
-    const specRow = specRowOf(table, o, c.combination, c.expected);
-    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, ...(specRow ? { specRow } : {}) };
+    const source = has(gaps, c.combination) ? 'gap' : has(conflicted, c.combination) ? 'conflict' : 'row';
+    const specRow = source === 'row' ? specRowOf(table, o, c.combination, c.expected) : undefined;
+    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, source, ...(specRow ? { specRow } : {}) } as const;
   });
   return {
     status: check.equal ? 'equal' : 'differs',
@@ -266,6 +288,7 @@ function compare(expr: Expr, table: SpecTable, o: number): Pick<OutputVerdict, '
       safe: spec.safe,
       unsafe: count(unsafeGaps),
       unsafeExamples: members(unsafeGaps, LISTED),
+      judged: !options.gapsFree,
     },
     conflicted: count(conflicted),
     reasons: [],

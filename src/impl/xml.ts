@@ -12,6 +12,8 @@ export interface XmlElement {
   readonly children: readonly XmlElement[];
   /** The character data directly inside this element (CDATA included), entities decoded. */
   readonly text: string;
+  /** Character data and child elements in document order (mixed content as written). */
+  readonly content: readonly (string | XmlElement)[];
   /** 1-based line of the element's `<`. */
   readonly line: number;
   /** 1-based line just after the start tag, where `text` begins. */
@@ -23,6 +25,7 @@ interface Building {
   attrs: Record<string, string>;
   children: XmlElement[];
   text: string;
+  content: (string | XmlElement)[];
   line: number;
   contentLine: number;
 }
@@ -51,7 +54,14 @@ export function childNamed(el: XmlElement, name: string): XmlElement | undefined
 
 /** All character data inside the element and its descendants, in document order. */
 export function textContent(el: XmlElement): string {
-  return el.children.length === 0 ? el.text : el.text + el.children.map(textContent).join('');
+  const parts: string[] = [];
+  const stack: (string | XmlElement)[] = [el];
+  while (stack.length > 0) {
+    const x = stack.pop()!;
+    if (typeof x === 'string') parts.push(x);
+    else for (let i = x.content.length - 1; i >= 0; i--) stack.push(x.content[i]!);
+  }
+  return parts.join('');
 }
 
 /** Parse a whole document; the result is its root element. */
@@ -81,7 +91,11 @@ class Reader {
         const startLine = this.line;
         const raw = this.take(textEnd);
         const top = stack[stack.length - 1];
-        if (top) top.text += this.decode(raw, startLine);
+        if (top) {
+          const text = this.decode(raw, startLine);
+          top.text += text;
+          top.content.push(text);
+        }
         else if (raw.trim() !== '') throw new LineError(startLine, 'text outside the root element');
       }
       if (lt < 0) break;
@@ -92,7 +106,9 @@ class Reader {
         this.pos += 9;
         const end = this.src.indexOf(']]>', this.pos);
         if (end < 0) throw new LineError(this.line, 'CDATA section is not closed');
-        top.text += this.take(end);
+        const text = this.take(end);
+        top.text += text;
+        top.content.push(text);
         this.pos += 3;
       } else if (this.src.startsWith('<?', lt)) this.skipPast('?>', 'processing instruction');
       else if (this.src.startsWith('<!DOCTYPE', lt)) {
@@ -112,15 +128,19 @@ class Reader {
         }
         const done: XmlElement = open;
         const parent = stack[stack.length - 1];
-        if (parent) parent.children.push(done);
-        else root = done;
+        if (parent) {
+          parent.children.push(done);
+          parent.content.push(done);
+        } else root = done;
       } else {
         if (root) throw new LineError(this.line, 'a second root element');
         const el = this.startTag();
         if (el.selfClosing) {
           const parent = stack[stack.length - 1];
-          if (parent) parent.children.push(el.element);
-          else root = el.element;
+          if (parent) {
+            parent.children.push(el.element);
+            parent.content.push(el.element);
+          } else root = el.element;
         } else {
           if (stack.length >= MAX_DEPTH) throw new LineError(el.element.line, `elements nest deeper than ${MAX_DEPTH} levels`);
           stack.push(el.element);
@@ -198,6 +218,7 @@ class Reader {
       attrs: Object.fromEntries(attrs),
       children: [],
       text: '',
+      content: [],
       line,
       contentLine: this.line,
     };

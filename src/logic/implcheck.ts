@@ -1,9 +1,8 @@
 // Implementation check: logic already written (parsed to an expression) against the spec.
 import { anfDifference, type Monomial } from './anf.js';
-import { has, intersect, union, type Combination } from './bits.js';
+import { complement, emptySet, fullSet, has, inputSet, intersect, symmetricDifference, union, type BitSet, type Combination } from './bits.js';
 import type { BoolFunction } from './boolfn.js';
 import type { Expr } from './expr/ast.js';
-import { truthTable } from './expr/evaluate.js';
 import { LISTED, inputValues, prove } from './proof.js';
 
 export interface Counterexample {
@@ -33,11 +32,13 @@ export interface ImplCheck {
   readonly differenceMonomialCount: number;
   /** Don't-care combinations the implementation turns ON. */
   readonly dontCareOn: number;
+  /** The implementation's truth table. */
+  readonly values: BitSet;
 }
 
 /** Check an implementation (an expression over fn's inputs) against the spec fn. */
 export function checkImplementation(expr: Expr, fn: BoolFunction): ImplCheck {
-  const impl = truthTable(expr, fn.n);
+  const impl = sharedTruthTable(expr, fn.n);
   const proof = prove(fn, impl);
   const counterexamples = proof.mismatches.map((k) => {
     const expected: 0 | 1 = has(fn.on, k) ? 1 : 0;
@@ -54,5 +55,73 @@ export function checkImplementation(expr: Expr, fn: BoolFunction): ImplCheck {
     differenceMonomials: difference.slice(0, LISTED),
     differenceMonomialCount: difference.length,
     dontCareOn: proof.permitsAlsoCount,
+    values: impl,
   };
+}
+
+const operands = (e: Expr): readonly Expr[] => (e.kind === 'not' ? [e.arg] : e.kind === 'const' || e.kind === 'var' ? [] : e.args);
+
+/**
+ * Every distinct node reachable from the roots, each after its operands (post-order), without
+ * recursion: programs read back share subtrees (an intermediate used twice) and chain them as
+ * deep as the program is long. Nodes for which `done` holds are left out, and so is what lies
+ * only below them (a walk continued over several roots).
+ */
+export function postOrder(roots: readonly Expr[], done: (e: Expr) => boolean = () => false): Expr[] {
+  const out: Expr[] = [];
+  const state = new Map<Expr, 1 | 2>();
+  const stack: Expr[] = roots.filter((r) => !done(r)).reverse();
+  while (stack.length > 0) {
+    const x = stack[stack.length - 1]!;
+    const seen = state.get(x);
+    if (seen === 2) {
+      stack.pop();
+    } else if (seen === 1) {
+      stack.pop();
+      state.set(x, 2);
+      out.push(x);
+    } else {
+      state.set(x, 1);
+      const kids = operands(x);
+      for (let i = kids.length - 1; i >= 0; i--) if (!state.has(kids[i]!) && !done(kids[i]!)) stack.push(kids[i]!);
+    }
+  }
+  return out;
+}
+
+/**
+ * The truth table of an expression whose subtrees may be shared and deeply chained: each
+ * distinct node is evaluated once, in post-order, and its bit set dropped once its last user
+ * is done. Costs (distinct nodes) x 2^n / 32 words.
+ */
+export function sharedTruthTable(expr: Expr, n: number): BitSet {
+  const order = postOrder([expr]);
+  const users = new Map<Expr, number>();
+  for (const x of order) for (const k of operands(x)) users.set(k, (users.get(k) ?? 0) + 1);
+  const values = new Map<Expr, BitSet>();
+  const columns = new Map<number, BitSet>();
+  const take = (k: Expr): BitSet => {
+    const v = values.get(k)!;
+    const left = users.get(k)! - 1;
+    users.set(k, left);
+    if (left === 0) values.delete(k);
+    return v;
+  };
+  for (const x of order) {
+    let v: BitSet;
+    if (x.kind === 'const') v = x.value ? fullSet(n) : emptySet(n);
+    else if (x.kind === 'var') {
+      if (!Number.isInteger(x.input) || x.input < 0 || x.input >= n) throw new Error(`bug: expression uses input ${x.input} of a function of ${n} inputs`);
+      v = columns.get(x.input) ?? inputSet(n, x.input);
+      columns.set(x.input, v);
+    } else if (x.kind === 'not') v = complement(take(x.arg), n);
+    else if (x.args.length === 0) v = x.kind === 'and' ? fullSet(n) : emptySet(n);
+    else {
+      const op = x.kind === 'and' ? intersect : x.kind === 'or' ? union : symmetricDifference;
+      v = take(x.args[0]!);
+      for (let i = 1; i < x.args.length; i++) v = op(v, take(x.args[i]!));
+    }
+    values.set(x, v);
+  }
+  return values.get(expr)!;
 }

@@ -18,8 +18,8 @@ export function implementationWord(o: Pick<OutputVerdict, 'status'>): Implementa
 }
 
 /** A program checked against every table read; outputs of not-analysed tables come back unchecked. */
-export function verifyProgram(wb: Workbook, program: ImplProgram, mapping?: NameMapping): VerifyReport {
-  const report = verifyImplementation(wb.tables.map((t) => t.table), program, mapping);
+export function verifyProgram(wb: Workbook, program: ImplProgram, mapping?: NameMapping, options: { gapsFree?: boolean } = {}): VerifyReport {
+  const report = verifyImplementation(wb.tables.map((t) => t.table), program, mapping, options);
   const stopped = new Map(wb.tables.filter((t) => !t.analysis).map((t) => [qualifiedAddress(t.table.sheet, t.table.range), t]));
   if (stopped.size === 0) return report;
   return { ...report, outputs: report.outputs.map((o) => unchecked(o, stopped.get(o.table))) };

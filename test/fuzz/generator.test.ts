@@ -93,8 +93,8 @@ describe('fuzz judge', () => {
   const equal: Expected = { verdict: 'equal', mismatches: new Map(), outcomes: [] };
   const differs: Expected = { verdict: 'differs', mismatches: new Map([[2, { expected: 0, actual: 1 }]]), outcomes: [] };
   const state: Expected = { verdict: 'state', mismatches: new Map(), outcomes: [] };
-  const gaps = { count: 0, implementationOn: 0, safe: 0 as const, unsafe: 0, unsafeExamples: [] };
-  const at2 = [{ combination: 2, inputs: [1, 0] as (0 | 1)[], expected: 0 as const, actual: 1 as const }];
+  const gaps = { count: 0, implementationOn: 0, safe: 0 as const, unsafe: 0, unsafeExamples: [], judged: true };
+  const at2 = [{ combination: 2, inputs: [1, 0] as (0 | 1)[], expected: 0 as const, actual: 1 as const, source: 'row' as const }];
 
   it('takes an EQUAL only where the interpreter knows the output equal', () => {
     expect(contradictionOf(equal, { status: 'equal', counterexamples: [], gaps })).toBeUndefined();

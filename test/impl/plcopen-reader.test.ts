@@ -218,6 +218,45 @@ describe('PLCopen project', () => {
   });
 });
 
+describe('PLCopen project: constants, actions and transitions', () => {
+  const st = (code: string): string => `<ST><xhtml xmlns="http://www.w3.org/1999/xhtml">${code}</xhtml></ST>`;
+  const withVars = (extra: string): string =>
+    '<inputVars><variable name="a"><type><BOOL/></type></variable></inputVars><outputVars><variable name="q"><type><BOOL/></type></variable></outputVars>' + extra;
+
+  it('a constant variable list and an initialised local never written are values', () => {
+    const vars = withVars(
+      '<localVars constant="true"><variable name="k"><type><BOOL/></type><initialValue><simpleValue value="FALSE"/></initialValue></variable></localVars>',
+    );
+    const pou = pouOf(project(st('q := a OR k;'), { vars }));
+    expectFunction(pou, 'q', 'a');
+    expect(pou.variables.find((v) => v.name === 'k')).toMatchObject({ constant: true, initial: 'FALSE' });
+  });
+
+  it('the actions of a POU with an ST body run where it calls them', () => {
+    const text = project(st('q := a;\nInvert();'), { vars: withVars('') }).replace(
+      '<body>',
+      `<actions><action name="Invert"><body>${st('q := NOT q;')}</body></action></actions><body>`,
+    );
+    expectFunction(pouOf(text), 'q', 'NOT a');
+  });
+
+  it('a transition leaves every output unchecked, naming it', () => {
+    const text = project(st('q := a;'), { vars: withVars('') }).replace(
+      '<body>',
+      `<transitions><transition name="Go"><body>${st('a')}</body></transition></transitions><body>`,
+    );
+    expect(output(pouOf(text), 'q').cannotJudge.map((c) => c.what)).toEqual(['transition Go (line 4) of P: sequential function chart elements are not read']);
+  });
+
+  it('an LD body with actions: what the actions may write leaves every output unchecked', () => {
+    const text = ld(left(1), contact(2, 'a', [1]), coil(3, 'q', [2]), right(4, [3])).replace(
+      '<body>',
+      `<actions><action name="Clear"><body>${st('q := FALSE;')}</body></action></actions><body>`,
+    );
+    expect(output(pouOf(text), 'q').cannotJudge.map((c) => c.what)).toEqual(['action Clear (line 4) of P is not run with the ladder body']);
+  });
+});
+
 describe('PLCopen hand-over read back (property)', () => {
   const cellAt = fc.constantFrom('0', '1', '1', '-');
   const spec = fc.integer({ min: 2, max: 5 }).chain((n) =>

@@ -5,6 +5,8 @@ import { verifyExitCode, verifyImplementation, type OutputVerdict, type VerifyRe
 import { verifyReportJson, verifyReportText } from '../../src/impl/verify-report.js';
 import { CAUTION, CAUTION_LINES } from '../../src/report/caution.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
+import type { SpecTable } from '../../src/spec/types.js';
+import type { ImplProgram } from '../../src/impl/types.js';
 import { specGrid } from '../report/fixtures.js';
 import { capperTables, fixtureText, implementation } from './capper.js';
 
@@ -54,8 +56,8 @@ describe('implementation check of the sample machine: Structured Text', () => {
     expect(v.line).toBe(49);
     expect(v.mismatchCount).toBe(2);
     expect(v.counterexamples).toEqual([
-      { combination: 27, inputs: [1, 1, 0, 1, 1], expected: 0, actual: 1, specRow: { cells: "'Chuck and feeder'!B30:J30", outputCell: "'Chuck and feeder'!J30" } },
-      { combination: 31, inputs: [1, 1, 1, 1, 1], expected: 0, actual: 1, specRow: { cells: "'Chuck and feeder'!B34:J34", outputCell: "'Chuck and feeder'!J34" } },
+      { combination: 27, inputs: [1, 1, 0, 1, 1], expected: 0, actual: 1, source: 'row', specRow: { cells: "'Chuck and feeder'!B30:J30", outputCell: "'Chuck and feeder'!J30" } },
+      { combination: 31, inputs: [1, 1, 1, 1, 1], expected: 0, actual: 1, source: 'row', specRow: { cells: "'Chuck and feeder'!B34:J34", outputCell: "'Chuck and feeder'!J34" } },
     ]);
     expect(v.differenceMonomials).toEqual(['Cap_in_chuck AND Bottle_in_position AND Torque_reached AND Air_pressure_OK']);
     expect(report.outputs.filter((o) => o.status !== 'equal').map((o) => o.output.header)).toEqual(['Head lower permit']);
@@ -115,7 +117,7 @@ describe('implementation check of the sample machine: PLCopen XML', () => {
     const v = verdict(report, 'Air supply OK');
     expect(v.status).toBe('differs');
     expect(v.counterexamples).toEqual([
-      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
+      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, source: 'row', specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
     ]);
     expect(v.differenceMonomials).toEqual(['Pressure_switch_2 AND Pressure_switch_3', 'Pressure_switch_1 AND Pressure_switch_2 AND Pressure_switch_3']);
     expect(verdict(report, 'Spindle run permit').status).toBe('equal');
@@ -156,17 +158,31 @@ describe('implementation check: what cannot be judged, and open combinations', (
     ]);
   });
 
-  it('gaps and don\'t-cares are reported beside the verdict, not counted as differences', () => {
-    // Row "1 0 0" is a gap (safe value 0); "- - 1" is a don't-care for Motor permit.
-    const table = readSpecTables(
+  // Row "1 0 0" is a gap (safe value 0); "- - 1" is a don't-care for Motor permit.
+  const gapTable = (): SpecTable =>
+    readSpecTables(
       specGrid({ inputs: ['Guard closed', 'Two-hand OK', 'Mode (setup)'], outputs: ['Motor permit'], rows: ['1 1 0 | 1', '0 - 0 | 0', '- - 1 | -'] }),
     ).tables[0]!;
+  const guardOnly = (): ImplProgram => {
     const impl = readImplementation('m.st', 'PROGRAM M\nMotor_permit := Guard_closed;\nEND_PROGRAM');
     if (!impl.ok) throw new Error(impl.error.message);
-    const v = verifyImplementation([table], impl.value).outputs[0]!;
+    return impl.value;
+  };
+
+  it('a program ON in a gap differs there: the gap is judged at the safe value and labelled', () => {
+    const v = verifyImplementation([gapTable()], guardOnly()).outputs[0]!;
+    expect(v.status).toBe('differs');
+    expect(v.mismatchCount).toBe(1);
+    expect(v.counterexamples).toEqual([{ combination: 4, inputs: [1, 0, 0], expected: 0, actual: 1, source: 'gap' }]);
+    expect(v.gaps).toEqual({ count: 1, implementationOn: 1, safe: 0, unsafe: 1, unsafeExamples: [4], judged: true });
+    expect(v.dontCare).toEqual({ count: 4, implementationOn: 2 });
+  });
+
+  it('with gapsFree the gap is reported, not judged; don\'t-cares are never differences', () => {
+    const v = verifyImplementation([gapTable()], guardOnly(), undefined, { gapsFree: true }).outputs[0]!;
     expect(v.status).toBe('equal');
     expect(v.mismatchCount).toBe(0);
-    expect(v.gaps).toEqual({ count: 1, implementationOn: 1, safe: 0, unsafe: 1, unsafeExamples: [4] });
+    expect(v.gaps).toEqual({ count: 1, implementationOn: 1, safe: 0, unsafe: 1, unsafeExamples: [4], judged: false });
     expect(v.dontCare).toEqual({ count: 4, implementationOn: 2 });
   });
 

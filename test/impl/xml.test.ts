@@ -20,6 +20,12 @@ function errorOf(text: string): string {
 }
 
 describe('XML reader', () => {
+  it('keeps mixed content in document order: text around child elements reads as written', () => {
+    const root = parsed('<x>one <b>two</b> three <![CDATA[four]]><c>five<d>six</d></c></x>');
+    expect(textContent(root)).toBe('one two three fourfivesix');
+    expect(root.content.map((c) => (typeof c === 'string' ? c : `<${c.name}>`))).toEqual(['one ', '<b>', ' three ', 'four', '<c>']);
+  });
+
   it('reads elements, attributes, text and the line of each element', () => {
     const root = parsed('<?xml version="1.0"?>\n<!-- note -->\n<a x="1" y=\'two\'>\n  <b>hi</b>\n  <c/>\n</a>\n');
     expect(root.name).toBe('a');
