@@ -14,6 +14,7 @@ import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { loadTables } from './load.js';
 import type { Progress } from './progress.js';
 import { problemLine } from './report-text.js';
+import { appendAll } from '../logic/arrays.js';
 
 type ExportCommand = Extract<Command, { name: 'export' }>;
 
@@ -45,7 +46,7 @@ function packFiles(cmd: ExportCommand, analyses: readonly TableAnalysis[], sourc
     files.push({ path: cmd.plcopen, text: exportPlcopen(analyses, { form: cmd.form, body: cmd.ladderBody ? 'LD' : 'ST', source: from }) });
   // Several tables: one CSV, their step lists one after another.
   if (cmd.steps !== undefined) files.push({ path: cmd.steps, text: analyses.map((a) => stepsCsv(a)).join('\r\n') });
-  if (cmd.svg !== undefined) files.push(...ladderFiles(analyses, cmd.svg));
+  if (cmd.svg !== undefined) appendAll(files, ladderFiles(analyses, cmd.svg));
   return files;
 }
 

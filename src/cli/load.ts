@@ -7,6 +7,7 @@ import { readSpecTables } from '../spec/read-tables.js';
 import type { Problem, SpecOptions, SpecTable } from '../spec/types.js';
 import type { SpecChoice } from './args.js';
 import type { Progress } from './progress.js';
+import { appendAll } from '../logic/arrays.js';
 
 export interface Loaded {
   readonly host: FileHost;
@@ -50,8 +51,8 @@ export async function loadTables(file: string, choice: SpecChoice, progress: Pro
       continue;
     }
     const read = readSpecTables(await host.readGrid(sheet), specOptions(choice));
-    tables.push(...read.tables);
-    otherProblems.push(...read.problems);
+    appendAll(tables, read.tables);
+    appendAll(otherProblems, read.problems);
   }
   for (const name of Object.keys(choice.safe)) {
     if (!tables.some((t) => signalIndex(t.outputs.map((o) => o.signal), name) >= 0))

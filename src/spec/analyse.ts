@@ -15,6 +15,7 @@ import { uniqueCauseSteps } from '../logic/steps.js';
 import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import type { OutputSpec, Problem, ProblemCode, SpecTable } from './types.js';
 import { gapCubes } from './uncovered.js';
+import { appendAll } from '../logic/arrays.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */
@@ -43,7 +44,7 @@ export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): Ta
     const analysed = analyseOutput(table, output, gaps, count(gapSet), sopOptions, (stage) =>
       progress(`${output.signal.header}: ${stage}`),
     );
-    problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));
+    appendAll(problems, outputProblems(table, analysed, table.headerCells[n + j]!));
     return analysed;
   });
   return { table, inputs: table.inputs, outputs, problems };

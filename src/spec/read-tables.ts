@@ -26,6 +26,7 @@ import { decideRoles } from './roles.js';
 import { joinSeparated, signalColumns, type BlockLayout, type CellAt } from './table-layout.js';
 import type { Grid, OutputSpec, Problem, ProblemCode, Severity, SpecOptions, SpecRow, SpecTable, XReading } from './types.js';
 import { gapCubes } from './uncovered.js';
+import { appendAll } from '../logic/arrays.js';
 
 export interface SpecTablesRead {
   readonly tables: SpecTable[];
@@ -101,7 +102,7 @@ function readCells(grid: Grid, options: SpecOptions): SpecTablesRead {
     );
     const read = readTable(sheet, layout, options, below);
     if (read.table) tables.push(read.table);
-    else problems.push(...read.problems);
+    else appendAll(problems, read.problems);
   }
   if (tables.length === 0 && !problems.some((p) => p.severity === 'error')) {
     const extent = gridExtent(area);
