@@ -2,13 +2,10 @@
 // `main(argv, io)` returns the exit status, so that tests run the CLI in-process.
 import { pathToFileURL } from 'node:url';
 import { fileSystemErrorText, isFileSystemError } from '../hosts/fs-errors.js';
-import { analyzeCommand } from './analyze.js';
 import { parseArgs, USAGE, type Command } from './args.js';
-import { exportCommand } from './export.js';
 import { EXIT, processIo, type CliIo, type ExitCode } from './io.js';
 import { Progress } from './progress.js';
 import { jsonSafe, terminalSafe } from './terminal-text.js';
-import { verifyCommand } from './verify.js';
 
 /** Set (to anything) to see the stack trace of an internal error, for developers. */
 export const DEBUG_VARIABLE = 'IA_DEBUG';
@@ -21,18 +18,19 @@ function safeIo(io: CliIo, json: boolean): CliIo {
   return { out: (text) => io.out(json ? jsonSafe(text) : terminalSafe(text)), err: (text) => io.err(terminalSafe(text)) };
 }
 
-function run(cmd: Command, io: CliIo): Promise<ExitCode> {
+/** Each command's modules are loaded when it runs, so that `--help` starts at once. */
+async function run(cmd: Command, io: CliIo): Promise<ExitCode> {
   const progress = new Progress(io);
   switch (cmd.name) {
     case 'help':
       io.out(`${USAGE}\n`);
-      return Promise.resolve(EXIT.ok);
+      return EXIT.ok;
     case 'analyze':
-      return analyzeCommand(cmd, io, progress);
+      return (await import('./analyze.js')).analyzeCommand(cmd, io, progress);
     case 'export':
-      return exportCommand(cmd, io, progress);
+      return (await import('./export.js')).exportCommand(cmd, io, progress);
     case 'verify':
-      return verifyCommand(cmd, io, progress);
+      return (await import('./verify.js')).verifyCommand(cmd, io, progress);
   }
 }
 

@@ -2,12 +2,12 @@
 // sheets queued for a copy of it. Neutral about where it runs (no node: imports): the command
 // line (file-host.ts) and the standalone page (browser-file-host.ts) each bring the file's bytes
 // and their own way of running parse-worker.mjs, the only place SheetJS parses a user's file.
-import XLSX from 'xlsx';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { parseCsv } from '../spec/csv.js';
 import { cellAddress, parseRange, restrictGrid } from '../spec/grid.js';
 import type { CellValue, Grid } from '../spec/types.js';
+import type { WorkSheet } from 'xlsx';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
 import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
 
@@ -124,7 +124,7 @@ export async function readSheets(
 
 /** A file read into plain grids, with result sheets queued for a copy of it. */
 export class ParsedWorkbook implements WorkbookHost {
-  private readonly queued: { name: string; sheet: XLSX.WorkSheet }[] = [];
+  private readonly queued: { name: string; sheet: WorkSheet }[] = [];
 
   constructor(
     /** The file as errors name it: a path on the command line, a file name in the page. */
@@ -175,7 +175,7 @@ export class ParsedWorkbook implements WorkbookHost {
    * again by `run` and our sheets appended there (never in this realm); `source` gives its bytes.
    */
   protected async resultsBytes(source: () => Promise<Result<Uint8Array>>, run: RunParseJob): Promise<Result<Uint8Array>> {
-    if (this.kind === 'csv') return ok(this.csvWorkbook());
+    if (this.kind === 'csv') return ok(await this.csvWorkbook());
     const bytes = await source();
     if (!bytes.ok) return bytes;
     const raw = await run({ mode: 'append', sheets: this.queued }, bytes.value);
@@ -187,7 +187,9 @@ export class ParsedWorkbook implements WorkbookHost {
   }
 
   /** A CSV source becomes the first sheet of the results workbook. */
-  private csvWorkbook(): Uint8Array {
+  private async csvWorkbook(): Promise<Uint8Array> {
+    // SheetJS is loaded here, when a results workbook is written, not when the file is opened.
+    const XLSX = (await import('xlsx')).default;
     const book = XLSX.utils.book_new();
     for (const s of this.sheets) XLSX.utils.book_append_sheet(book, sheetFromCells(s.grid!.cells, s.grid!.origin), s.name);
     for (const q of this.queued) XLSX.utils.book_append_sheet(book, q.sheet, q.name);

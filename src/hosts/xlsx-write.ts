@@ -1,8 +1,11 @@
 // Cells and sheet blocks -> SheetJS sheets, for the file host and the sample generator.
 // Runs in the main thread: it only builds objects from our own data, it never parses a file.
-import XLSX from 'xlsx';
+// Types only from SheetJS (addresses are ours): loading the library costs about a second, so
+// it is imported only where a workbook is written (parsed-workbook.ts) or parsed (the worker).
 import type { BlockCell, SheetBlock } from '../report/sheet-block.js';
+import { cellAddress, parseA1, rangeAddress } from '../spec/grid.js';
 import type { CellValue } from '../spec/types.js';
+import type { CellObject, WorkSheet } from 'xlsx';
 
 /** Excel's error codes as stored in a file (SheetJS writes `{ t: 'e', v: code }`). */
 export const ERROR_CODES: Readonly<Record<string, number>> = {
@@ -16,7 +19,7 @@ export const ERROR_CODES: Readonly<Record<string, number>> = {
 };
 
 /** The SheetJS cell for one value; undefined for an empty cell. */
-export function cellObject(value: CellValue): XLSX.CellObject | undefined {
+export function cellObject(value: CellValue): CellObject | undefined {
   if (value === null) return undefined;
   if (typeof value === 'number') return { t: 'n', v: value };
   if (typeof value === 'boolean') return { t: 'b', v: value };
@@ -26,21 +29,23 @@ export function cellObject(value: CellValue): XLSX.CellObject | undefined {
 }
 
 /** A sheet holding the rows of cells with their top-left cell at `origin`. */
-export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin = 'A1'): XLSX.WorkSheet {
-  const start = XLSX.utils.decode_cell(origin);
-  const sheet: XLSX.WorkSheet = {};
+export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin = 'A1'): WorkSheet {
+  const at = parseA1(origin);
+  if (!at) throw new Error(`bug: origin ${origin} is not an A1 address`);
+  const start = { r: at.row, c: at.col };
+  const sheet: WorkSheet = {};
   let lastRow = start.r;
   let lastCol = start.c;
   rows.forEach((row, r) =>
     row.forEach((value, c) => {
       const cell = cellObject(value);
       if (!cell) return;
-      sheet[XLSX.utils.encode_cell({ r: start.r + r, c: start.c + c })] = cell;
+      sheet[cellAddress(start.r + r, start.c + c)] = cell;
       lastRow = Math.max(lastRow, start.r + r);
       lastCol = Math.max(lastCol, start.c + c);
     }),
   );
-  sheet['!ref'] = XLSX.utils.encode_range(start, { r: lastRow, c: lastCol });
+  sheet['!ref'] = rangeAddress({ top: start.r, left: start.c, bottom: lastRow, right: lastCol });
   return sheet;
 }
 
@@ -52,7 +57,7 @@ export function fileFormula(typed: string): string {
   return typed.replace(/(?<![A-Za-z0-9_.])XOR\(/gi, '_xlfn.XOR(');
 }
 
-function blockCellObject(cell: BlockCell): XLSX.CellObject | undefined {
+function blockCellObject(cell: BlockCell): CellObject | undefined {
   const plain = cellObject(cell.value);
   if (cell.formula === undefined) return plain;
   // A formula cell keeps its expected value as the cached value, shown until Excel recalculates.
@@ -60,17 +65,17 @@ function blockCellObject(cell: BlockCell): XLSX.CellObject | undefined {
 }
 
 /** The sheet for a block, rows from A1, with its column widths. */
-export function sheetFromBlock(block: SheetBlock): XLSX.WorkSheet {
-  const sheet: XLSX.WorkSheet = {};
+export function sheetFromBlock(block: SheetBlock): WorkSheet {
+  const sheet: WorkSheet = {};
   let width = 1;
   block.rows.forEach((row, r) => {
     width = Math.max(width, row.length);
     row.forEach((cell, c) => {
       const object = cell ? blockCellObject(cell) : undefined;
-      if (object) sheet[XLSX.utils.encode_cell({ r, c })] = object;
+      if (object) sheet[cellAddress(r, c)] = object;
     });
   });
-  sheet['!ref'] = XLSX.utils.encode_range({ r: 0, c: 0 }, { r: Math.max(0, block.rows.length - 1), c: width - 1 });
+  sheet['!ref'] = rangeAddress({ top: 0, left: 0, bottom: Math.max(0, block.rows.length - 1), right: width - 1 });
   if (block.columnWidths) sheet['!cols'] = block.columnWidths.map((wch) => ({ wch }));
   return sheet;
 }
