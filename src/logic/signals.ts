@@ -29,7 +29,8 @@ export function signalFinder(signals: readonly Signal[]): (name: string) => numb
     const id = s.identifier.toLowerCase();
     if (!byId.has(id)) byId.set(id, i);
     const header = s.header.trim().toLowerCase();
-    if (!byHeader.has(header)) byHeader.set(header, i);
+    // A header spelled as its identifier is found by the identifier first anyway.
+    if (header !== id && !byHeader.has(header)) byHeader.set(header, i);
   });
   return (name) => {
     const key = name.trim().toLowerCase();
