@@ -10,7 +10,7 @@ import { exportPlcopen } from '../src/report/plcopen-export.js';
 import { resultsSheet } from '../src/report/results-sheet.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
 import { exportSt } from '../src/report/st-export.js';
-import { stepsCsv, stepsSheet } from '../src/report/test-steps.js';
+import { stepsCsv, testRecordSheet } from '../src/report/test-steps.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
 import type { Grid, SpecOptions } from '../src/spec/types.js';
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
@@ -271,7 +271,7 @@ function HandOver({
           >
             Write results sheet
           </button>
-          <button type="button" onClick={() => guard(async () => say([await mode.host.writeSheet(stepsSheet(analysis))], 'to this workbook'))}>
+          <button type="button" onClick={() => guard(async () => say([await mode.host.writeSheet(testRecordSheet(analysis))], 'to this workbook'))}>
             Write test steps sheet
           </button>
         </div>

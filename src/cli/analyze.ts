@@ -1,10 +1,10 @@
 // `analyze`: spec tables -> forms, proofs and findings, as a readable report or the JSON
 // document of DESIGN.md section 4; with -o, a results workbook beside the untouched input.
 import { mkdir } from 'node:fs/promises';
-import { dirname, resolve } from 'node:path';
+import { basename, dirname, resolve } from 'node:path';
 import { sameFile } from '../hosts/file-host.js';
 import { resultsSheet } from '../report/results-sheet.js';
-import { stepsSheet } from '../report/test-steps.js';
+import { testRecordSheet } from '../report/test-steps.js';
 import { analyseTable } from '../spec/analyse.js';
 import { analysisJson } from '../spec/analysis-json.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
@@ -86,7 +86,7 @@ export async function analyzeCommand(cmd: AnalyzeCommand, io: CliIo, progress: P
   if (cmd.out !== undefined) {
     for (const analysis of analyses) {
       await host.writeSheet(resultsSheet(analysis, { source }));
-      await host.writeSheet(stepsSheet(analysis));
+      await host.writeSheet(testRecordSheet(analysis, { source: basename(cmd.file) }));
     }
     // A fresh checkout has no out/ folder (it is git-ignored): make the folder asked for.
     await mkdir(dirname(resolve(cmd.out)), { recursive: true });

@@ -31,6 +31,8 @@ async function run(cmd: Command, io: CliIo): Promise<ExitCode> {
       return (await import('./export.js')).exportCommand(cmd, io, progress);
     case 'verify':
       return (await import('./verify.js')).verifyCommand(cmd, io, progress);
+    case 'record':
+      return (await import('./record.js')).recordCommand(cmd, io, progress);
   }
 }
 

@@ -1,8 +1,7 @@
-// Cells and sheet blocks -> SheetJS sheets, for the file host and the sample generator.
+// Cells -> SheetJS sheets, for the sample generator and benches; sheet names for every host.
 // Runs in the main thread: it only builds objects from our own data, it never parses a file.
 // Types only from SheetJS (addresses are ours): loading the library costs about a second, so
-// it is imported only where a workbook is written (parsed-workbook.ts) or parsed (the worker).
-import type { BlockCell, SheetBlock } from '../report/sheet-block.js';
+// the command line never loads it in its main thread (the parse worker does).
 import { cellAddress, parseA1, rangeAddress } from '../spec/grid.js';
 import type { CellValue } from '../spec/types.js';
 import type { CellObject, WorkSheet } from 'xlsx';
@@ -46,37 +45,6 @@ export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin =
     }),
   );
   sheet['!ref'] = rangeAddress({ top: start.r, left: start.c, bottom: lastRow, right: lastCol });
-  return sheet;
-}
-
-/**
- * Excel's functions added after the 2007 file format must carry the `_xlfn.` prefix inside a
- * file, or Excel shows #NAME? (DESIGN.md section 3). Of those, our formulas use XOR.
- */
-export function fileFormula(typed: string): string {
-  return typed.replace(/(?<![A-Za-z0-9_.])XOR\(/gi, '_xlfn.XOR(');
-}
-
-function blockCellObject(cell: BlockCell): CellObject | undefined {
-  const plain = cellObject(cell.value);
-  if (cell.formula === undefined) return plain;
-  // A formula cell keeps its expected value as the cached value, shown until Excel recalculates.
-  return { ...(plain ?? { t: 's', v: '' }), f: fileFormula(cell.formula) };
-}
-
-/** The sheet for a block, rows from A1, with its column widths. */
-export function sheetFromBlock(block: SheetBlock): WorkSheet {
-  const sheet: WorkSheet = {};
-  let width = 1;
-  block.rows.forEach((row, r) => {
-    width = Math.max(width, row.length);
-    row.forEach((cell, c) => {
-      const object = cell ? blockCellObject(cell) : undefined;
-      if (object) sheet[cellAddress(r, c)] = object;
-    });
-  });
-  sheet['!ref'] = rangeAddress({ top: 0, left: 0, bottom: Math.max(0, block.rows.length - 1), right: width - 1 });
-  if (block.columnWidths) sheet['!cols'] = block.columnWidths.map((wch) => ({ wch }));
   return sheet;
 }
 
