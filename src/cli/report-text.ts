@@ -6,6 +6,7 @@ import { combinationTableLines, cubeTableLines } from './pattern-table.js';
 import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from '../spec/analysis-types.js';
 import { qualifiedAddress } from '../spec/grid.js';
 import type { Problem, RoleRule } from '../spec/types.js';
+import { appendAll, maxOf } from '../logic/arrays.js';
 
 const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
   'role-row': 'the role row above the headers',
@@ -83,10 +84,10 @@ export function tableReport(analysis: TableAnalysis): string[] {
   lines.push(title, '='.repeat(Math.min(title.length, 100)));
   lines.push(`Inputs and outputs told apart by ${ROLE_RULE[t.roleRule]}.${t.xReading === 'dont-care' ? " X cells read as '-' (any / don't-care)." : ''}`);
   lines.push('Signals (header -> identifier):');
-  const width = Math.min(40, Math.max(...[...inputs, ...analysis.outputs.map((o) => o.signal)].map((s) => s.header.length)));
+  const width = Math.min(40, maxOf([...inputs, ...analysis.outputs.map((o) => o.signal)].map((s) => s.header.length), 0));
   for (const s of inputs) lines.push(`  in   ${s.header.padEnd(width)} -> ${s.identifier}`);
   for (const o of analysis.outputs) lines.push(`  out  ${o.signal.header.padEnd(width)} -> ${o.signal.identifier}`);
-  for (const o of analysis.outputs) lines.push(...outputLines(o, inputs));
+  for (const o of analysis.outputs) appendAll(lines, outputLines(o, inputs));
   if (analysis.problems.length > 0) {
     lines.push('', 'Problems:');
     for (const p of analysis.problems) lines.push(problemLine(p));
@@ -97,12 +98,13 @@ export function tableReport(analysis: TableAnalysis): string[] {
 /** The whole report: each table, the problems outside any table, a verdict line and the caution. */
 export function analysisReport(analyses: readonly TableAnalysis[], otherProblems: readonly Problem[], verdict: string): string {
   const lines: string[] = [];
-  for (const a of analyses) lines.push(...tableReport(a), '');
+  for (const a of analyses) appendAll(lines, tableReport(a)).push('');
   if (otherProblems.length > 0) {
     lines.push('Problems outside the tables above:');
     for (const p of otherProblems) lines.push(problemLine(p));
     lines.push('');
   }
-  lines.push(verdict, '', ...CAUTION_LINES);
+  lines.push(verdict, '');
+  appendAll(lines, CAUTION_LINES);
   return lines.join('\n') + '\n';
 }

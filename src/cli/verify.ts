@@ -12,6 +12,7 @@ import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { examineLoaded, loadTables } from './load.js';
 import type { Progress } from './progress.js';
 import { problemLine } from './report-text.js';
+import { fileSystemReason } from '../hosts/fs-errors.js';
 
 type VerifyCommand = Extract<Command, { name: 'verify' }>;
 
@@ -21,11 +22,11 @@ const MAX_TEXT_BYTES = 20 * 1024 * 1024;
 async function readText(path: string, what: string): Promise<Result<string, string>> {
   try {
     const info = await stat(path);
-    if (!info.isFile()) return { ok: false, error: `${path}: the ${what} is not a file` };
+    if (!info.isFile()) return { ok: false, error: `${path}: the ${what} file ${info.isDirectory() ? 'is a folder (EISDIR)' : 'is not a regular file'}` };
     if (info.size > MAX_TEXT_BYTES) return { ok: false, error: `${path}: the ${what} is larger than ${MAX_TEXT_BYTES} bytes` };
     return { ok: true, value: await readFile(path, 'utf8') };
-  } catch {
-    return { ok: false, error: `${path}: no such ${what} file` };
+  } catch (e) {
+    return { ok: false, error: `${path}: the ${what} file cannot be read: ${fileSystemReason(e)}` };
   }
 }
 

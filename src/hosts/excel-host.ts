@@ -18,6 +18,7 @@ import {
   topLeftOf,
 } from './excel-cells.js';
 import { freeSheetName } from './xlsx-write.js';
+import { appendAll, maxOf } from '../logic/arrays.js';
 
 /** An Excel table (ListObject) the user may pick instead of a selection. */
 export interface NamedTable {
@@ -90,7 +91,7 @@ async function readRange(context: XlContext, sheet: string, range: XlRange, wher
   const per = readBlockRows(columns);
   const cells: CellValue[][] = [];
   for (let start = 0; start < rows; start += per) {
-    cells.push(...(await readRows(context, range, start, Math.min(per, rows - start), columns, where)));
+    appendAll(cells, await readRows(context, range, start, Math.min(per, rows - start), columns, where));
   }
   return { sheet, origin: topLeftOf(range.address), cells };
 }
@@ -129,7 +130,7 @@ function styleRuns(rows: SheetBlock['rows']): { row: number; from: number; to: n
 }
 
 async function writeBlock(context: XlContext, sheet: XlWorksheet, block: SheetBlock, name: string): Promise<number> {
-  const width = Math.max(1, ...block.rows.map((r) => r.length));
+  const width = maxOf(block.rows.map((r) => r.length), 1);
   const inputs = block.rows.map((row) => Array.from({ length: width }, (_, c) => formulaInput((row[c] ?? null) as BlockCell | null)));
   // 1. Values and formulas, in blocks of rows that fit a request.
   for (const { start, count } of rowBlocks(inputs.map(rowWriteBytes))) {
@@ -197,7 +198,7 @@ export function createExcelHost(run: XlRun): ExcelHost {
         const name = freeSheetName(block.name, sheets.items.map((s) => s.name));
         const sheet = sheets.add(name);
         const rows = Math.max(1, block.rows.length);
-        const width = Math.max(1, ...block.rows.map((r) => r.length));
+        const width = maxOf(block.rows.map((r) => r.length), 1);
         // Never write over a user's cell: the target must read empty before anything is written.
         const used = sheet.getRange('A1').getResizedRange(rows - 1, width - 1).getUsedRangeOrNullObject(true);
         used.load('isNullObject,address');

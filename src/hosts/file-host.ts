@@ -14,6 +14,7 @@ import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { fileKind, ParsedWorkbook, readSheets, type FileKind, type FileRead, type RunParseJob, type UnpackBudget } from './parsed-workbook.js';
 import type { WriteReport } from './workbook-host.js';
+import { fileSystemReason } from './fs-errors.js';
 
 export interface FileHostOptions {
   /** Longest a workbook parse may take (default 60 s). */
@@ -93,17 +94,15 @@ const workerRunner = (options: FileHostOptions, what: string): RunParseJob => (j
 
 async function readLimited(path: string, options: FileHostOptions): Promise<Result<Uint8Array>> {
   const maxBytes = options.maxBytes ?? FILE_DEFAULTS.maxBytes;
-  let size: number;
   try {
     const info = await stat(path);
-    if (!info.isFile()) return fail({ message: `${path}: not a file` });
-    size = info.size;
-  } catch {
-    return fail({ message: `${path}: no such file` });
+    if (info.isDirectory()) return fail({ message: `${path}: ${fileSystemReason({ code: 'EISDIR' })}` });
+    if (!info.isFile()) return fail({ message: `${path}: not a regular file` });
+    if (info.size > maxBytes) return fail({ message: `${path}: ${info.size} bytes is more than the limit of ${maxBytes} bytes` });
+    return ok(new Uint8Array(await readFile(path)));
+  } catch (e) {
+    return fail({ message: `${path}: ${fileSystemReason(e)}` });
   }
-  if (size > maxBytes)
-    return fail({ message: `${path}: ${size} bytes is more than the limit of ${maxBytes} bytes` });
-  return ok(new Uint8Array(await readFile(path)));
 }
 
 /** Raw inflate with an output limit (zlib stops at it), for the parts of a package we add to. */
@@ -149,7 +148,7 @@ export async function writeOutputFile(input: string, outPath: string, data: Uint
     await rename(temp, target);
   } catch (e) {
     await unlink(temp).catch(() => undefined);
-    return fail({ message: `${outPath}: could not be written (${(e as Error).message})` });
+    return fail({ message: `${outPath}: could not be written: ${fileSystemReason(e)}` });
   }
   return ok(target);
 }

@@ -2,6 +2,7 @@
 // sheets queued for a copy of it. Neutral about where it runs (no node: imports): the command
 // line (file-host.ts) and the standalone page (browser-file-host.ts) each bring the file's bytes
 // and their own way of running parse-worker.mjs, the only place SheetJS parses a user's file.
+import { maxOf } from '../logic/arrays.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { parseCsv } from '../spec/csv.js';
@@ -283,7 +284,7 @@ export class ParsedWorkbook implements WorkbookHost {
     const taken = [...this.sheets.map((s) => s.name), ...this.queued.map((q) => q.name)];
     const name = freeSheetName(block.name, taken);
     this.queued.push({ name, block });
-    const width = Math.max(1, ...block.rows.map((r) => r.length));
+    const width = maxOf(block.rows.map((r) => r.length), 1);
     const cells = block.rows.reduce((n, r) => n + r.filter((c) => c !== null && (c.value !== null || c.formula !== undefined)).length, 0);
     return { sheet: name, range: `A1:${cellAddress(Math.max(0, block.rows.length - 1), width - 1)}`, cells };
   }

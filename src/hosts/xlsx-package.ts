@@ -10,6 +10,7 @@ import type { CellValue } from '../spec/types.js';
 import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
 import { LOOKS, STATUS_LOOKS, type Look } from '../report/sheet-looks.js';
 import { readZip, storedEntry, writeZip, type ZipEntry } from './zip-package.mjs';
+import { maxOf } from '../logic/arrays.js';
 
 /** Raw inflate of one entry, refusing output over `maxBytes` (the host's own, bounded). */
 export type InflateRaw = (data: Uint8Array, maxBytes: number) => Promise<Uint8Array>;
@@ -274,7 +275,7 @@ class PackageEdit {
     }
     const sheets = [...workbook.matchAll(new RegExp(`<${this.wp}sheet\\b([^>]*)/?>`, 'g'))];
     this.sheetCount = sheets.length;
-    this.nextSheetId = 1 + Math.max(0, ...sheets.map((m) => Number(attr(m[1]!, 'sheetId') ?? 0)));
+    this.nextSheetId = 1 + maxOf(sheets.map((m) => Number(attr(m[1]!, 'sheetId') ?? 0)), 0);
     this.usedPaths = new Set(entries.map((e) => e.name.toLowerCase()));
   }
 
@@ -349,7 +350,7 @@ export function fileFormula(typed: string): string {
 }
 
 function worksheetXml(block: SheetBlock, styles: StyleAppender): string {
-  const width = Math.max(1, ...block.rows.map((r) => r.length));
+  const width = maxOf(block.rows.map((r) => r.length), 1);
   const height = Math.max(1, block.rows.length);
   const parts: string[] = [`<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n<worksheet xmlns="${MAIN_NS}" xmlns:r="${REL_NS}">`];
   if (block.print?.fitToWidth) parts.push('<sheetPr><pageSetUpPr fitToPage="1"/></sheetPr>');

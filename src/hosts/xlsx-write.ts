@@ -1,7 +1,10 @@
 // Cells -> SheetJS sheets, for the sample generator and benches; sheet names for every host.
 // Runs in the main thread: it only builds objects from our own data, it never parses a file.
-import XLSX from 'xlsx';
+// Types only from SheetJS (addresses are ours): loading the library costs about a second, so
+// the command line never loads it in its main thread (the parse worker does).
+import { cellAddress, parseA1, rangeAddress } from '../spec/grid.js';
 import type { CellValue } from '../spec/types.js';
+import type { CellObject, WorkSheet } from 'xlsx';
 
 /** Excel's error codes as stored in a file (SheetJS writes `{ t: 'e', v: code }`). */
 export const ERROR_CODES: Readonly<Record<string, number>> = {
@@ -15,7 +18,7 @@ export const ERROR_CODES: Readonly<Record<string, number>> = {
 };
 
 /** The SheetJS cell for one value; undefined for an empty cell. */
-export function cellObject(value: CellValue): XLSX.CellObject | undefined {
+export function cellObject(value: CellValue): CellObject | undefined {
   if (value === null) return undefined;
   if (typeof value === 'number') return { t: 'n', v: value };
   if (typeof value === 'boolean') return { t: 'b', v: value };
@@ -25,21 +28,23 @@ export function cellObject(value: CellValue): XLSX.CellObject | undefined {
 }
 
 /** A sheet holding the rows of cells with their top-left cell at `origin`. */
-export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin = 'A1'): XLSX.WorkSheet {
-  const start = XLSX.utils.decode_cell(origin);
-  const sheet: XLSX.WorkSheet = {};
+export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin = 'A1'): WorkSheet {
+  const at = parseA1(origin);
+  if (!at) throw new Error(`bug: origin ${origin} is not an A1 address`);
+  const start = { r: at.row, c: at.col };
+  const sheet: WorkSheet = {};
   let lastRow = start.r;
   let lastCol = start.c;
   rows.forEach((row, r) =>
     row.forEach((value, c) => {
       const cell = cellObject(value);
       if (!cell) return;
-      sheet[XLSX.utils.encode_cell({ r: start.r + r, c: start.c + c })] = cell;
+      sheet[cellAddress(start.r + r, start.c + c)] = cell;
       lastRow = Math.max(lastRow, start.r + r);
       lastCol = Math.max(lastCol, start.c + c);
     }),
   );
-  sheet['!ref'] = XLSX.utils.encode_range(start, { r: lastRow, c: lastCol });
+  sheet['!ref'] = rangeAddress({ top: start.r, left: start.c, bottom: lastRow, right: lastCol });
   return sheet;
 }
 

@@ -1,5 +1,6 @@
 // Exact minimum covering (unate covering), by branch and bound within a deadline.
 import { now } from './primes.js';
+import { appendAll, minOf } from './arrays.js';
 
 /**
  * Rows must each be covered by at least one chosen column. `rows[r]` lists the columns that
@@ -64,7 +65,7 @@ export function exactCover(problem: CoverProblem, deadline: number, start: reado
       best = cheapest.columns;
       proven &&= cheapest.proven;
     } else proven = false;
-    chosen.push(...best);
+    appendAll(chosen, best);
   }
   const columns = [...new Set(chosen)].sort((a, b) => a - b);
   if (compareCovers(problem, start, columns) < 0) return { columns: [...start].sort((a, b) => a - b), proven };
@@ -155,7 +156,7 @@ class Search {
       // Out of time, the reductions stop part way and may leave a row with no column.
       if (!this.reduce(rowOn, colOn, picked) || this.aborted) return;
       for (const c of picked) cost += costs[c]!;
-      all.push(...picked);
+      appendAll(all, picked);
       if (all.length > this.cap || cost > this.limit()) return;
       if (!rowOn.includes(1)) {
         this.best = all;
@@ -358,7 +359,7 @@ class Search {
       const cols = this.rows[r]!.filter((c) => colOn[c]);
       if (cols.some((c) => used[c])) continue;
       for (const c of cols) used[c] = 1;
-      u[r] = Math.min(...cols.map((c) => this.costs[c]!));
+      u[r] = minOf(cols.map((c) => this.costs[c]!));
     }
     return u;
   }

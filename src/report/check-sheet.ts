@@ -14,6 +14,7 @@ import { CELL_CHARS, code, heading, label } from './results-sheet.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { sheetName } from './test-steps.js';
 import { fit, plural } from './text.js';
+import { appendAll, maxOf } from '../logic/arrays.js';
 
 export type CheckSubject =
   /** An expression typed or pasted for one output of a table, checked by `checkImplementation`. */
@@ -54,12 +55,14 @@ function layout(view: CheckView): SheetBlock {
   rows.push([]);
   for (const [what, cell] of view.about) rows.push([label(what), cell]);
   rows.push([]);
-  for (const s of view.sections) rows.push(...sectionRows(s), []);
+  for (const s of view.sections) appendAll(rows, sectionRows(s)).push([]);
   for (const list of view.lists) {
     if (list.items.length === 0) continue;
-    rows.push([heading(list.title)], ...list.items.map((item) => [{ value: item }]), []);
+    rows.push([heading(list.title)]);
+    for (const item of list.items) rows.push([{ value: item }]);
+    rows.push([]);
   }
-  const widest = Math.max(0, ...view.sections.map((s) => s.inputs.length));
+  const widest = maxOf(view.sections.map((s) => s.inputs.length), 0);
   return { name: view.name, rows, columnWidths: [30, ...Array.from({ length: widest + 2 }, () => 14), 40] };
 }
 

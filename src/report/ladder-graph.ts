@@ -8,6 +8,7 @@
 // only vertical wires are the bus that joins the ends of the parallel branches.
 import type { Cube } from '../logic/cube.js';
 import type { Signal } from '../logic/signals.js';
+import { maxOf } from '../logic/arrays.js';
 
 export type LadderNodeKind = 'left-rail' | 'right-rail' | 'contact' | 'coil' | 'connector' | 'continuation';
 
@@ -134,7 +135,7 @@ export function ladderGraph(cubes: readonly Cube[], inputs: readonly Signal[], w
 
   const firstX = (p: LinePlan): number => (p.continued ? X0_CONTINUED : X0);
   const lineEnd = (p: LinePlan): number => firstX(p) + p.literals.length * LADDER.slot + (p.continues ? LADDER.connectorWidth : 0);
-  const busX = Math.max(X0 + LADDER.slot, ...plans.map(lineEnd)) + LADDER.busGap;
+  const busX = maxOf(plans.map(lineEnd), X0 + LADDER.slot) + LADDER.busGap;
   const coilX = busX + LADDER.busLead;
   const rightX = coilX + LADDER.coilWidth + LADDER.coilLead;
   const w = Math.max(LADDER.minWidth, rightX + LADDER.railX);

@@ -16,6 +16,7 @@ import { printSetup } from './sheet-looks.js';
 import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
 import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
 import { plural } from './text.js';
+import { appendAll } from '../logic/arrays.js';
 
 /** The live check writes one row per combination up to this many inputs (4,096 rows). */
 export const LIVE_CHECK_MAX_INPUTS = 12;
@@ -46,19 +47,20 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
     for (const p of analysis.problems) rows.push([{ value: p.severity }, { value: qualifiedAddress(p.sheet, p.cell) }, { value: p.message }]);
     rows.push([]);
   }
-  for (const output of analysis.outputs) rows.push(...outputSection(analysis, output), []);
+  for (const output of analysis.outputs) appendAll(rows, outputSection(analysis, output)).push([]);
 
   rows.push([heading('Signals')], [heading('Header'), heading('Identifier'), heading('Role')]);
   for (const s of analysis.inputs) rows.push([{ value: s.header }, code(s.identifier), { value: 'input' }]);
   for (const o of analysis.outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
   rows.push([]);
 
-  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis), analysis.outputs.length), []);
+  rows.push([heading('Test steps (unique cause)')]);
+  appendAll(rows, stepBlockRows(stepTable(analysis), analysis.outputs.length)).push([]);
 
   const statusRanges: string[] = [];
   if (n <= LIVE_CHECK_MAX_INPUTS) {
     const live = liveCheck(analysis, rows.length);
-    rows.push(...live.rows);
+    appendAll(rows, live.rows);
     statusRanges.push(live.statusRange);
     rows[summaryRow] = [
       label('Combinations that differ (live check)'),

@@ -5,6 +5,7 @@ import { toIdentifiers } from '../logic/identifiers.js';
 import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../spec/analysis-types.js';
 import { CAUTION_LINES } from './caution.js';
 import { plural, stCommentText, wrap } from './text.js';
+import { appendAll } from '../logic/arrays.js';
 
 export type FormChoice = 'andOr' | 'xor' | 'bestXor';
 export type PouKind = 'FUNCTION_BLOCK' | 'PROGRAM';
@@ -35,7 +36,7 @@ export function exportSt(analyses: readonly TableAnalysis[], options: StExportOp
   out.push(comment(`${PRODUCT_NAME}: Structured Text hand-over, ${analyses.length} spec table(s)`));
   out.push(...CAUTION_LINES.map(comment), '');
   analyses.forEach((analysis, t) => {
-    out.push(...headerLines(analysis, form, { source: options.source, date: options.date ?? today() }).map(comment));
+    appendAll(out, headerLines(analysis, form, { source: options.source, date: options.date ?? today() }).map(comment));
     out.push(`${kind} ${names[t]}`);
     out.push('VAR_INPUT');
     for (const s of analysis.inputs) out.push(`    ${s.identifier} : BOOL;`);

@@ -18,6 +18,7 @@ import { patternTable } from './patterns.js';
 import { describeCube } from './read-tables.js';
 import { settingName } from './settings.js';
 import { gapCubes } from './uncovered.js';
+import { appendAll } from '../logic/arrays.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */
@@ -46,7 +47,7 @@ export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): Ta
     const analysed = analyseOutput(table, output, gaps, count(gapSet), sopOptions, (stage) =>
       progress(`${output.signal.header}: ${stage}`),
     );
-    problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));
+    appendAll(problems, outputProblems(table, analysed, table.headerCells[n + j]!));
     return analysed;
   });
   return { table, inputs: table.inputs, outputs, problems };

@@ -14,15 +14,20 @@ export function findBlocks(filled: readonly (readonly boolean[])[], width: numbe
   return out.sort((a, b) => a.top - b.top || a.left - b.left);
 }
 
-function cut(region: RangeRef, filled: readonly (readonly boolean[])[], out: RangeRef[]): void {
-  const rowRuns = runs(region.top, region.bottom, (r) => anyFilled(filled, r, r, region.left, region.right));
-  for (const [top, bottom] of rowRuns) {
-    const colRuns = runs(region.left, region.right, (c) => anyFilled(filled, top, bottom, c, c));
-    for (const [left, right] of colRuns) {
-      const piece = { top, left, bottom, right };
-      // A piece that neither cut made smaller has no empty row or column left: a block.
-      if (rowRuns.length === 1 && colRuns.length === 1 && sameRange(piece, region)) out.push(piece);
-      else cut(piece, filled, out);
+/** Pieces wait on a list, not on the call stack: a sheet laid out as a spiral nests deep. */
+function cut(whole: RangeRef, filled: readonly (readonly boolean[])[], out: RangeRef[]): void {
+  const todo = [whole];
+  while (todo.length > 0) {
+    const region = todo.pop()!;
+    const rowRuns = runs(region.top, region.bottom, (r) => anyFilled(filled, r, r, region.left, region.right));
+    for (const [top, bottom] of rowRuns) {
+      const colRuns = runs(region.left, region.right, (c) => anyFilled(filled, top, bottom, c, c));
+      for (const [left, right] of colRuns) {
+        const piece = { top, left, bottom, right };
+        // A piece that neither cut made smaller has no empty row or column left: a block.
+        if (rowRuns.length === 1 && colRuns.length === 1 && sameRange(piece, region)) out.push(piece);
+        else todo.push(piece);
+      }
     }
   }
 }

@@ -53,6 +53,7 @@ import type {
   XReading,
 } from './types.js';
 import { gapCubes } from './uncovered.js';
+import { appendAll } from '../logic/arrays.js';
 
 export interface SpecTablesRead {
   readonly tables: SpecTable[];
@@ -141,7 +142,7 @@ function readCells(grid: Grid, options: SpecOptions, located: Problem[]): SpecTa
     );
     const read = readTable(sheet, layout, options, below, host);
     if (read.table) tables.push(read.table);
-    else problems.push(...read.problems);
+    else appendAll(problems, read.problems);
   }
   if (tables.length === 0 && !problems.some((p) => p.severity === 'error')) {
     const extent = gridExtent(area);

@@ -1,5 +1,6 @@
 // The hand-over pack: built only when the workbook's verdicts allow it, otherwise refused with
 // the reason. Files are named here so that every host offers the same names.
+import { appendAll } from '../logic/arrays.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { ladderSvg } from '../report/ladder-svg.js';
 import { exportPlcopen } from '../report/plcopen-export.js';
@@ -39,7 +40,7 @@ export function handOverFiles(wb: Workbook, request: HandOverRequest): Result<Ha
       files.push({ kind, name: 'interlocks-plcopen.xml', mime: 'application/xml', text: exportPlcopen(analyses, { form, body: request.body ?? 'ST', source }) });
     // Several tables: one CSV, their step lists one after another.
     if (kind === 'steps') files.push({ kind, name: 'interlocks-test-steps.csv', mime: 'text/csv', text: analyses.map((a) => stepsCsv(a, { source: wb.source })).join('\r\n') });
-    if (kind === 'ladder') files.push(...ladderFiles(analyses));
+    if (kind === 'ladder') appendAll(files, ladderFiles(analyses));
   }
   return ok(files);
 }

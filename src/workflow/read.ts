@@ -2,6 +2,7 @@
 // the host brings the cells, the spec reader finds the tables. Split in two so that a host whose
 // engine runs elsewhere (the pane's worker) reads the grids where its workbook lives and hands
 // them over; both halves are the same in every host.
+import { appendAll } from '../logic/arrays.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { signalIndex } from '../logic/signals.js';
 import type { WorkbookHost } from '../hosts/workbook-host.js';
@@ -66,8 +67,8 @@ export function readTables(read: GridsRead, choice: WorkbookChoice): Result<Tabl
   const { sheet: _sheet, ...options } = choice;
   for (const grid of read.grids) {
     const found = readSpecTables(grid, options);
-    tables.push(...found.tables);
-    problems.push(...found.problems);
+    appendAll(tables, found.tables);
+    appendAll(problems, found.problems);
   }
   for (const name of Object.keys(choice.safeValues ?? {})) {
     if (!tables.some((t) => signalIndex(t.outputs.map((o) => o.signal), name) >= 0))

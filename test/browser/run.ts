@@ -65,7 +65,7 @@ function same<T>(actual: T, expected: T, what: string): void {
 }
 
 function build(out: string): void {
-  const r = spawnSync('npx', ['webpack', '--mode', 'production'], { cwd: ROOT, env: { ...process.env, IA_OUT_DIR: out }, encoding: 'utf8' });
+  const r = spawnSync('npm', ['run', 'build'], { cwd: ROOT, env: { ...process.env, IA_OUT_DIR: out }, encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`webpack failed:\n${r.stdout}\n${r.stderr}`);
 }
 

@@ -90,6 +90,6 @@ describe('verify', () => {
     expect((await runCli('verify', CSV)).code).toBe(2);
     const r = await runCli('verify', CSV, '--impl', join(scratch(), 'none.st'));
     expect(r.code).toBe(2);
-    expect(r.err).toContain('no such implementation file');
+    expect(r.err).toContain('the implementation file cannot be read: no such file or folder (ENOENT)');
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { signalIndex } from '../../src/logic/signals.js';
+import fc from 'fast-check';
+import { signalFinder, signalIndex } from '../../src/logic/signals.js';
 
 const signals = [
   { header: 'Guard A closed', identifier: 'Guard_A_closed' },
@@ -17,5 +18,19 @@ describe('resolving a signal name', () => {
 
   it('says -1 for an unknown name rather than guessing', () => {
     expect(signalIndex(signals, 'Guard_A')).toBe(-1);
+  });
+});
+
+describe('resolving many names against the same signals', () => {
+  it('gives the same answer as signalIndex for every name', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ header: fc.constantFrom('A', ' a ', 'B b', 'x', 'X'), identifier: fc.constantFrom('a', 'A', 'b', 'x_1') }), { maxLength: 6 }),
+        fc.constantFrom('a', 'A', ' b b', 'B B', 'x', 'X_1', 'none', ''),
+        (list, name) => {
+          expect(signalFinder(list)(name)).toBe(signalIndex(list, name));
+        },
+      ),
+    );
   });
 });

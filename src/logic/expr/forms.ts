@@ -2,7 +2,7 @@
 import type { Monomial } from '../anf.js';
 import type { Cube } from '../cube.js';
 import type { Signal } from '../signals.js';
-import { FALSE, TRUE, and, not, or, variable, xor, type Expr } from './ast.js';
+import { FALSE, TRUE, group, not, variable, type Expr } from './ast.js';
 
 /**
  * A sum of products: OR of one AND per cube; a literal is the input's identifier, or NOT it
@@ -11,7 +11,7 @@ import { FALSE, TRUE, and, not, or, variable, xor, type Expr } from './ast.js';
  */
 export function sopToExpr(cubes: readonly Cube[], signals: readonly Signal[]): Expr {
   if (cubes.length === 0) return FALSE;
-  return or(...cubes.map((c) => productTerm(c.mask, (i) => (c.bits & bitOf(signals.length, i)) === 0, signals)));
+  return group('or', cubes.map((c) => productTerm(c.mask, (i) => (c.bits & bitOf(signals.length, i)) === 0, signals)));
 }
 
 /**
@@ -21,7 +21,7 @@ export function sopToExpr(cubes: readonly Cube[], signals: readonly Signal[]): E
  */
 export function anfToExpr(monos: readonly Monomial[], signals: readonly Signal[], polarity = 0): Expr {
   if (monos.length === 0) return FALSE;
-  return xor(...monos.map((m) => productTerm(m, (i) => (polarity & bitOf(signals.length, i)) !== 0, signals)));
+  return group('xor', monos.map((m) => productTerm(m, (i) => (polarity & bitOf(signals.length, i)) !== 0, signals)));
 }
 
 /** AND of the inputs in `mask` (Combination positions), in input order. */
@@ -34,7 +34,7 @@ function productTerm(mask: number, negated: (input: number) => boolean, signals:
     const v = variable(i, signals[i]!.identifier);
     literals.push(negated(i) ? not(v) : v);
   }
-  return and(...literals);
+  return group('and', literals);
 }
 
 function bitOf(n: number, input: number): number {

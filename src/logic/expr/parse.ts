@@ -1,6 +1,6 @@
 // Parsing the expressions engineers type or PLC code holds (DESIGN.md section 3).
 import { fail, ok, type EngineError, type Result } from '../result.js';
-import { signalIndex, type Signal } from '../signals.js';
+import { signalFinder, type Signal } from '../signals.js';
 import { FALSE, TRUE, not, variable, type Expr } from './ast.js';
 
 /**
@@ -73,11 +73,14 @@ class Parser {
   private pos = 0;
   private lookahead: Token | undefined;
   private depth = 0;
+  private readonly find: (name: string) => number;
 
   constructor(
     private readonly text: string,
     private readonly signals: readonly Signal[],
-  ) {}
+  ) {
+    this.find = signalFinder(signals);
+  }
 
   /** OR binds loosest: or := xor (OR xor)*. */
   expression(): Expr {
@@ -119,7 +122,7 @@ class Parser {
       case 'const':
         return t.value ? TRUE : FALSE;
       case 'name': {
-        const index = signalIndex(this.signals, t.text);
+        const index = this.find(t.text);
         if (index < 0) {
           this.failWith(
             t.start,

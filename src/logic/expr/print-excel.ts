@@ -1,6 +1,6 @@
 // Expressions as Excel formulas over cell references (DESIGN.md section 3).
 import { fail, ok, type Result } from '../result.js';
-import type { Expr } from './ast.js';
+import { foldExpr, type Expr } from './ast.js';
 
 /**
  * Excel's limits. Formula contents 8,192 characters, 64 nested levels of functions and 255
@@ -16,12 +16,6 @@ export interface ExcelOptions {
   readonly file?: boolean;
 }
 
-interface Piece {
-  readonly text: string;
-  /** Function calls on the deepest path through this piece. */
-  readonly depth: number;
-}
-
 /**
  * The formula text (without the leading '=') of an expression, with AND(), OR(), NOT(),
  * XOR() over the cells `refOf(input)`.
@@ -35,57 +29,72 @@ interface Piece {
  * (all three are associative). Fails when the formula would still exceed Excel's limits.
  */
 export function printExcel(expr: Expr, refOf: (input: number) => string, options: ExcelOptions = {}): Result<string> {
-  const xorName = options.file ? '_xlfn.XOR' : 'XOR';
-  const piece = build(expr, refOf, xorName);
-  if (piece.depth > EXCEL_MAX_NESTING) {
+  // Depth first, text only when it fits: no formula text is built for an expression nested
+  // thousands deep (each level would copy the text below it).
+  const depth = nestingOf(expr);
+  if (depth > EXCEL_MAX_NESTING) {
     return fail({
-      message: `the Excel formula would nest ${piece.depth} functions deep, more than Excel's ${EXCEL_MAX_NESTING} levels`,
+      message: `the Excel formula would nest ${depth} functions deep, more than Excel's ${EXCEL_MAX_NESTING} levels`,
     });
   }
+  const text = build(expr, refOf, options.file ? '_xlfn.XOR' : 'XOR');
   // Count the '=' too: Excel's limit is on the whole formula as entered.
-  const length = piece.text.length + 1;
+  const length = text.length + 1;
   if (length > EXCEL_MAX_FORMULA_CHARS) {
     return fail({
       message: `the Excel formula would be ${length} characters long, more than Excel's ${EXCEL_MAX_FORMULA_CHARS}`,
     });
   }
-  return ok(piece.text);
+  return ok(text);
 }
 
-function build(e: Expr, refOf: (input: number) => string, xorName: string): Piece {
-  switch (e.kind) {
-    case 'const':
-      return { text: e.value ? 'TRUE' : 'FALSE', depth: 0 };
-    case 'var':
-      return { text: `(--${refOf(e.input)}=1)`, depth: 0 };
-    case 'not': {
-      const arg = build(e.arg, refOf, xorName);
-      return { text: `NOT(${arg.text})`, depth: arg.depth + 1 };
-    }
-    default: {
-      if (e.args.length === 0) return { text: e.kind === 'and' ? 'TRUE' : 'FALSE', depth: 0 };
-      if (e.args.length === 1) return build(e.args[0]!, refOf, xorName);
-      const fn = e.kind === 'and' ? 'AND' : e.kind === 'or' ? 'OR' : 'XOR';
-      const name = fn === 'XOR' ? xorName : fn;
-      return call(name, MAX_ARGS[fn], e.args.map((a) => build(a, refOf, xorName)));
-    }
-  }
+/** Function calls on the deepest path of the formula, long argument lists split as `build` splits them. */
+function nestingOf(expr: Expr): number {
+  return foldExpr<number>(expr, (e, depths) => {
+    if (e.kind === 'const' || e.kind === 'var') return 0;
+    if (e.kind === 'not') return depths[0]! + 1;
+    if (depths.length === 0) return 0;
+    return split(depths, MAX_ARGS[FUNCTION[e.kind]], (group) => {
+      let deepest = 0;
+      for (const d of group) deepest = Math.max(deepest, d);
+      return deepest + 1;
+    });
+  });
 }
 
-/** One call, or calls of calls when there are more arguments than one call may take. */
-function call(name: string, maxArgs: number, args: readonly Piece[]): Piece {
+const FUNCTION = { and: 'AND', or: 'OR', xor: 'XOR' } as const;
+
+/** The text, bottom-up (an explicit stack: no recursion on deep expressions). */
+function build(expr: Expr, refOf: (input: number) => string, xorName: string): string {
+  return foldExpr<string>(expr, (e, args) => {
+    switch (e.kind) {
+      case 'const':
+        return e.value ? 'TRUE' : 'FALSE';
+      case 'var':
+        return `(--${refOf(e.input)}=1)`;
+      case 'not':
+        return `NOT(${args[0]!})`;
+      default: {
+        if (args.length === 0) return e.kind === 'and' ? 'TRUE' : 'FALSE';
+        const fn = FUNCTION[e.kind];
+        const name = fn === 'XOR' ? xorName : fn;
+        return split(args, MAX_ARGS[fn], (group) => `${name}(${group.join(',')})`);
+      }
+    }
+  });
+}
+
+/**
+ * One call over the arguments, or calls of calls when there are more than one call may take
+ * (all three functions are associative). One argument needs no call.
+ */
+function split<T>(args: readonly T[], maxArgs: number, callOf: (group: readonly T[]) => T): T {
+  const single = (group: readonly T[]): T => (group.length === 1 ? group[0]! : callOf(group));
   let level = args;
   while (level.length > maxArgs) {
-    const grouped: Piece[] = [];
-    for (let i = 0; i < level.length; i += maxArgs) grouped.push(single(name, level.slice(i, i + maxArgs)));
+    const grouped: T[] = [];
+    for (let i = 0; i < level.length; i += maxArgs) grouped.push(single(level.slice(i, i + maxArgs)));
     level = grouped;
   }
-  return single(name, level);
-}
-
-function single(name: string, args: readonly Piece[]): Piece {
-  if (args.length === 1) return args[0]!;
-  let depth = 0;
-  for (const a of args) depth = Math.max(depth, a.depth);
-  return { text: `${name}(${args.map((a) => a.text).join(',')})`, depth: depth + 1 };
+  return single(level);
 }
