@@ -5,7 +5,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { add, emptySet, members } from '../src/logic/bits.js';
 import type { BoolFunction } from '../src/logic/boolfn.js';
-import { now } from '../src/logic/primes.js';
+import { now } from '../src/logic/deadline.js';
 import { DEFAULT_BUDGET_MS, minimiseSop, type SopForm } from '../src/logic/sop.js';
 
 /** Seeded random functions: each combination don't-care 10 %, else on or off evenly. */

@@ -56,11 +56,11 @@ function bruteForceMinimum(f: BoolFunction): [number, number] {
 
 describe('minimal AND/OR forms: known answers', () => {
   it('a function that is never on is FALSE: no product terms', () => {
-    expect(minimiseSop(fn(3, []))).toEqual({ cubes: [], proven: true, terms: 0, literals: 0 });
+    expect(minimiseSop(fn(3, []))).toEqual({ cubes: [], proven: true, terms: 0, literals: 0, lowerBound: { terms: 0, literals: 0 } });
   });
 
   it('a function that is always on is TRUE: one term with no literals', () => {
-    expect(minimiseSop(fn(2, [0, 1, 2, 3]))).toEqual({ cubes: [cube(0, 0)], proven: true, terms: 1, literals: 0 });
+    expect(minimiseSop(fn(2, [0, 1, 2, 3]))).toEqual({ cubes: [cube(0, 0)], proven: true, terms: 1, literals: 0, lowerBound: { terms: 1, literals: 0 } });
   });
 
   it('a function on or don\'t-care everywhere is TRUE', () => {
@@ -149,6 +149,58 @@ describe('minimal AND/OR forms: out of time', () => {
       expect(form.literals).toBe(literals(form.cubes));
     });
   }
+});
+
+/** Seeded random function: each combination on with probability `on`, else don't-care with `dc`. */
+function seededFunction(n: number, seed: number, on: number, dc: number): BoolFunction {
+  let state = seed >>> 0;
+  const next = (): number => (state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 2 ** 32;
+  const f = fn(n, []);
+  for (let k = 0; k < 1 << n; k++) {
+    const r = next();
+    if (r < on) add(f.on, k);
+    else if (r < on + dc) add(f.dc, k);
+  }
+  return f;
+}
+
+describe('minimal AND/OR forms: the proven claim', () => {
+  // A clock that moves one step per reading, so that each budget stops the same phase of the
+  // work (primes, matrix, heuristic, reductions, bound, branch and bound) on any machine.
+  const f = seededFunction(7, 3, 0.63, 0.17);
+  const full = minimiseSop(f, { budgetMs: Infinity });
+
+  it('the unlimited search proves its form: the lower bound is the cost', () => {
+    expect(full.proven).toBe(true);
+    expect(full.lowerBound).toEqual({ terms: full.terms, literals: full.literals });
+  });
+
+  it('stopped at any point by the deadline, never says proven; its bound never passes the minimum', () => {
+    let readings = 0;
+    minimiseSop(f, { budgetMs: Infinity, clock: () => ++readings });
+    const budgets = [0, 1, 2, 3];
+    for (let b = 4; b <= 2 * readings + 4; b += Math.ceil(readings / 30)) budgets.push(b);
+    for (const budget of budgets) {
+      let t = 0;
+      const form = minimiseSop(f, { budgetMs: budget, clock: () => ++t });
+      expect(form.lowerBound.terms).toBeLessThanOrEqual(full.terms);
+      expect(form.lowerBound.literals).toBeLessThanOrEqual(full.literals);
+      expect(form.terms > full.terms || (form.terms === full.terms && form.literals >= full.literals)).toBe(true);
+      // The first reading sets the deadline at 1 + budget; a later reading past it cut the work.
+      if (t > 1 + budget) expect(form.proven).toBe(false);
+      if (form.proven) expect([form.terms, form.literals]).toEqual([full.terms, full.literals]);
+      else expect(form.lowerBound.terms < form.terms || form.lowerBound.literals < form.literals || t > 1 + budget).toBe(true);
+    }
+  });
+
+  it('with a budget of 0 or 1 ms on the real clock, a 10-input function is not proven', () => {
+    const big = seededFunction(10, 1, 0.63, 0.17);
+    for (const budgetMs of [0, 1]) {
+      const form = minimiseSop(big, { budgetMs });
+      expect(form.proven).toBe(false);
+      expect(form.lowerBound.terms <= form.terms && form.lowerBound.literals <= form.literals).toBe(true);
+    }
+  });
 });
 
 describe('minimal AND/OR forms: properties', () => {
