@@ -69,6 +69,7 @@ function analyseOutput(
     proven: sop.proven,
     terms: sop.terms,
     literals: sop.literals,
+    lowerBound: sop.lowerBound,
     proof: formProof(andOrProof),
     permitsAlso: andOrProof.permitsAlso,
     permitsAlsoCount: andOrProof.permitsAlsoCount,
