@@ -36,6 +36,27 @@ export function expandCover(n: number, onCubes: readonly Cube[], allowed: BitSet
 }
 
 /**
+ * A lower bound on the terms of any cover when there are no primes: on-set combinations (one
+ * per disjoint cube of the on-set) no two of which lie in one implicant, because the smallest
+ * cube holding both meets the off-set. Each needs a term of its own. Grown while the clock
+ * allows, but from at least 64 candidates (the deadline may have passed already).
+ */
+export function separatedCombinations(n: number, onCubes: readonly Cube[], allowed: BitSet, deadline: Deadline): number {
+  const full = n === 32 ? -1 : (1 << n) - 1;
+  const chosen: number[] = [];
+  for (let i = 0; i < onCubes.length; i++) {
+    if (i >= 64 && (i & 63) === 0 && deadline.passed()) break;
+    const p = onCubes[i]!.bits;
+    const apart = chosen.every((q) => {
+      const mask = full & ~(p ^ q);
+      return !cubeInsideSet(n, cube(mask, p & mask), allowed);
+    });
+    if (apart) chosen.push(p);
+  }
+  return chosen.length;
+}
+
+/**
  * A good cover (fewest columns, then lowest cost), not proven best, in three steps over the
  * cover matrix: a greedy start (most uncovered rows, then cheapest), irredundant (drop columns whose rows are all
  * covered twice, dearest first), then reduce and re-expand: shrink each chosen column to the rows

@@ -3,7 +3,7 @@ import { count, popcount, union } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import type { BoolFunction } from './boolfn.js';
 import { exactCover, type CoverProblem } from './cover.js';
-import { expandCover, heuristicCover } from './heuristic.js';
+import { expandCover, heuristicCover, separatedCombinations } from './heuristic.js';
 import { deadlineAt, NEVER, now, type Clock, type Deadline } from './deadline.js';
 import { comparePrinted, cubesDisjoint, primesWithin, setToCubes } from './primes.js';
 
@@ -54,8 +54,12 @@ export function minimiseSop(fn: BoolFunction, options: SopOptions = {}): SopForm
   const onCubes = setToCubes(n, fn.on);
   const primes = primesWithin(fn, halfway);
   const problem = primes && coverProblem(onCubes, primes, halfway);
-  // Without the matrix, all that is known: some term, and no term without a literal.
-  if (!primes || !problem) return form(n, expandCover(n, onCubes, allowed, deadline), { terms: 1, literals: 1 }, false);
+  if (!primes || !problem) {
+    const cubes = expandCover(n, onCubes, allowed, deadline);
+    // Without the matrix: terms from combinations no implicant joins, each at least a literal.
+    const terms = Math.max(1, separatedCombinations(n, onCubes, allowed, deadline));
+    return form(n, cubes, { terms, literals: terms }, false);
+  }
   const result = exactCover(problem, deadline, heuristicCover(problem, deadline));
   const { columns, cost } = result.lowerBound;
   return form(n, result.columns.map((c) => primes[c]!), { terms: columns, literals: cost }, result.proven);

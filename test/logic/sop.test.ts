@@ -3,6 +3,9 @@ import fc from 'fast-check';
 import { add, complement, emptySet, equals, has, popcount, union } from '../../src/logic/bits.js';
 import { cubeContains, cubeFromPattern, cubeMembers, cubeToPattern, cubeToSet, cube, type Cube } from '../../src/logic/cube.js';
 import type { BoolFunction } from '../../src/logic/boolfn.js';
+import { NEVER } from '../../src/logic/deadline.js';
+import { separatedCombinations } from '../../src/logic/heuristic.js';
+import { setToCubes } from '../../src/logic/primes.js';
 import { minimiseSop, primeImplicants } from '../../src/logic/sop.js';
 
 function fn(n: number, on: number[], dc: number[] = []): BoolFunction {
@@ -232,5 +235,23 @@ describe('minimal AND/OR forms: properties', () => {
       }),
       { numRuns: 150 },
     );
+  });
+
+  it('combinations no implicant joins are never more than the fewest terms (n <= 5)', () => {
+    fc.assert(
+      fc.property(randomFunction(5), (f) => {
+        const separated = separatedCombinations(f.n, setToCubes(f.n, f.on), union(f.on, f.dc), NEVER);
+        expect(separated).toBeLessThanOrEqual(bruteForceMinimum(f)[0]);
+      }),
+      { numRuns: 150 },
+    );
+  });
+});
+
+describe('the bound without primes', () => {
+  it('XOR of 4 inputs: its 8 odd combinations are pairwise apart, as many as its terms', () => {
+    const odd = Array.from({ length: 16 }, (_, k) => k).filter((k) => popcount(k) % 2 === 1);
+    const f = fn(4, odd);
+    expect(separatedCombinations(4, setToCubes(4, f.on), f.on, NEVER)).toBe(8);
   });
 });
