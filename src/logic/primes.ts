@@ -240,10 +240,56 @@ export function completeSum(cubes: readonly Cube[], deadline: Deadline): Cube[] 
 function absorb(cubes: Cube[], deadline: Deadline): Cube[] | null {
   const byLiterals = cubes.map((c) => ({ c, k: popcount(c.mask) })).sort((a, b) => a.k - b.k);
   const kept: Cube[] = [];
+  const trie = new CubeTrie(cubes.reduce((m, c) => m | c.mask, 0));
   for (let i = 0; i < byLiterals.length; i++) {
     if ((i & 63) === 63 && deadline.passed()) return null;
     const c = byLiterals[i]!.c;
-    if (!kept.some((k) => cubeWithin(c, k))) kept.push(c);
+    if (trie.holds(c)) continue;
+    trie.add(c);
+    kept.push(c);
   }
   return kept;
+}
+
+/**
+ * Cubes by their value on each input (0, 1, absent), input by input from the highest bit used:
+ * whether some cube added contains a given one is then a walk that branches only where the
+ * given cube has a literal (the container may have that literal or none).
+ */
+class CubeTrie {
+  /** Per node, three children (0, 1, absent); 0 = none (node 0 is the root, never a child). */
+  private next = new Int32Array(3 * 64);
+  private size = 1;
+  private readonly bits: number[] = [];
+
+  constructor(used: number) {
+    for (let b = 31 - Math.clz32(used); b >= 0; b--) if (used & (1 << b)) this.bits.push(1 << b);
+  }
+
+  add(c: Cube): void {
+    let node = 0;
+    for (const bit of this.bits) {
+      const slot = 3 * node + (c.mask & bit ? (c.bits & bit ? 1 : 0) : 2);
+      if (this.next[slot] === 0) {
+        if (3 * (this.size + 1) > this.next.length) {
+          const grown = new Int32Array(this.next.length * 2);
+          grown.set(this.next);
+          this.next = grown;
+        }
+        this.next[slot] = this.size++;
+      }
+      node = this.next[slot]!;
+    }
+  }
+
+  /** Some cube added contains c (or equals it). */
+  holds(c: Cube, node = 0, depth = 0): boolean {
+    if (depth === this.bits.length) return true;
+    const bit = this.bits[depth]!;
+    const absent = this.next[3 * node + 2]!;
+    if (absent !== 0 && this.holds(c, absent, depth + 1)) return true;
+    if (!(c.mask & bit)) return false;
+    const same = this.next[3 * node + (c.bits & bit ? 1 : 0)]!;
+    return same !== 0 && this.holds(c, same, depth + 1);
+  }
 }

@@ -72,34 +72,38 @@ function form(n: number, cubes: Cube[], lowerBound: SopForm['lowerBound'], prove
 
 /**
  * Rows: the on-set split into pieces that each column either holds whole or misses, one row
- * per distinct set of columns (so rows stay few when the on-set is large). A column costs its
- * literals; the cover search counts columns (product terms) first. Null past the deadline.
+ * per distinct set of columns (so rows stay few when the on-set is large). Each disjoint cube
+ * of the on-set is split by the columns that meet it only. A column costs its literals; the
+ * cover search counts columns (product terms) first. Null past the deadline.
  */
 export function coverProblem(onCubes: readonly Cube[], columns: readonly Cube[], deadline: Deadline = NEVER): CoverProblem | null {
-  let pieces = onCubes.map((c) => ({ c, cols: [] as number[] }));
-  for (let j = 0; j < columns.length; j++) {
-    if (deadline.passed()) return null;
-    const p = columns[j]!;
-    const next: typeof pieces = [];
-    for (const piece of pieces) {
-      const q = piece.c;
-      if (cubesDisjoint(q, p)) {
-        next.push(piece);
-        continue;
-      }
-      // Split q into its part inside p and disjoint parts outside, one input of p at a time.
-      let inside = q;
-      for (let free = p.mask & ~q.mask; free !== 0; free &= free - 1) {
-        const bit = free & -free;
-        next.push({ c: cube(inside.mask | bit, inside.bits | (~p.bits & bit)), cols: piece.cols.slice() });
-        inside = cube(inside.mask | bit, inside.bits | (p.bits & bit));
-      }
-      piece.cols.push(j);
-      next.push({ c: inside, cols: piece.cols });
-    }
-    pieces = next;
-  }
   const rows = new Map<string, number[]>();
-  for (const { cols } of pieces) rows.set(cols.join(','), cols);
+  for (const q0 of onCubes) {
+    if (deadline.passed()) return null;
+    let pieces = [{ c: q0, cols: [] as number[] }];
+    for (let j = 0; j < columns.length; j++) {
+      const p = columns[j]!;
+      if (cubesDisjoint(q0, p)) continue;
+      const next: typeof pieces = [];
+      for (const piece of pieces) {
+        const q = piece.c;
+        if (cubesDisjoint(q, p)) {
+          next.push(piece);
+          continue;
+        }
+        // Split q into its part inside p and disjoint parts outside, one input of p at a time.
+        let inside = q;
+        for (let free = p.mask & ~q.mask; free !== 0; free &= free - 1) {
+          const bit = free & -free;
+          next.push({ c: cube(inside.mask | bit, inside.bits | (~p.bits & bit)), cols: piece.cols.slice() });
+          inside = cube(inside.mask | bit, inside.bits | (p.bits & bit));
+        }
+        piece.cols.push(j);
+        next.push({ c: inside, cols: piece.cols });
+      }
+      pieces = next;
+    }
+    for (const { cols } of pieces) rows.set(cols.join(','), cols);
+  }
   return { rows: [...rows.values()], costs: columns.map((p) => popcount(p.mask)) };
 }
