@@ -47,14 +47,14 @@ export function minimiseSop(fn: BoolFunction, options: SopOptions = {}): SopForm
   const deadline = deadlineAt(clock() + budget, clock);
   // Primes and the cover matrix get three quarters of the budget (a cover from them beats the
   // fallback by far), leaving the rest for a cheaper cover.
-  const halfway = deadline.at(clock() + budget * 0.75);
+  const matrixDeadline = deadline.at(clock() + budget * 0.75);
   const { n } = fn;
   if (count(fn.on) === 0) return form(n, [], { terms: 0, literals: 0 }, true);
   const allowed = union(fn.on, fn.dc);
   if (count(allowed) === 2 ** n) return form(n, [cube(0, 0)], { terms: 1, literals: 0 }, true);
   const onCubes = setToCubes(n, fn.on);
-  const primes = primesWithin(fn, halfway);
-  const problem = primes && coverProblem(onCubes, primes, halfway);
+  const primes = primesWithin(fn, matrixDeadline);
+  const problem = primes && coverProblem(onCubes, primes, matrixDeadline);
   if (!primes || !problem) {
     const cubes = expandCover(n, onCubes, allowed, deadline);
     // Without the matrix: terms from combinations no implicant joins, each at least a literal.
