@@ -1,15 +1,18 @@
 // WorkbookHost over a workbook file (.xlsx/.xlsm) or a CSV file, for the command line.
-// Workbook files are parsed by SheetJS only inside parse-worker.mjs, in a worker thread with
-// a time limit, a heap limit and a file-size limit; plain grids come back and are checked
-// again cell by cell (parsed-workbook.ts, shared with the standalone page). Results are written to a new file: never the input, via a temp file + rename.
+// Workbook files are checked (zip-package.mjs) and parsed by SheetJS only inside
+// parse-worker.mjs, in a child process with a time limit, a heap limit, an unpacking budget
+// and a file-size limit; plain grids come back and are checked again cell by cell
+// (parsed-workbook.ts, shared with the standalone page). Results are written to a new file: never the input, via a temp file + rename.
+import { fork } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, realpathSync, statSync } from 'node:fs';
 import { readFile, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join, resolve } from 'node:path';
-import { Worker } from 'node:worker_threads';
+import { fileURLToPath } from 'node:url';
+import { inflateRawSync } from 'node:zlib';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
-import { fileKind, ParsedWorkbook, readSheets, type FileKind, type RunParseJob, type SheetData } from './parsed-workbook.js';
+import { fileKind, ParsedWorkbook, readSheets, type FileKind, type FileRead, type RunParseJob, type UnpackBudget } from './parsed-workbook.js';
 import type { WriteReport } from './workbook-host.js';
 
 export interface FileHostOptions {
@@ -21,48 +24,70 @@ export interface FileHostOptions {
   readonly heapMb?: number;
   /** Largest used range of one sheet, in cells (default 20 million). */
   readonly maxCells?: number;
+  /** How far a workbook package may unpack (default 128 MB per part, 256 MB in all, ratio 200). */
+  readonly budget?: UnpackBudget;
   /** Tests of the isolation only: make the parsing worker misbehave on purpose. */
-  readonly testHook?: 'pollute-prototype' | 'never-finish' | 'exhaust-heap';
+  readonly testHook?: 'pollute-prototype' | 'never-finish' | 'exhaust-heap' | 'crash';
 }
 
-export const FILE_DEFAULTS = { timeLimitMs: 60_000, maxBytes: 50 * 1024 * 1024, heapMb: 1024, maxCells: 20_000_000 } as const;
+const MB = 1024 * 1024;
 
-/** Each job in a fresh parsing worker thread, within the time limit and the heap limit. */
+/**
+ * The unpacked package must fit the worker's 1024 MB heap (SheetJS holds each part as text and
+ * more); a real sheet's XML packs 10-20 times (a 200,000-row sheet of 0/1 cells: 11.5), so a
+ * ratio over 200 in a part of more than 1 MB is taken for a zip bomb.
+ */
+export const FILE_DEFAULTS = {
+  timeLimitMs: 60_000,
+  maxBytes: 50 * MB,
+  heapMb: 1024,
+  maxCells: 20_000_000,
+  budget: { maxEntryBytes: 128 * MB, maxTotalBytes: 256 * MB, maxRatio: 200 },
+} as const;
+
+/**
+ * Each job in a fresh child process running parse-worker.mjs, within the time limit and the
+ * heap limit. A process, not a worker thread: some out-of-memory failures of a worker thread
+ * (a growing Map, for one) end the whole process; a child's end is only a failed read here.
+ */
 const workerRunner = (options: FileHostOptions, what: string): RunParseJob => (job, bytes) => {
   const timeLimitMs = options.timeLimitMs ?? FILE_DEFAULTS.timeLimitMs;
+  const heapMb = options.heapMb ?? FILE_DEFAULTS.heapMb;
   return new Promise((done) => {
-    const worker = new Worker(new URL('./parse-worker.mjs', import.meta.url), {
-      workerData: { ...job, bytes, testHook: options.testHook },
-      transferList: [bytes.buffer as ArrayBuffer],
-      resourceLimits: { maxOldGenerationSizeMb: options.heapMb ?? FILE_DEFAULTS.heapMb },
-      // Whatever the parser prints stays out of our stdout (which may carry the --json document).
-      stdout: true,
-      stderr: true,
+    const child = fork(fileURLToPath(new URL('./parse-worker.mjs', import.meta.url)), [], {
+      // No loaders of ours (tsx, vitest): the worker is plain JavaScript.
+      execArgv: [`--max-old-space-size=${heapMb}`],
+      serialization: 'advanced',
+      // Whatever the parser or V8 prints stays out of our stdout (which may carry the --json document).
+      stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
     });
+    let stderr = '';
+    child.stderr?.on('data', (d: Buffer) => void (stderr = (stderr + d.toString()).slice(-4096)));
+    child.stdout?.resume();
     let settled = false;
     const finish = (answer: Result<unknown>): void => {
       if (settled) return;
       settled = true;
       clearTimeout(timer);
-      void worker.terminate();
+      child.kill('SIGKILL');
       done(answer);
     };
     const timer = setTimeout(
       () => finish(fail({ message: `${what}: reading took longer than the limit of ${timeLimitMs / 1000} s and was stopped` })),
       timeLimitMs,
     );
-    worker.on('message', (answer: unknown) => finish(ok(answer)));
-    worker.on('error', (e: Error & { code?: string }) =>
+    child.on('message', (answer: unknown) => finish(ok(answer)));
+    child.on('error', (e: Error) => finish(fail({ message: `${what}: the reader could not be started (${e.message})` })));
+    child.on('exit', (code, signal) =>
       finish(
         fail({
-          message:
-            e.code === 'ERR_WORKER_OUT_OF_MEMORY'
-              ? `${what}: reading needed more than the memory limit of ${options.heapMb ?? FILE_DEFAULTS.heapMb} MB and was stopped`
-              : `${what}: could not be read (${e.message})`,
+          message: /heap limit|out of memory/i.test(stderr)
+            ? `${what}: reading needed more than the memory limit of ${heapMb} MB and was stopped`
+            : `${what}: the reader stopped unexpectedly (${signal ?? `exit ${code}`})`,
         }),
       ),
     );
-    worker.on('exit', (code) => finish(fail({ message: `${what}: the reader stopped unexpectedly (exit ${code})` })));
+    child.send({ ...job, bytes, testHook: options.testHook });
   });
 };
 
@@ -81,15 +106,20 @@ async function readLimited(path: string, options: FileHostOptions): Promise<Resu
   return ok(new Uint8Array(await readFile(path)));
 }
 
+/** Raw inflate with an output limit (zlib stops at it), for the parts of a package we add to. */
+async function inflateRawNode(data: Uint8Array, maxBytes: number): Promise<Uint8Array> {
+  return new Uint8Array(inflateRawSync(data, { maxOutputLength: maxBytes }));
+}
+
 /** A workbook or CSV file opened for reading, with result sheets queued for `save`. */
 export class FileHost extends ParsedWorkbook {
   constructor(
     readonly path: string,
     kind: FileKind,
-    sheets: readonly SheetData[],
+    read: FileRead,
     private readonly options: FileHostOptions,
   ) {
-    super(path, kind, sheets);
+    super(path, kind, read);
   }
 
   /**
@@ -99,7 +129,7 @@ export class FileHost extends ParsedWorkbook {
   async save(outPath: string): Promise<Result<string>> {
     if (sameFile(this.path, outPath)) return fail({ message: `${outPath}: is the input file; choose another name for the results` });
     if (extname(outPath).toLowerCase() !== '.xlsx') return fail({ message: `${outPath}: results are written as .xlsx; give a name ending in .xlsx` });
-    const bytes = await this.resultsBytes(() => readLimited(this.path, this.options), workerRunner(this.options, this.path));
+    const bytes = await this.resultsBytes(() => readLimited(this.path, this.options), inflateRawNode);
     if (!bytes.ok) return bytes;
     return writeOutputFile(this.path, outPath, bytes.value);
   }
@@ -164,9 +194,10 @@ export async function openFile(path: string, options: FileHostOptions = {}): Pro
   if (!kind) return fail({ message: `${path}: not a workbook or CSV file (expected .xlsx, .xlsm or .csv)` });
   const bytes = await readLimited(path, options);
   if (!bytes.ok) return bytes;
-  const sheets = await readSheets(path, basename(path), kind, bytes.value, options.maxCells ?? FILE_DEFAULTS.maxCells, workerRunner(options, path));
-  if (!sheets.ok) return sheets;
-  return ok(new FileHost(path, kind, sheets.value, options));
+  const limits = { maxCells: options.maxCells ?? FILE_DEFAULTS.maxCells, budget: options.budget ?? FILE_DEFAULTS.budget };
+  const read = await readSheets(path, basename(path), kind, bytes.value, limits, workerRunner(options, path));
+  if (!read.ok) return read;
+  return ok(new FileHost(path, kind, read.value, options));
 }
 
 /**

@@ -2,14 +2,15 @@
 // sheets queued for a copy of it. Neutral about where it runs (no node: imports): the command
 // line (file-host.ts) and the standalone page (browser-file-host.ts) each bring the file's bytes
 // and their own way of running parse-worker.mjs, the only place SheetJS parses a user's file.
-import XLSX from 'xlsx';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { parseCsv } from '../spec/csv.js';
-import { cellAddress, parseRange, restrictGrid } from '../spec/grid.js';
-import type { CellValue, Grid } from '../spec/types.js';
+import { cellAddress, intersectRanges, parseRange, restrictGrid } from '../spec/grid.js';
+import type { CellValue, Grid, Problem, Severity } from '../spec/types.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
-import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
+import type { ZipBudget } from './zip-package.mjs';
+import { addSheets, newWorkbook, type InflateRaw, type NamedBlock } from './xlsx-package.js';
+import { ERROR_CODES, freeSheetName } from './xlsx-write.js';
 
 export type FileKind = 'workbook' | 'csv';
 
@@ -23,9 +24,25 @@ export function fileKind(fileName: string): FileKind | undefined {
 
 export interface SheetData {
   readonly name: string;
-  /** Used range, as a grid; undefined when the sheet is too large to read whole. */
+  /** Used range, as a grid (with its merged areas and reading problems); undefined when not read. */
   readonly grid?: Grid;
   readonly tooLarge?: { readonly range: string; readonly cells: number };
+  /** Why the sheet could not be read at all (its part is damaged or missing). */
+  readonly damaged?: string;
+}
+
+/** An Excel Table object of the workbook (ListObject): its name, sheet and A1 range. */
+export interface WorkbookTable {
+  readonly name: string;
+  readonly sheet: string;
+  readonly range: string;
+}
+
+/** A file read: its sheets, its Excel tables, and problems of the file or of whole sheets. */
+export interface FileRead {
+  readonly sheets: readonly SheetData[];
+  readonly tables: readonly WorkbookTable[];
+  readonly problems: readonly Problem[];
 }
 
 /**
@@ -33,6 +50,9 @@ export interface SheetData {
  * worker's message as it came, or a failure naming the file (time limit, crash).
  */
 export type RunParseJob = (job: Record<string, unknown>, bytes: Uint8Array) => Promise<Result<unknown>>;
+
+/** How far a package may unpack (zip-package.mjs): per part, in all, and its ratio to the packed size. */
+export type UnpackBudget = ZipBudget;
 
 const ERROR_NAMES: Record<number, string> = Object.fromEntries(Object.entries(ERROR_CODES).map(([name, code]) => [code, name]));
 
@@ -46,92 +66,150 @@ function workerAnswer(raw: unknown, what: string, failed: (message: string) => s
   return fail({ message: `${what}: the reader answered with something other than a result` });
 }
 
+function isPlainObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === 'object' && v !== null && Object.getPrototypeOf(v) === Object.prototype;
+}
+
 /** Only plain values cross from the worker: anything else is refused, objects are rebuilt. */
 function plainCell(v: unknown): CellValue | undefined {
   if (v === null || typeof v === 'boolean' || typeof v === 'string') return v;
   if (typeof v === 'number') return Number.isFinite(v) ? v : undefined;
-  if (typeof v === 'object' && Object.getPrototypeOf(v) === Object.prototype) {
+  if (isPlainObject(v)) {
     const keys = Object.keys(v);
-    const o = v as Record<string, unknown>;
-    if (keys.length === 1 && keys[0] === 'error' && typeof o.error === 'string') return { error: o.error };
-    if (keys.length === 1 && keys[0] === 'date' && typeof o.date === 'number') return { date: o.date };
+    if (keys.length === 1 && keys[0] === 'error' && typeof v.error === 'string') return { error: v.error };
+    if (keys.length === 1 && keys[0] === 'date' && typeof v.date === 'number') return { date: v.date };
   }
   return undefined;
 }
 
-/** The worker's sheets, every cell checked and copied; anything not sheets of plain cells is refused. */
-export function checkSheets(raw: unknown, what: string): Result<SheetData[]> {
-  const bad = fail({ message: `${what}: the reader returned something other than sheets of cells` });
-  if (!Array.isArray(raw)) return bad;
-  const out: SheetData[] = [];
-  for (const s of raw as unknown[]) {
-    if (typeof s !== 'object' || s === null) return bad;
-    const { name, origin, cells, tooLarge } = s as Record<string, unknown>;
-    if (typeof name !== 'string' || typeof origin !== 'string') return bad;
-    if (typeof tooLarge === 'number') {
-      out.push({ name, tooLarge: { range: origin, cells: tooLarge } });
-      continue;
-    }
-    if (!Array.isArray(cells)) return bad;
-    const rows: CellValue[][] = [];
-    for (const row of cells as unknown[]) {
-      if (!Array.isArray(row)) return bad;
-      const clean: CellValue[] = new Array(row.length);
-      for (let c = 0; c < row.length; c++) {
-        const v = plainCell(row[c]);
-        if (v === undefined) return bad;
-        clean[c] = v;
-      }
-      rows.push(clean);
-    }
-    out.push({ name, grid: { sheet: name, origin, cells: rows } });
+const SEVERITIES: readonly string[] = ['error', 'warning', 'info'];
+
+/** A problem from the worker, copied field by field; undefined when it is not one. */
+function plainProblem(v: unknown): Problem | undefined {
+  if (!isPlainObject(v)) return undefined;
+  const { severity, code, sheet, cell, message } = v;
+  if (typeof severity !== 'string' || !SEVERITIES.includes(severity)) return undefined;
+  if (typeof code !== 'string' || typeof sheet !== 'string' || typeof cell !== 'string' || typeof message !== 'string') return undefined;
+  return { severity: severity as Severity, code, sheet, cell, message };
+}
+
+/** Every element through `each`; undefined when one is refused or `raw` is not an array. */
+function allOf<T>(raw: unknown, each: (v: unknown) => T | undefined): T[] | undefined {
+  if (raw === undefined) return [];
+  if (!Array.isArray(raw)) return undefined;
+  const out: T[] = [];
+  for (const v of raw as unknown[]) {
+    const t = each(v);
+    if (t === undefined) return undefined;
+    out.push(t);
   }
-  return ok(out);
+  return out;
+}
+
+const text = (v: unknown): string | undefined => (typeof v === 'string' ? v : undefined);
+
+function plainTable(v: unknown): WorkbookTable | undefined {
+  if (!isPlainObject(v) || typeof v.name !== 'string' || typeof v.sheet !== 'string' || typeof v.range !== 'string') return undefined;
+  return { name: v.name, sheet: v.sheet, range: v.range };
+}
+
+function plainRow(v: unknown): CellValue[] | undefined {
+  if (!Array.isArray(v)) return undefined;
+  const clean: CellValue[] = new Array(v.length);
+  for (let c = 0; c < v.length; c++) {
+    const cell = plainCell(v[c]);
+    if (cell === undefined) return undefined;
+    clean[c] = cell;
+  }
+  return clean;
+}
+
+function plainSheet(s: unknown): SheetData | undefined {
+  if (!isPlainObject(s)) return undefined;
+  const { name, origin, cells, tooLarge, damaged } = s;
+  if (typeof name !== 'string' || typeof origin !== 'string') return undefined;
+  if (typeof tooLarge === 'number') return { name, tooLarge: { range: origin, cells: tooLarge } };
+  if (typeof damaged === 'string') return { name, damaged };
+  const rows = allOf(cells, plainRow);
+  const merges = allOf(s.merges, text);
+  const readProblems = allOf(s.problems, plainProblem);
+  if (!rows || !merges || !readProblems) return undefined;
+  return { name, grid: { sheet: name, origin, cells: rows, merges, readProblems } };
+}
+
+/** The worker's answer, every cell, problem and table checked and copied; anything else is refused. */
+export function checkAnswer(answer: Record<string, unknown>, what: string): Result<FileRead> {
+  const sheets = Array.isArray(answer.sheets) ? allOf(answer.sheets, plainSheet) : undefined;
+  const tables = allOf(answer.tables, plainTable);
+  const problems = allOf(answer.problems, plainProblem);
+  if (!sheets || !tables || !problems) return fail({ message: `${what}: the reader returned something other than sheets of cells` });
+  return ok({ sheets, tables, problems });
+}
+
+/** The sheets of a CSV file as the worker would answer them (so the page can parse CSV in its worker too). */
+export function csvAnswer(fileName: string, bytes: Uint8Array, maxCells: number): Record<string, unknown> {
+  let csv: string;
+  try {
+    csv = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    return { ok: false, message: 'not UTF-8 text (save the CSV as "CSV UTF-8")' };
+  }
+  const rows = parseCsv(csv, undefined, maxCells);
+  if (!rows.ok) return { ok: false, message: rows.error.message };
+  // Named after the file, as Excel does.
+  const name = fileName.replace(/\.[^.]*$/, '').slice(0, 31) || 'Sheet1';
+  return { ok: true, sheets: [{ name, origin: 'A1', cells: rows.value }] };
 }
 
 /**
- * The sheets of a file's bytes: CSV through our own reader (one sheet, named after the file as
- * Excel does), a workbook through `run` in the isolated worker. Errors name the file (`what`).
+ * The sheets of a file's bytes: CSV through our own reader (here, or with `csvInWorker` as a
+ * job of `run`, so that a page keeps its main thread free), a workbook through `run` in the
+ * isolated worker, within `budget`. Errors name the file (`what`).
  */
 export async function readSheets(
   what: string,
   fileName: string,
   kind: FileKind,
   bytes: Uint8Array,
-  maxCells: number,
+  limits: { readonly maxCells: number; readonly budget: UnpackBudget; readonly csvInWorker?: boolean },
   run: RunParseJob,
-): Promise<Result<SheetData[]>> {
+): Promise<Result<FileRead>> {
+  const failed = (m: string) => `${what}: ${m}`;
   if (kind === 'csv') {
-    let text: string;
-    try {
-      text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-    } catch {
-      return fail({ message: `${what}: not UTF-8 text (save the CSV as "CSV UTF-8")` });
-    }
-    const rows = parseCsv(text);
-    if (!rows.ok) return fail({ message: `${what}: ${rows.error.message}` });
-    const name = fileName.replace(/\.[^.]*$/, '').slice(0, 31) || 'Sheet1';
-    return ok([{ name, grid: { sheet: name, origin: 'A1', cells: rows.value } }]);
+    let raw: unknown = undefined;
+    if (limits.csvInWorker) {
+      const r = await run({ mode: 'csv', fileName, maxCells: limits.maxCells }, bytes);
+      if (!r.ok) return r;
+      raw = r.value;
+    } else raw = csvAnswer(fileName, bytes, limits.maxCells);
+    const answer = workerAnswer(raw, what, failed);
+    return answer.ok ? checkAnswer(answer.value, what) : answer;
   }
   // An .xlsx file is a zip; anything else would be sniffed by SheetJS as some other format.
   const zip = bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 3 && bytes[3] === 4;
+  const ole = bytes.length >= 4 && bytes[0] === 0xd0 && bytes[1] === 0xcf && bytes[2] === 0x11 && bytes[3] === 0xe0;
+  if (ole) return fail({ message: `${what}: the workbook is encrypted (password-protected) or an old .xls file; save it as an .xlsx workbook without a password` });
   if (!zip) return fail({ message: `${what}: not an .xlsx workbook (the file is not a zip package)` });
-  const raw = await run({ mode: 'grids', maxCells, errorNames: ERROR_NAMES }, bytes);
+  const raw = await run({ mode: 'grids', maxCells: limits.maxCells, budget: limits.budget, errorNames: ERROR_NAMES }, bytes);
   if (!raw.ok) return raw;
-  const answer = workerAnswer(raw.value, what, (m) => `${what}: not a workbook SheetJS can read (${m})`);
-  return answer.ok ? checkSheets(answer.value.sheets, what) : answer;
+  const answer = workerAnswer(raw.value, what, failed);
+  return answer.ok ? checkAnswer(answer.value, what) : answer;
 }
 
 /** A file read into plain grids, with result sheets queued for a copy of it. */
 export class ParsedWorkbook implements WorkbookHost {
-  private readonly queued: { name: string; sheet: XLSX.WorkSheet }[] = [];
+  private readonly queued: NamedBlock[] = [];
+
+  private readonly sheets: readonly SheetData[];
 
   constructor(
     /** The file as errors name it: a path on the command line, a file name in the page. */
     private readonly what: string,
     readonly kind: FileKind,
-    private readonly sheets: readonly SheetData[],
-  ) {}
+    private readonly read: FileRead,
+  ) {
+    this.sheets = read.sheets;
+  }
 
   async listSheets(): Promise<string[]> {
     return this.sheets.map((s) => s.name);
@@ -142,10 +220,49 @@ export class ParsedWorkbook implements WorkbookHost {
     const s = this.sheets.find((x) => x.name === sheet);
     if (!s) return `no sheet named "${sheet}"`;
     if (s.tooLarge) return `sheet "${sheet}" uses ${s.tooLarge.range} (${s.tooLarge.cells} cells), more than can be read at once`;
+    if (s.damaged) return `sheet "${sheet}" could not be read: ${s.damaged}`;
     return undefined;
   }
 
-  /** The sheet's grid; throws (with `sheetProblem`'s words) for a sheet that cannot be read. */
+  /**
+   * Problems of the file and of whole sheets, each at its sheet: hidden sheets (warning), sheets
+   * that could not be read (error: damaged, or over the cell limit), damaged parts not read.
+   */
+  fileProblems(): Problem[] {
+    const lost = this.sheets.flatMap((s): Problem[] =>
+      s.damaged
+        ? [{ severity: 'error', code: 'damaged-part', sheet: s.name, cell: 'A1', message: `the sheet could not be read: ${s.damaged}` }]
+        : s.tooLarge
+          ? [{ severity: 'error', code: 'sheet-too-large', sheet: s.name, cell: s.tooLarge.range, message: `not read: the sheet uses ${s.tooLarge.range} (${s.tooLarge.cells} cells), more than can be read at once` }]
+          : [],
+    );
+    return [...this.read.problems, ...lost];
+  }
+
+  /** The workbook's Excel tables (none for a CSV file). */
+  tables(): readonly WorkbookTable[] {
+    return this.read.tables;
+  }
+
+  /**
+   * What a range the user typed means: an A1 range as it is (on `sheet`), or the name of one of
+   * the workbook's Excel tables (any case), which brings its own sheet. An unknown name is one
+   * error listing the tables there are.
+   */
+  resolveRange(range: string, sheet?: string): Result<{ sheet?: string; range: string }, string> {
+    if (parseRange(range)) return ok({ ...(sheet !== undefined ? { sheet } : {}), range });
+    const table = this.read.tables.find((t) => t.name.toLowerCase() === range.trim().toLowerCase());
+    const names = this.read.tables.map((t) => t.name);
+    if (!table)
+      return fail(`"${range}" is neither an A1 range such as A1:H20 nor a table of ${this.what} (${names.length > 0 ? `tables: ${names.join(', ')}` : 'it has no tables'})`);
+    if (sheet !== undefined && sheet !== table.sheet) return fail(`table ${table.name} is on sheet "${table.sheet}", not on "${sheet}"`);
+    return ok({ sheet: table.sheet, range: table.range });
+  }
+
+  /**
+   * The sheet's grid (cut to `range` when given, with the merged areas and reading problems
+   * that touch it); throws (with `sheetProblem`'s words) for a sheet that cannot be read.
+   */
   async readGrid(sheet: string, range?: string): Promise<Grid> {
     const problem = this.sheetProblem(sheet);
     if (problem) throw new Error(`${this.what}: ${problem}`);
@@ -153,16 +270,22 @@ export class ParsedWorkbook implements WorkbookHost {
     if (range === undefined) return grid;
     const rect = parseRange(range);
     if (!rect) throw new Error(`"${range}" is not an A1 range such as A1:H20`);
-    return restrictGrid(grid, rect) ?? { sheet, origin: cellAddress(rect.top, rect.left), cells: [] };
+    const touches = (a1: string) => {
+      const at = parseRange(a1);
+      return at !== undefined && intersectRanges(at, rect) !== undefined;
+    };
+    const cut = restrictGrid(grid, rect) ?? { sheet, origin: cellAddress(rect.top, rect.left), cells: [] };
+    return { ...cut, merges: (grid.merges ?? []).filter(touches), readProblems: (grid.readProblems ?? []).filter((p) => touches(p.cell)) };
   }
 
   /** Queue a new sheet for the results workbook; the file's own sheets are never written into. */
   async writeSheet(block: SheetBlock): Promise<WriteReport> {
     const taken = [...this.sheets.map((s) => s.name), ...this.queued.map((q) => q.name)];
     const name = freeSheetName(block.name, taken);
-    const sheet = sheetFromBlock(block);
-    this.queued.push({ name, sheet });
-    return { sheet: name, range: sheet['!ref'] ?? 'A1', cells: Object.keys(sheet).filter((k) => !k.startsWith('!')).length };
+    this.queued.push({ name, block });
+    const width = Math.max(1, ...block.rows.map((r) => r.length));
+    const cells = block.rows.reduce((n, r) => n + r.filter((c) => c !== null && (c.value !== null || c.formula !== undefined)).length, 0);
+    return { sheet: name, range: `A1:${cellAddress(Math.max(0, block.rows.length - 1), width - 1)}`, cells };
   }
 
   /** Sheets queued so far, by name. */
@@ -171,26 +294,14 @@ export class ParsedWorkbook implements WorkbookHost {
   }
 
   /**
-   * The file's sheets followed by the queued ones, as .xlsx bytes. A workbook source is parsed
-   * again by `run` and our sheets appended there (never in this realm); `source` gives its bytes.
+   * The file's sheets followed by the queued ones, as .xlsx bytes: our sheets are added to a
+   * copy of the workbook's package, every part of it kept as it was (xlsx-package.ts); a CSV
+   * source becomes the first sheet of a new workbook. `source` gives the workbook's bytes.
    */
-  protected async resultsBytes(source: () => Promise<Result<Uint8Array>>, run: RunParseJob): Promise<Result<Uint8Array>> {
-    if (this.kind === 'csv') return ok(this.csvWorkbook());
-    const bytes = await source();
-    if (!bytes.ok) return bytes;
-    const raw = await run({ mode: 'append', sheets: this.queued }, bytes.value);
-    if (!raw.ok) return raw;
-    const answer = workerAnswer(raw.value, this.what, (m) => `${this.what}: could not be copied (${m})`);
-    if (!answer.ok) return answer;
-    const out = answer.value.bytes;
-    return out instanceof Uint8Array ? ok(out) : fail({ message: `${this.what}: the writer returned no file` });
-  }
-
-  /** A CSV source becomes the first sheet of the results workbook. */
-  private csvWorkbook(): Uint8Array {
-    const book = XLSX.utils.book_new();
-    for (const s of this.sheets) XLSX.utils.book_append_sheet(book, sheetFromCells(s.grid!.cells, s.grid!.origin), s.name);
-    for (const q of this.queued) XLSX.utils.book_append_sheet(book, q.sheet, q.name);
-    return new Uint8Array(XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true }) as ArrayBuffer);
+  protected async resultsBytes(source: () => Promise<Result<Uint8Array>>, inflate: InflateRaw): Promise<Result<Uint8Array>> {
+    const added = this.kind === 'csv'
+      ? await newWorkbook(this.sheets.map((s) => ({ name: s.name, origin: s.grid?.origin ?? 'A1', cells: s.grid?.cells ?? [] })), this.queued)
+      : await source().then((bytes) => (bytes.ok ? addSheets(bytes.value, this.queued, inflate) : bytes));
+    return added.ok ? added : fail({ message: `${this.what}: ${added.error.message}` });
   }
 }

@@ -1,6 +1,6 @@
 // One interface over the workbook, whether it is the live sheet in Excel or an .xlsx file.
 import type { SheetBlock } from '../report/sheet-block.js';
-import type { Grid } from '../spec/types.js';
+import type { Grid, Problem } from '../spec/types.js';
 
 export interface WriteReport {
   /** The sheet actually written (a suffix is added when the wanted name is taken). */
@@ -14,6 +14,11 @@ export interface WorkbookHost {
   listSheets(): Promise<string[]>;
   /** The used range of a sheet, or the given A1 range of it. */
   readGrid(sheet: string, range?: string): Promise<Grid>;
+  /**
+   * Problems of the file and of whole sheets, each at its sheet (a file host: hidden sheets,
+   * damaged parts, sheets not read and why, as errors where something is lost).
+   */
+  fileProblems?(): Problem[];
   /** Add a new sheet with the block; never writes into a non-empty cell of an existing sheet. */
   writeSheet(block: SheetBlock): Promise<WriteReport>;
 }

@@ -2,6 +2,7 @@
 // goes through SheetJS. Excel writes ';' where the decimal mark is ',', so both are detected.
 import { fail, ok, type Result } from '../logic/result.js';
 import type { CellValue } from '../spec/types.js';
+import { MAX_COLUMNS, MAX_ROWS } from './grid.js';
 
 export type Delimiter = ',' | ';' | '\t';
 
@@ -40,9 +41,29 @@ export interface CsvRecord {
   readonly fields: string[];
 }
 
+/** "1048576" -> "1,048,576" (messages only). */
+function counted(n: number): string {
+  return n.toLocaleString('en-US');
+}
+
+/** Delimiters outside quotes from `from` to the end of its record (a record too wide is counted, not built). */
+function fieldsToRecordEnd(src: string, from: number, delimiter: Delimiter): number {
+  let n = 0;
+  let quoted = false;
+  for (let i = from; i < src.length; i++) {
+    const ch = src[i]!;
+    if (ch === '"') quoted = !quoted;
+    else if (!quoted && ch === delimiter) n++;
+    else if (!quoted && (ch === '\n' || ch === '\r')) break;
+  }
+  return n;
+}
+
 /**
  * The records of a CSV text (a leading byte-order mark is dropped). Quoted fields may hold
- * delimiters, line breaks and doubled quotes.
+ * delimiters, line breaks and doubled quotes. Bounded by Excel's sheet (DESIGN.md section 3):
+ * a record of more than 16,384 fields or a text of more than 1,048,576 records is an error
+ * naming the row, found before the record is built; one pass, linear in the text.
  */
 export function csvRecords(text: string, delimiter: Delimiter = detectDelimiter(text)): Result<CsvRecord[]> {
   const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
@@ -54,6 +75,11 @@ export function csvRecords(text: string, delimiter: Delimiter = detectDelimiter(
   let start = 1;
   let quoteLine = 0;
   let atFieldStart = true;
+  const tooWide = (i: number) => {
+    const n = MAX_COLUMNS + 1 + fieldsToRecordEnd(src, i + 1, delimiter);
+    return fail({ message: `row ${counted(records.length + 1)} (line ${start}) has ${counted(n)} columns; at most ${counted(MAX_COLUMNS)}` });
+  };
+  const tooLong = () => fail({ message: `row ${counted(MAX_ROWS + 1)} (line ${start}) is past Excel's last row: at most ${counted(MAX_ROWS)} rows` });
   for (let i = 0; i < src.length; i++) {
     const ch = src[i]!;
     if (quoted) {
@@ -67,11 +93,13 @@ export function csvRecords(text: string, delimiter: Delimiter = detectDelimiter(
       }
       continue;
     }
+    if (records.length === MAX_ROWS) return tooLong();
     if (ch === '"' && atFieldStart) {
       quoted = true;
       quoteLine = line;
       atFieldStart = false;
     } else if (ch === delimiter) {
+      if (fields.length + 1 === MAX_COLUMNS) return tooWide(i);
       fields.push(field);
       field = '';
       atFieldStart = true;
@@ -90,16 +118,23 @@ export function csvRecords(text: string, delimiter: Delimiter = detectDelimiter(
   }
   if (quoted) return fail({ message: `line ${quoteLine}: a quoted field is not closed` });
   if (field !== '' || fields.length > 0) {
+    if (records.length === MAX_ROWS) return tooLong();
     fields.push(field);
     records.push({ line: start, fields });
   }
   return ok(records);
 }
 
-/** Rows of cells from CSV text, padded to the widest row. */
-export function parseCsv(text: string, delimiter: Delimiter = detectDelimiter(text)): Result<CellValue[][]> {
+/**
+ * Rows of cells from CSV text, padded to the widest row; more than `maxCells` cells once padded
+ * is an error given before any padding.
+ */
+export function parseCsv(text: string, delimiter: Delimiter = detectDelimiter(text), maxCells = Infinity): Result<CellValue[][]> {
   const records = csvRecords(text, delimiter);
   if (!records.ok) return records;
   const width = records.value.reduce((w, r) => Math.max(w, r.fields.length), 0);
+  const cells = width * records.value.length;
+  if (cells > maxCells)
+    return fail({ message: `${counted(records.value.length)} rows of ${counted(width)} columns are ${counted(cells)} cells, more than the limit of ${counted(maxCells)}` });
   return ok(records.value.map((r) => Array.from({ length: width }, (_, c) => csvValue(r.fields[c] ?? ''))));
 }

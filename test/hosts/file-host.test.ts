@@ -97,10 +97,16 @@ describe('the parsing worker is isolated and limited', () => {
     if (!r.ok) expect(r.error.message).toMatch(/capper-cell\.xlsx: reading took longer than the limit of 0\.3 s/);
   });
 
-  it('a parse that runs out of its heap is stopped with a clear error', async () => {
+  it('a parse that runs out of its heap is stopped with a clear error, and this process goes on', async () => {
+    // A growing Map: out of memory there ends a whole process when the parser is a worker thread.
     const r = await openFile(CAPPER, { testHook: 'exhaust-heap', heapMb: 16 });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.error.message).toMatch(/memory limit of 16 MB/);
+  });
+
+  it('a parser that crashes is a failed read naming the file', async () => {
+    const r = await openFile(CAPPER, { testHook: 'crash' });
+    expect(!r.ok && r.error.message).toMatch(/capper-cell\.xlsx: the reader stopped unexpectedly \(SIGABRT\)/);
   });
 
   it('a file larger than the size limit is not read at all', async () => {
