@@ -38,7 +38,8 @@ function outputLines(o: OutputAnalysis, inputs: readonly Signal[]): string[] {
   const lines: string[] = [];
   lines.push('', `Output ${o.signal.header} (${id}), safe value ${o.safe}`);
   const a = o.andOr;
-  lines.push(`  AND/OR form, ${a.proven ? 'proven minimum' : 'heuristic (not proven minimal)'}: ${plural(a.terms, 'term')}, ${plural(a.literals, 'literal')}`);
+  const bound = `best found: ${a.terms} terms / ${a.literals} literals; lower bound ${a.lowerBound.terms} / ${a.lowerBound.literals}`;
+  lines.push(`  AND/OR form, ${a.proven ? `proven minimum: ${plural(a.terms, 'term')}, ${plural(a.literals, 'literal')}` : `heuristic (not proven minimal), ${bound}`}`);
   lines.push(`    ${id} := ${a.text};`);
   lines.push(`  XOR form: ${plural(o.xor.terms, 'term')}, degree ${o.degree}`);
   lines.push(`    ${id} := ${o.xor.text};`);

@@ -1,5 +1,5 @@
 // Exact minimum covering (unate covering), by branch and bound within a deadline.
-import { now } from './primes.js';
+import type { Deadline } from './deadline.js';
 import { appendAll, minOf } from './arrays.js';
 
 /**
@@ -13,10 +13,22 @@ export interface CoverProblem {
   readonly costs: readonly number[];
 }
 
+/** Proven lower bounds on a best cover. */
+export interface CoverBound {
+  /** Every cover has at least this many columns. */
+  readonly columns: number;
+  /** Every cover with the fewest columns costs at least this much. */
+  readonly cost: number;
+}
+
 export interface CoverResult {
   /** Chosen columns, increasing. */
   readonly columns: number[];
-  /** True when the search finished: no cover is better. */
+  readonly lowerBound: CoverBound;
+  /**
+   * True when every search ran to its end and the bound equals the cover found (as many
+   * columns, the same cost): no cover is better. Never true for a search the clock cut short.
+   */
   readonly proven: boolean;
 }
 
@@ -41,35 +53,57 @@ export function isCover(problem: CoverProblem, columns: readonly number[]): bool
  * A best cover. Essential columns and row and column dominance first; the reduced matrix
  * falls into independent blocks, each solved in two searches by branch and bound: the fewest
  * columns (all costs 1), then the lowest cost with at most that many columns. `start` is a
- * known cover (the first upper bound); when the clock passes `deadline`, the best cover found
- * so far is returned with proven: false.
+ * known cover (the first upper bound). When `deadline` passes, the searches stop and the best
+ * cover found so far is returned with the bounds proven at the roots of the searches.
  */
-export function exactCover(problem: CoverProblem, deadline: number, start: readonly number[]): CoverResult {
+export function exactCover(problem: CoverProblem, deadline: Deadline, start: readonly number[]): CoverResult {
   const colRows: number[][] = problem.costs.map(() => []);
   problem.rows.forEach((cols, r) => cols.forEach((c) => colRows[c]!.push(r)));
   const unit = problem.costs.map(() => 1);
-  const top = new Search(problem.rows, colRows, problem.costs, deadline, Infinity);
+  const search = (costs: readonly number[], cap: number): Search => new Search(problem.rows, colRows, costs, deadline, cap);
+  const top = search(problem.costs, Infinity);
   const rowOn = new Uint8Array(problem.rows.length).fill(1);
   const colOn = new Uint8Array(problem.costs.length).fill(1);
   const chosen: number[] = [];
-  const feasible = top.reduce(rowOn, colOn, chosen);
-  if (top.aborted) return { columns: [...start].sort((a, b) => a - b), proven: false };
-  if (!feasible) throw new Error('bug: a row no column covers');
-  let proven = true;
+  // Cut short, the reductions leave a smaller problem whose best covers, with the columns
+  // taken, are still best covers of the whole: the blocks below then give root bounds only.
+  if (!top.reduce(rowOn, colOn, chosen)) throw new Error('bug: a row no column covers');
+  let finished = !top.aborted;
+  let boundColumns = chosen.length;
+  let boundCost = coverCost(problem, chosen);
   for (const block of blocks(problem.rows, colRows, rowOn, colOn)) {
     const known = coverWithin(problem.rows, block, start);
-    const fewest = new Search(problem.rows, colRows, unit, deadline, Infinity).run(block, known);
+    const fewest = search(unit, Infinity).run(block, known);
     let best = compareCovers(problem, known, fewest.columns) <= 0 ? known : fewest.columns;
-    if (fewest.proven && best.length === fewest.columns.length) {
-      const cheapest = new Search(problem.rows, colRows, problem.costs, deadline, best.length).run(block, best);
+    boundColumns += fewest.bound;
+    finished &&= fewest.finished;
+    if (fewest.bound === best.length) {
+      const cheapest = search(problem.costs, best.length).run(block, best);
       best = cheapest.columns;
-      proven &&= cheapest.proven;
-    } else proven = false;
+      boundCost += cheapest.bound;
+      finished &&= cheapest.finished;
+    } else boundCost += search(problem.costs, Infinity).rootBound(block);
     appendAll(chosen, best);
   }
-  const columns = [...new Set(chosen)].sort((a, b) => a - b);
-  if (compareCovers(problem, start, columns) < 0) return { columns: [...start].sort((a, b) => a - b), proven };
-  return { columns, proven };
+  let columns = [...new Set(chosen)].sort((a, b) => a - b);
+  if (compareCovers(problem, start, columns) < 0) columns = [...start].sort((a, b) => a - b);
+  const lowerBound = { columns: boundColumns, cost: boundCost };
+  const proven = finished && boundColumns === columns.length && boundCost === coverCost(problem, columns);
+  return { columns, lowerBound, proven };
+}
+
+/** Subgradient steps at the root of a search (40 per node below it, warm-started). */
+const ROOT_STEPS = 600;
+
+/** A bound that costs are integers lets round up (less a margin for rounding errors). */
+function integerBound(value: number): number {
+  return Math.ceil(value - 1e-6);
+}
+
+interface BlockResult {
+  readonly columns: number[];
+  readonly finished: boolean;
+  readonly bound: number;
 }
 
 interface Block {
@@ -125,51 +159,81 @@ class Search {
   private bestCost = Infinity;
   private readonly stamp: Int32Array;
   private stampValue = 0;
+  /** During `run`: the bound proven at the root so far. */
+  private rootLow = 0;
 
   /** `cap`: most columns a cover may have (Infinity: no limit). */
   constructor(
     private readonly rows: CoverProblem['rows'],
     private readonly colRows: number[][],
     private readonly costs: readonly number[],
-    private readonly deadline: number,
+    private readonly deadline: Deadline,
     private readonly cap: number,
   ) {
     this.stamp = new Int32Array(Math.max(rows.length, costs.length));
   }
 
-  /** Least-cost cover of the block within the cap, starting from a known one. */
-  run(block: Block, start: number[]): CoverResult {
+  /**
+   * Least-cost cover of the block within the cap, starting from a known one. `bound`: no
+   * cover of the block within the cap costs less (the cover's cost when the search finished,
+   * else the bound proven at the root).
+   */
+  run(block: Block, start: number[]): BlockResult {
     this.best = start;
     this.bestCost = start.reduce((k, c) => k + this.costs[c]!, 0);
+    this.rootLow = 0;
     this.branch(block.rowOn.slice(), block.colOn.slice(), [], 0, undefined);
-    return { columns: this.best, proven: !this.aborted };
+    const finished = !this.aborted;
+    return { columns: this.best, finished, bound: finished ? this.bestCost : Math.min(this.bestCost, this.rootLow) };
+  }
+
+  /** The root's bound alone (no cover known, no branching): no cover costs less. */
+  rootBound(block: Block): number {
+    const rowOn = block.rowOn.slice();
+    const colOn = block.colOn.slice();
+    const picked: number[] = [];
+    if (!this.reduce(rowOn, colOn, picked)) throw new Error('bug: a block row no column covers');
+    const cost = picked.reduce((k, c) => k + this.costs[c]!, 0);
+    if (!rowOn.includes(1)) return cost;
+    return integerBound(cost + this.lagrange(rowOn, colOn, cost, undefined, this.aborted ? 0 : ROOT_STEPS, Infinity).rounded);
   }
 
   private branch(rowOn: Uint8Array, colOn: Uint8Array, chosen: number[], cost: number, start: Prices | undefined): void {
-    if (this.outOfTime()) return;
+    const root = start === undefined;
+    if (!root && this.outOfTime()) return;
     const costs = this.costs;
     const all = chosen.slice();
     let prices = start;
     let lead: Bound;
+    // Nothing better than the best cover is left in this subtree.
+    const settled = (): void => {
+      if (root) this.rootLow = this.bestCost;
+    };
     for (;;) {
       const picked: number[] = [];
-      // Out of time, the reductions stop part way and may leave a row with no column.
-      if (!this.reduce(rowOn, colOn, picked) || this.aborted) return;
+      // At the root the reductions and bounds run even past the deadline (they stop early,
+      // leaving a consistent smaller problem), so that a bound is always known.
+      if (!this.reduce(rowOn, colOn, picked)) return settled();
       for (const c of picked) cost += costs[c]!;
       appendAll(all, picked);
-      if (all.length > this.cap || cost > this.limit()) return;
+      if (all.length > this.cap || cost > this.limit()) return settled();
       if (!rowOn.includes(1)) {
         this.best = all;
         this.bestCost = cost;
-        return;
+        return settled();
       }
-      lead = this.lagrange(rowOn, colOn, cost, prices, start ? 40 : 600, this.cap - all.length);
+      if (!root && this.aborted) return;
+      lead = this.lagrange(rowOn, colOn, cost, prices, root ? (this.aborted ? 0 : ROOT_STEPS) : 40, this.cap - all.length);
       prices = lead.prices;
       if (lead.cover && cost + lead.coverCost < this.bestCost) {
         this.best = all.concat(lead.cover);
         this.bestCost = cost + lead.coverCost;
       }
-      if (cost + lead.rounded > this.limit()) return;
+      // Fixing below only removes columns of no cover better than the best: bounds found
+      // later hold for those covers, hence min(best, bound).
+      if (root) this.rootLow = Math.max(this.rootLow, Math.min(this.bestCost, integerBound(cost + lead.rounded)));
+      if (cost + lead.rounded > this.limit()) return settled();
+      if (this.aborted) return;
       // Reduced-cost fixing: a column whose taking (or leaving) alone lifts the bound past the
       // best cover is left out (or taken).
       let fixed = false;
@@ -205,7 +269,7 @@ class Search {
   }
 
   private outOfTime(): boolean {
-    if (!this.aborted && now() > this.deadline) this.aborted = true;
+    if (!this.aborted && this.deadline.passed()) this.aborted = true;
     return this.aborted;
   }
 
@@ -327,7 +391,11 @@ class Search {
       const t = (lambda * (goal - best)) / norm;
       for (const r of activeRows) u[r] = Math.max(0, u[r]! + t * g[r]!);
       const value = evaluate();
-      if (step % 8 === 7) primal();
+      if (step % 8 === 7) {
+        primal();
+        // Past the deadline the prices so far still give a valid bound.
+        if (this.outOfTime()) steps = 0;
+      }
       if (value > best + 1e-9) {
         best = value;
         bestPrices = { u: u.slice() };
@@ -346,7 +414,10 @@ class Search {
     for (let k = 0; k < taken; k++) inRelaxed[activeCols[negative[k]!]!] = 1;
     let nextOut = 0;
     for (const c of activeCols) if (!inRelaxed[c]) nextOut = Math.min(nextOut, reduced[c]!);
-    const dearestIn = full && taken > 0 ? reduced[activeCols[negative[taken - 1]!]!]! : 0;
+    // Full, putting another column in pushes the highest reduced cost in the answer out.
+    let dearestIn = -Infinity;
+    for (let k = 0; k < taken; k++) dearestIn = Math.max(dearestIn, reduced[activeCols[negative[k]!]!]!);
+    if (!full || taken === 0) dearestIn = 0;
     return { value, rounded, prices: bestPrices, reduced, inRelaxed, nextOut, dearestIn, cover, coverCost };
   }
 

@@ -2,7 +2,8 @@
 import { popcount, type BitSet } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import { compareCovers, type CoverProblem } from './cover.js';
-import { cubeInsideSet, cubeWithin, now } from './primes.js';
+import { NEVER, type Deadline } from './deadline.js';
+import { cubeInsideSet, cubeWithin } from './primes.js';
 
 /**
  * Expand: drop literals, leftmost input first, while the cube stays inside `allowed`
@@ -24,14 +25,35 @@ export function expandToPrime(n: number, c: Cube, allowed: BitSet): Cube {
  * cube (largest first) not inside one already taken is expanded to a prime while the clock allows, and taken
  * as it is after that (the cubes are disjoint, so no two taken are the same).
  */
-export function expandCover(n: number, onCubes: readonly Cube[], allowed: BitSet, deadline: number): Cube[] {
+export function expandCover(n: number, onCubes: readonly Cube[], allowed: BitSet, deadline: Deadline): Cube[] {
   const out: Cube[] = [];
   // Largest cubes first: their primes swallow more of the rest.
   for (const c of [...onCubes].sort((a, b) => popcount(a.mask) - popcount(b.mask))) {
-    if (now() > deadline) out.push(c);
+    if (deadline.passed()) out.push(c);
     else if (!out.some((p) => cubeWithin(c, p))) out.push(expandToPrime(n, c, allowed));
   }
   return out;
+}
+
+/**
+ * A lower bound on the terms of any cover when there are no primes: on-set combinations (one
+ * per disjoint cube of the on-set) no two of which lie in one implicant, because the smallest
+ * cube holding both meets the off-set. Each needs a term of its own. Grown while the clock
+ * allows, but from at least 64 candidates (the deadline may have passed already).
+ */
+export function separatedCombinations(n: number, onCubes: readonly Cube[], allowed: BitSet, deadline: Deadline): number {
+  const full = n === 32 ? -1 : (1 << n) - 1;
+  const chosen: number[] = [];
+  for (let i = 0; i < onCubes.length; i++) {
+    if (i >= 64 && (i & 63) === 0 && deadline.passed()) break;
+    const p = onCubes[i]!.bits;
+    const apart = chosen.every((q) => {
+      const mask = full & ~(p ^ q);
+      return !cubeInsideSet(n, cube(mask, p & mask), allowed);
+    });
+    if (apart) chosen.push(p);
+  }
+  return chosen.length;
 }
 
 /**
@@ -41,13 +63,13 @@ export function expandCover(n: number, onCubes: readonly Cube[], allowed: BitSet
  * only it covers and put in the cheapest column that covers those and the most rows besides;
  * repeat irredundant while the cost falls.
  */
-export function heuristicCover(problem: CoverProblem, deadline = Infinity): number[] {
+export function heuristicCover(problem: CoverProblem, deadline: Deadline = NEVER): number[] {
   const { rows, costs } = problem;
   const colRows: number[][] = costs.map(() => []);
   rows.forEach((cols, r) => cols.forEach((c) => colRows[c]!.push(r)));
   const chosen = greedy(problem, colRows, deadline);
   irredundant(problem, colRows, chosen);
-  for (let before = [...chosen]; now() <= deadline; ) {
+  for (let before = [...chosen]; !deadline.passed(); ) {
     reexpand(problem, colRows, chosen, deadline);
     irredundant(problem, colRows, chosen);
     const after = [...chosen];
@@ -58,7 +80,7 @@ export function heuristicCover(problem: CoverProblem, deadline = Infinity): numb
 }
 
 /** Most uncovered rows first; past the deadline, each row still open takes its first column. */
-function greedy(problem: CoverProblem, colRows: number[][], deadline: number): Set<number> {
+function greedy(problem: CoverProblem, colRows: number[][], deadline: Deadline): Set<number> {
   const { rows, costs } = problem;
   const open = colRows.map((rs) => rs.length);
   const covered = new Uint8Array(rows.length);
@@ -74,7 +96,7 @@ function greedy(problem: CoverProblem, colRows: number[][], deadline: number): S
   // Rows with a single column force it.
   for (const cols of rows) if (cols.length === 1 && !chosen.has(cols[0]!)) take(cols[0]!);
   for (;;) {
-    if (now() > deadline) {
+    if (deadline.passed()) {
       rows.forEach((cols, r) => covered[r] || take(cols[0]!));
       return chosen;
     }
@@ -104,11 +126,11 @@ function irredundant(problem: CoverProblem, colRows: number[][], chosen: Set<num
   }
 }
 
-function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number>, deadline: number): void {
+function reexpand(problem: CoverProblem, colRows: number[][], chosen: Set<number>, deadline: Deadline): void {
   const { rows, costs } = problem;
   const times = multiplicity(problem, colRows, chosen);
   for (const c of [...chosen]) {
-    if (now() > deadline) return;
+    if (deadline.passed()) return;
     const own = colRows[c]!.filter((r) => times[r] === 1);
     if (own.length === 0) continue;
     // Candidates: columns covering every row only c covers.

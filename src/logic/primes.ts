@@ -2,31 +2,27 @@
 import { flipBit, popcount, union, wordCount, type BitSet } from './bits.js';
 import { cube, type Cube } from './cube.js';
 import type { BoolFunction } from './boolfn.js';
+import { NEVER, type Deadline } from './deadline.js';
 
 /** Up to this many inputs the primes come from the bit-set lattice; above, from cubes. */
 export const LATTICE_MAX_INPUTS = 14;
-
-/** The clock every budget of the engine is read from (milliseconds). */
-export function now(): number {
-  return globalThis.performance.now();
-}
 
 /**
  * Every prime implicant of on ∪ dc that contains at least one on-set combination (primes made
  * of don't-cares only never help a cover), in printed order (see `comparePrinted`).
  */
 export function primeImplicants(fn: BoolFunction): Cube[] {
-  return primesWithin(fn, Infinity)!;
+  return primesWithin(fn, NEVER)!;
 }
 
-/** As `primeImplicants`, or null when the clock passes `deadline` first. */
-export function primesWithin(fn: BoolFunction, deadline: number): Cube[] | null {
+/** As `primeImplicants`, or null when `deadline` passes first. */
+export function primesWithin(fn: BoolFunction, deadline: Deadline): Cube[] | null {
   const found =
     fn.n <= LATTICE_MAX_INPUTS ? latticePrimes(fn.n, union(fn.on, fn.dc), deadline) : cubePrimes(fn, deadline);
   if (found === null) return null;
   const touching: Cube[] = [];
   for (let i = 0; i < found.length; i++) {
-    if ((i & 255) === 255 && now() > deadline) return null;
+    if ((i & 255) === 255 && deadline.passed()) return null;
     if (cubeMeetsSet(fn.n, found[i]!, fn.on)) touching.push(found[i]!);
   }
   return touching.sort(comparePrinted(fn.n));
@@ -100,14 +96,14 @@ export function cubesDisjoint(a: Cube, b: Cube): boolean {
  * I_{D+v} = I_D AND flip_v(I_D). A cube is prime when no I_{D+v} holds it. Layers by |D| keep
  * two layers in memory; a D whose I_D is empty has no implicant above it, so it is not kept.
  */
-function latticePrimes(n: number, f: BitSet, deadline: number): Cube[] | null {
+function latticePrimes(n: number, f: BitSet, deadline: Deadline): Cube[] | null {
   const full = (1 << n) - 1;
   const out: Cube[] = [];
   let layer = new Map<number, BitSet>([[0, f]]);
   while (layer.size > 0) {
     const next = new Map<number, BitSet>();
     for (const [d, set] of layer) {
-      if (now() > deadline) return null;
+      if (deadline.passed()) return null;
       for (let v = 32 - Math.clz32(d); v < n; v++) {
         const grown = flipBit(set, v);
         let any = 0;
@@ -205,7 +201,7 @@ export function setToCubes(n: number, set: BitSet): Cube[] {
   return out;
 }
 
-function cubePrimes(fn: BoolFunction, deadline: number): Cube[] | null {
+function cubePrimes(fn: BoolFunction, deadline: Deadline): Cube[] | null {
   return completeSum(setToCubes(fn.n, union(fn.on, fn.dc)), deadline);
 }
 
@@ -214,9 +210,9 @@ function cubePrimes(fn: BoolFunction, deadline: number): Cube[] | null {
  * sums of the two halves on input x, CS = absorb(x'P0 + xP1 + P0·P1) (Blake; Brown, "Boolean
  * Reasoning", the product of complete sums multiplied out and absorbed is a complete sum).
  */
-export function completeSum(cubes: readonly Cube[], deadline: number): Cube[] | null {
+export function completeSum(cubes: readonly Cube[], deadline: Deadline): Cube[] | null {
   if (cubes.length === 0) return [];
-  if (now() > deadline) return null;
+  if (deadline.passed()) return null;
   if (cubes.some((c) => c.mask === 0)) return [cube(0, 0)];
   if (cubes.length === 1) return [cubes[0]!];
   // Split on the input that the most cubes name.
@@ -234,20 +230,66 @@ export function completeSum(cubes: readonly Cube[], deadline: number): Cube[] | 
   for (const c of p0) all.push(cube(c.mask | x, c.bits));
   for (const c of p1) all.push(cube(c.mask | x, c.bits | x));
   for (const a of p0) {
-    if (now() > deadline) return null;
+    if (deadline.passed()) return null;
     for (const b of p1) if (!cubesDisjoint(a, b)) all.push(cube(a.mask | b.mask, a.bits | b.bits));
   }
   return absorb(all, deadline);
 }
 
 /** Drop every cube contained in another (and duplicates); null when past the deadline. */
-function absorb(cubes: Cube[], deadline: number): Cube[] | null {
+function absorb(cubes: Cube[], deadline: Deadline): Cube[] | null {
   const byLiterals = cubes.map((c) => ({ c, k: popcount(c.mask) })).sort((a, b) => a.k - b.k);
   const kept: Cube[] = [];
+  const trie = new CubeTrie(cubes.reduce((m, c) => m | c.mask, 0));
   for (let i = 0; i < byLiterals.length; i++) {
-    if ((i & 63) === 63 && now() > deadline) return null;
+    if ((i & 63) === 63 && deadline.passed()) return null;
     const c = byLiterals[i]!.c;
-    if (!kept.some((k) => cubeWithin(c, k))) kept.push(c);
+    if (trie.holds(c)) continue;
+    trie.add(c);
+    kept.push(c);
   }
   return kept;
+}
+
+/**
+ * Cubes by their value on each input (0, 1, absent), input by input from the highest bit used:
+ * whether some cube added contains a given one is then a walk that branches only where the
+ * given cube has a literal (the container may have that literal or none).
+ */
+class CubeTrie {
+  /** Per node, three children (0, 1, absent); 0 = none (node 0 is the root, never a child). */
+  private next = new Int32Array(3 * 64);
+  private size = 1;
+  private readonly bits: number[] = [];
+
+  constructor(used: number) {
+    for (let b = 31 - Math.clz32(used); b >= 0; b--) if (used & (1 << b)) this.bits.push(1 << b);
+  }
+
+  add(c: Cube): void {
+    let node = 0;
+    for (const bit of this.bits) {
+      const slot = 3 * node + (c.mask & bit ? (c.bits & bit ? 1 : 0) : 2);
+      if (this.next[slot] === 0) {
+        if (3 * (this.size + 1) > this.next.length) {
+          const grown = new Int32Array(this.next.length * 2);
+          grown.set(this.next);
+          this.next = grown;
+        }
+        this.next[slot] = this.size++;
+      }
+      node = this.next[slot]!;
+    }
+  }
+
+  /** Some cube added contains c (or equals it). */
+  holds(c: Cube, node = 0, depth = 0): boolean {
+    if (depth === this.bits.length) return true;
+    const bit = this.bits[depth]!;
+    const absent = this.next[3 * node + 2]!;
+    if (absent !== 0 && this.holds(c, absent, depth + 1)) return true;
+    if (!(c.mask & bit)) return false;
+    const same = this.next[3 * node + (c.bits & bit ? 1 : 0)]!;
+    return same !== 0 && this.holds(c, same, depth + 1);
+  }
 }

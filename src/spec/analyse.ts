@@ -79,6 +79,7 @@ function analyseOutput(
     proven: sop.proven,
     terms: sop.terms,
     literals: sop.literals,
+    lowerBound: sop.lowerBound,
     ...checked(spec, resolved, andOrValues),
   };
   progress('AND/OR form');

@@ -22,6 +22,8 @@ export interface OutputJson {
   readonly proven: boolean;
   readonly terms: number;
   readonly literals: number;
+  /** What was proven of the AND/OR form: at least this many terms, then literals. */
+  readonly lowerBound: { readonly terms: number; readonly literals: number };
   readonly xorTerms: number;
   /** Every form checked on every combination; mismatches of any form, first 50 each. */
   readonly check: { readonly combinations: number; readonly mismatchCount: number; readonly mismatches: MismatchJson[] };
@@ -122,6 +124,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
       proven: o.andOr.proven,
       terms: o.andOr.terms,
       literals: o.andOr.literals,
+      lowerBound: o.andOr.lowerBound,
       xorTerms: o.xor.terms,
       check: {
         combinations: o.andOr.proof.combinations,

@@ -25,6 +25,8 @@ export interface AndOrForm {
   readonly proven: boolean;
   readonly terms: number;
   readonly literals: number;
+  /** Proven: no form has fewer terms, none with the fewest terms fewer literals (= cost when proven). */
+  readonly lowerBound: { readonly terms: number; readonly literals: number };
   readonly proof: FormProof;
   /** Don't-care combinations this form turns ON: the first 50 of them. */
   readonly permitsAlso: readonly Combination[];

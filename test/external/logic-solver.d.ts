@@ -8,11 +8,13 @@ declare module 'logic-solver' {
     }
     interface Solution {
       getTrueVars(): string[];
+      getWeightedSum(formulas: readonly Operand[], weights: readonly number[]): number;
     }
     class Solver {
       require(...operands: Operand[]): void;
       forbid(...operands: Operand[]): void;
       solve(): Solution | null;
+      minimizeWeightedSum(solution: Solution, formulas: readonly Operand[], weights: readonly number[]): Solution;
     }
     const TRUE: string;
     const FALSE: string;
