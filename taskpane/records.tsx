@@ -43,7 +43,7 @@ function RecordView({ verdict: v, selectCell }: { verdict: RecordVerdict; select
                     <code>{s.testId}</code>
                   </td>
                   <td>
-                    <span class={`badge ${RESULT_CLASS[s.result]}`}>{s.result}</span> <CellLink sheet={r.sheet} cell={s.cell} selectCell={selectCell} />
+                    <span class={`badge ${RESULT_CLASS[s.result]}`}>{s.result}</span> <CellLink sheet={r.sheet} cell={s.cell} selectCell={selectCell} bare />
                   </td>
                 </tr>
               ))}

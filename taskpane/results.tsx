@@ -23,11 +23,13 @@ const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
 const plural = (n: number, one: string, many = `${one}s`) => `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
 
 /** A cell address that selects the cell in Excel when clicked (plain text where there is no live sheet). */
-export function CellLink({ sheet, cell, selectCell }: { sheet: string; cell: string; selectCell?: SelectCell | undefined }) {
-  const text = qualifiedAddress(sheet, cell);
-  if (!selectCell) return <code class="cell">{text}</code>;
+export function CellLink({ sheet, cell, selectCell, bare }: { sheet: string; cell: string; selectCell?: SelectCell | undefined; bare?: boolean }) {
+  const full = qualifiedAddress(sheet, cell);
+  // `bare`: the cell alone, where the sheet is named just above (narrow tables).
+  const text = bare ? cell : full;
+  if (!selectCell) return <code class="cell" title={full}>{text}</code>;
   return (
-    <button type="button" class="link cell" title={`Select ${text} in Excel`} onClick={() => selectCell(sheet, cell)}>
+    <button type="button" class="link cell" title={`Select ${full} in Excel`} onClick={() => selectCell(sheet, cell)}>
       {text}
     </button>
   );

@@ -98,10 +98,13 @@ export function SettingsCard({
       <label>
         Don't-cares
         <select value={settings.dontCares} disabled={busy} onChange={(e) => change({ ...settings, dontCares: (e.currentTarget as HTMLSelectElement).value as DontCarePolicy })}>
-          <option value="minimal">minimal: as the AND/OR form uses them</option>
-          <option value="safe">safe value: every don't-care at the safe value</option>
+          <option value="minimal">minimal</option>
+          <option value="safe">safe value</option>
         </select>
       </label>
+      <p class="meta">
+        {settings.dontCares === 'minimal' ? "Minimal: a don't-care is ON where that makes the AND/OR form smaller (each one is reported)." : "Safe value: every don't-care takes the output's safe value."}
+      </p>
       <div class="row">
         <button type="button" class="secondary" disabled={busy} onClick={again}>
           Analyse {label} again
