@@ -52,7 +52,7 @@ function RecordView({ verdict: v, selectCell }: { verdict: RecordVerdict; select
         </div>
       )}
       <ProblemList problems={v.problems} selectCell={selectCell} />
-      <p class={v.ok ? 'record-ok good' : 'record-ok bad'}>{v.ok ? 'Every step passed on the current revision.' : 'Not complete: see above.'}</p>
+      <p class={v.ok ? 'record-ok good' : 'record-ok bad'}>{v.ok ? 'Every step passed on the current revision.' : !v.current ? 'Stale: retest with a new record made from the table as it is now.' : 'Not complete: see above.'}</p>
     </article>
   );
 }
