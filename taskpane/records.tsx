@@ -5,6 +5,7 @@
 import { useState } from 'preact/hooks';
 import type { WorkbookHost } from '../src/hosts/workbook-host.js';
 import { readRecordGrids, type RecordVerdict } from '../src/workflow/index.js';
+import { Outcome } from './check.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CellLink, ProblemList, type SelectCell } from './results.js';
 
@@ -87,11 +88,7 @@ export function RecordCheck({ host, engine, selectCell, source }: { host: Workbo
           {state}
         </p>
       )}
-      {error && (
-        <p class="error" role="alert">
-          {error}
-        </p>
-      )}
+      <Outcome message={undefined} error={error} />
       {verdicts && verdicts.length === 0 && (
         <p class="meta" role="status">
           No commissioning test record found in {source} (a sheet whose first cell reads “Commissioning test record: …”).
