@@ -4,6 +4,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { BrowserFileHost } from '../src/hosts/browser-file-host.js';
 import type { ExcelHost, NamedTable } from '../src/hosts/excel-host.js';
+import type { RememberedValues } from '../src/hosts/excel-settings.js';
 import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
 import { CAUTION_LINES } from '../src/report/caution.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
@@ -12,10 +13,13 @@ import { readGrids, writeSheets, type HandOverKind, type WorkbookChoice, type Wo
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
 import { Cancelled, Engine } from './engine.js';
 import { download } from './files.js';
+import { RecordCheck } from './records.js';
 import { ProblemList, SpecTableView, type SelectCell } from './results.js';
+import { SettingsCard } from './settings.js';
+import { DEFAULT_SETTINGS, pageValues, settingsFrom, specOptions, type TableSettings } from './table-settings.js';
 
 export type PaneMode =
-  | { readonly kind: 'excel'; readonly host: ExcelHost }
+  | { readonly kind: 'excel'; readonly host: ExcelHost; readonly remembered?: RememberedValues | undefined }
   | { readonly kind: 'file'; readonly open: (file: File) => Promise<{ ok: true; value: BrowserFileHost } | { ok: false; error: { message: string } }> }
   | { readonly kind: 'outside' };
 
@@ -26,6 +30,9 @@ interface Reading {
   readonly choice: Pick<WorkbookChoice, 'sheet' | 'range'>;
   readonly label: string;
 }
+
+/** What the settings of a reading are remembered under: the sheet, or the range of it read. */
+const settingsKey = (r: Reading): string => (r.choice.range !== undefined ? qualifiedAddress(r.choice.sheet ?? '', r.choice.range) : (r.choice.sheet ?? ''));
 
 function useEngine(): Engine {
   const engine = useRef<Engine | undefined>(undefined);
@@ -327,7 +334,10 @@ export function App({ mode }: { mode: PaneMode }) {
   const [reading, setReading] = useState<Reading>();
   const [analysed, setAnalysed] = useState<WorkbookView>();
   const [current, setCurrent] = useState(0);
-  const [xAsDontCare, setX] = useState(false);
+  const [settings, setSettings] = useState<TableSettings>(DEFAULT_SETTINGS);
+  const store = useRef<RememberedValues | undefined>(undefined);
+  if (!store.current) store.current = (mode.kind === 'excel' && mode.remembered) || pageValues();
+  const remembered = store.current;
 
   if (mode.kind === 'outside') {
     return (
@@ -348,9 +358,9 @@ export function App({ mode }: { mode: PaneMode }) {
   const sourceName = mode.kind === 'file' ? (file?.fileName ?? 'workbook') : 'the Excel workbook';
 
   /** The workflow: the cells are read here, where the workbook is; the worker examines them. */
-  const analyse = async (r: Reading) => {
+  const analyse = async (r: Reading, s: TableSettings) => {
     if (!host) return;
-    const choice: WorkbookChoice = { ...r.choice, xReading: xAsDontCare ? 'dont-care' : 'none' };
+    const choice: WorkbookChoice = { ...r.choice, ...specOptions(s, mode.kind === 'excel' ? 'pane' : 'page') };
     setBusy({ what: `Reading ${r.label}`, cancellable: false });
     try {
       const grids = await readGrids(host, choice, sourceName);
@@ -359,10 +369,12 @@ export function App({ mode }: { mode: PaneMode }) {
       const result = await engine.examine({ grids: grids.value, choice, source: sourceName }, (done, total, what) =>
         setBusy({ what: `Analysing ${r.label}: ${what}`, done, total, cancellable: true }),
       );
-      if (!result.ok) throw new Error(result.error.message);
+      if (!result.ok)
+        throw new Error(result.error.code === 'unknown-safe-output' ? `Safe value of ${result.error.subject}: ${result.error.message}; see the settings below.` : result.error.message);
       setAnalysed(result.value);
       setCurrent(0);
     } catch (e) {
+      setAnalysed(undefined);
       setError(e instanceof Cancelled ? 'Analysis stopped. Nothing was changed.' : (e as Error).message);
     } finally {
       setBusy(undefined);
@@ -375,13 +387,23 @@ export function App({ mode }: { mode: PaneMode }) {
     setBusy({ what: 'Reading cells', cancellable: false });
     get()
       .then((r) => {
+        const s = settingsFrom(remembered.get(settingsKey(r)));
         setReading(r);
-        return analyse(r);
+        setSettings(s);
+        return analyse(r, s);
       })
       .catch((e: Error) => {
         setBusy(undefined);
         setError(e.message);
       });
+  };
+
+  /** A setting changed: remember it with the reading, and read again with it at once. */
+  const change = (r: Reading, s: TableSettings) => {
+    setSettings(s);
+    setError(undefined);
+    void remembered.set(settingsKey(r), s).catch((e: Error) => setError(e.message));
+    void analyse(r, s);
   };
 
   const open = (f: File) => {
@@ -405,18 +427,18 @@ export function App({ mode }: { mode: PaneMode }) {
         ) : (
           <FileSource file={file} open={open} read={read} busy={busy !== undefined} />
         )}
-        <details class="options">
-          <summary>Reading options</summary>
-          <label class="check">
-            <input type="checkbox" checked={xAsDontCare} onChange={(e) => setX((e.currentTarget as HTMLInputElement).checked)} />
-            Read X cells as any / don't-care (otherwise an X is reported as a problem)
-          </label>
-          {reading && (
-            <button type="button" class="secondary" disabled={busy !== undefined} onClick={() => void analyse(reading)}>
-              Analyse {reading.label} again
-            </button>
-          )}
-        </details>
+        {reading && (
+          <SettingsCard
+            key={settingsKey(reading)}
+            label={reading.label}
+            settings={settings}
+            tables={tables}
+            where={mode.kind === 'excel' ? 'with this workbook' : 'while this page stays open'}
+            busy={busy !== undefined}
+            change={(s) => change(reading, s)}
+            again={() => void analyse(reading, settings)}
+          />
+        )}
         {busy && (
           <section class="card busy" role="status" aria-live="polite">
             <p>{busy.what}</p>
@@ -459,6 +481,7 @@ export function App({ mode }: { mode: PaneMode }) {
             )}
           </>
         )}
+        {host && <RecordCheck host={host} engine={engine} selectCell={selectCell} source={mode.kind === 'file' ? (file?.fileName ?? 'the workbook') : 'this workbook'} />}
       </main>
       <Caution />
     </div>

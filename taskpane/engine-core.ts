@@ -1,10 +1,11 @@
 // What the engine worker answers, without the worker around it: the workflow's examine (read
 // tables, analyse, verdicts), checks, sheets and hand-over files. It keeps the workbook it
-// examined, so requests name tables by id. Tests drive it with the requests the pane sends.
+// examined, so requests name tables by id; test records are judged on their own. Tests drive
+// it with the requests the pane sends.
 import { readImplementation } from '../src/impl/read.js';
 import { fail, ok } from '../src/logic/result.js';
 import { checkSheet } from '../src/report/check-sheet.js';
-import { checkExpression, examine, handOverFiles, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
+import { checkExpression, examine, handOverFiles, judgeRecords, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
 import type { EngineAnswer, EngineRequest } from './engine-protocol.js';
 
 export type ProgressReport = (done: number, total: number, what: string) => void;
@@ -47,6 +48,8 @@ export class EngineCore {
         return { kind: 'sheets', value: workbook.resultsWrite.allowed ? ok(sheetsToWrite(workbook)) : fail(workbook.resultsWrite.reason) };
       case 'handOver':
         return { kind: 'handOver', value: workbook ? handOverFiles(workbook, request.files) : fail(NOTHING_READ) };
+      case 'records':
+        return { kind: 'records', value: judgeRecords(request.grids) };
     }
   }
 }

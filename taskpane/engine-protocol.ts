@@ -6,7 +6,7 @@ import type { ImplCheck } from '../src/logic/implcheck.js';
 import type { Result } from '../src/logic/result.js';
 import type { VerifyReport } from '../src/impl/verify.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
-import type { GridsRead, HandOverFile, HandOverRequest, ReadFailure, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
+import type { GridsRead, HandOverFile, HandOverRequest, ReadFailure, RecordGrids, RecordVerdict, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
 
 export interface Requests {
   /** Find the spec tables in the grids the host read, analyse them, keep the result. */
@@ -19,6 +19,8 @@ export interface Requests {
   readonly sheets: Record<never, never>;
   /** Files of the hand-over pack. */
   readonly handOver: { readonly files: HandOverRequest };
+  /** Filled-in test records against their tables as the workbook has them now (independent of examine). */
+  readonly records: { readonly grids: RecordGrids };
 }
 
 export interface Answers {
@@ -30,6 +32,7 @@ export interface Answers {
   readonly sheets: Result<SheetBlock[], string>;
   /** Refused (with the reason) when the workflow allows no hand-over. */
   readonly handOver: Result<HandOverFile[], string>;
+  readonly records: RecordVerdict[];
 }
 
 export type RequestKind = keyof Requests;

@@ -88,6 +88,10 @@ export class Engine {
     return this.send({ kind: 'handOver', ...body }, (a) => (a.kind === 'handOver' ? a.value : undefined));
   }
 
+  records(body: Requests['records']): Promise<Answers['records']> {
+    return this.send({ kind: 'records', ...body }, (a) => (a.kind === 'records' ? a.value : undefined));
+  }
+
   get busy(): boolean {
     return this.pending !== undefined;
   }

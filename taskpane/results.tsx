@@ -1,6 +1,6 @@
 // What the engine found in a spec table: signals, problems, and per output its forms with
 // their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on.
-import { useEffect, useMemo, useState } from 'preact/hooks';
+import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import type { Combination } from '../src/logic/bits.js';
 import { inputValue } from '../src/logic/bits.js';
 import type { Signal } from '../src/logic/signals.js';
@@ -23,11 +23,13 @@ const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
 const plural = (n: number, one: string, many = `${one}s`) => `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
 
 /** A cell address that selects the cell in Excel when clicked (plain text where there is no live sheet). */
-export function CellLink({ sheet, cell, selectCell }: { sheet: string; cell: string; selectCell?: SelectCell | undefined }) {
-  const text = qualifiedAddress(sheet, cell);
-  if (!selectCell) return <code class="cell">{text}</code>;
+export function CellLink({ sheet, cell, selectCell, bare }: { sheet: string; cell: string; selectCell?: SelectCell | undefined; bare?: boolean }) {
+  const full = qualifiedAddress(sheet, cell);
+  // `bare`: the cell alone, where the sheet is named just above (narrow tables).
+  const text = bare ? cell : full;
+  if (!selectCell) return <code class="cell" title={full}>{text}</code>;
   return (
-    <button type="button" class="link cell" title={`Select ${text} in Excel`} onClick={() => selectCell(sheet, cell)}>
+    <button type="button" class="link cell" title={`Select ${full} in Excel`} onClick={() => selectCell(sheet, cell)}>
       {text}
     </button>
   );
@@ -136,7 +138,12 @@ function LadderPicture({ output, inputs, handOver }: { output: OutputAnalysis; i
   return (
     <details class="ladder">
       <summary>Ladder picture (AND/OR form)</summary>
-      {url && <img src={url} alt={`Ladder Diagram rung for ${output.signal.identifier}`} />}
+      {url && (
+        // As wide as the rung: a wide one scrolls sideways in the pane (focusable, so the keys scroll it too).
+        <div class="scroll ladder-picture" tabIndex={0} role="region" aria-label={`Ladder picture of ${output.signal.identifier}, scrolls sideways`}>
+          <img src={url} alt={`Ladder Diagram rung for ${output.signal.identifier}`} />
+        </div>
+      )}
       {handOver.allowed ? (
         <button type="button" class="small" onClick={() => download(`${safeFileName(output.signal.identifier)}-ladder.svg`, 'image/svg+xml', svg)}>
           Download picture (SVG)
@@ -145,6 +152,53 @@ function LadderPicture({ output, inputs, handOver }: { output: OutputAnalysis; i
         <p class="meta">No download: {handOver.reason}.</p>
       )}
     </details>
+  );
+}
+
+/** The output's commissioning test steps, as on its test record: the inputs to set and what to expect. */
+function StepsView({ output, inputs }: { output: OutputAnalysis; inputs: readonly Signal[] }) {
+  const n = inputs.length;
+  const steps = output.steps;
+  return (
+    <details class="steps-record">
+      <summary>Test steps ({plural(steps.length, 'step')})</summary>
+      <CombinationTable
+        inputs={inputs}
+        rows={steps.map((s) => s.combination)}
+        extra={{
+          titles: ['Test ID', `Expected ${output.signal.identifier}`, 'Pass/Fail'],
+          cells: (r) => [`T-${inputs.map((_, i) => inputValue(n, steps[r]!.combination, i)).join('')}`, steps[r]!.expected, ''],
+        }}
+      />
+    </details>
+  );
+}
+
+/**
+ * Print this output alone (browser print): the other cards are hidden by the print rules in
+ * styles.css, and the card's folded parts are opened for the print, then closed again.
+ */
+function PrintButton({ card }: { card: { current: HTMLElement | null } }) {
+  const print = () => {
+    const el = card.current;
+    if (!el) return;
+    const closed = [...el.querySelectorAll('details'), ...document.querySelectorAll<HTMLDetailsElement>('footer.caution details')].filter((d) => !d.open);
+    for (const d of closed) d.open = true;
+    el.classList.add('print-this');
+    document.body.classList.add('print-one');
+    const done = () => {
+      window.removeEventListener('afterprint', done);
+      el.classList.remove('print-this');
+      document.body.classList.remove('print-one');
+      for (const d of closed) d.open = false;
+    };
+    window.addEventListener('afterprint', done);
+    window.print();
+  };
+  return (
+    <button type="button" class="small secondary no-print" onClick={print}>
+      Print this output
+    </button>
   );
 }
 
@@ -164,11 +218,18 @@ function OutputCard({
   const inputs = table.inputs;
   const { andOr, xor, bestXor } = output;
   const unused = output.unusedInputs.map((i) => inputs[i]!.identifier);
+  const card = useRef<HTMLElement>(null);
   return (
-    <section class="card output" aria-label={`Output ${output.signal.header}`}>
-      <h3>
-        {output.signal.header} <code>{output.signal.identifier}</code>
-      </h3>
+    <section class="card output" aria-label={`Output ${output.signal.header}`} ref={card}>
+      <div class="output-head">
+        <h3>
+          {output.signal.header} <code>{output.signal.identifier}</code>
+        </h3>
+        <PrintButton card={card} />
+      </div>
+      <p class="print-only meta">
+        Spec table {qualifiedAddress(table.sheet, table.range)}: {verdictWords(verdict)}
+      </p>
       <p class="meta">safe value {output.safe}; {plural(output.dontCareCount, "don't-care combination")}</p>
       <FormView
         title="AND/OR form"
@@ -229,6 +290,7 @@ function OutputCard({
         </dd>
       </dl>
       <LadderPicture output={output} inputs={inputs} handOver={handOver} />
+      <StepsView output={output} inputs={inputs} />
     </section>
   );
 }

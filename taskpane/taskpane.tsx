@@ -9,5 +9,5 @@ const root = document.getElementById('app')!;
 void officeStart().then((start) => {
   applyTheme(start.theme);
   root.textContent = '';
-  render(<App mode={start.inExcel ? { kind: 'excel', host: officeExcelHost() } : { kind: 'outside' }} />, root);
+  render(<App mode={start.inExcel ? { kind: 'excel', host: officeExcelHost(), remembered: start.remembered } : { kind: 'outside' }} />, root);
 });

@@ -1,12 +1,11 @@
 // `record`: filled-in commissioning test records read back. Each record names its table and
 // the settings it was read with; the table is read again the same way, and the record is
-// current only when its revision stamp still matches. The workbook is only read, never written.
+// current only when its revision stamp still matches (src/workflow/records.ts, shared with the
+// pane and the page). The workbook is only read, never written.
 import { openFile } from '../hosts/file-host.js';
-import { judgeRecord, readTestRecord, type RecordVerdict } from '../report/record-read.js';
 import { CAUTION_LINES } from '../report/caution.js';
-import { analyseTable } from '../spec/analyse.js';
 import { qualifiedAddress } from '../spec/grid.js';
-import { readSpecTables } from '../spec/read-tables.js';
+import { checkRecords, recordsCleared, type RecordVerdict } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import type { Progress } from './progress.js';
@@ -20,20 +19,10 @@ export async function recordCommand(cmd: RecordCommand, io: CliIo, progress: Pro
     io.err(`error: ${opened.error.message}\n`);
     return EXIT.usage;
   }
-  const host = opened.value;
-  const sheets = await host.listSheets();
-  const verdicts: RecordVerdict[] = [];
-  for (const sheet of sheets) {
-    if (host.sheetProblem(sheet)) continue;
-    const record = readTestRecord(await host.readGrid(sheet));
-    if (!record) continue;
-    const there = sheets.includes(record.table.sheet) && !host.sheetProblem(record.table.sheet);
-    const table = there ? readSpecTables(await host.readGrid(record.table.sheet), record.settings).tables.find((t) => t.range === record.table.range) : undefined;
-    verdicts.push(judgeRecord(record, table && { table, analysis: analyseTable(table) }));
-  }
+  const verdicts = await checkRecords(opened.value);
   if (cmd.json) io.out(JSON.stringify({ caution: CAUTION_LINES.join(' '), records: verdicts.map(recordJson) }, null, 2) + '\n');
   else io.out(recordText(cmd.file, verdicts));
-  return verdicts.length > 0 && verdicts.every((v) => v.ok) ? EXIT.ok : EXIT.failed;
+  return recordsCleared(verdicts) ? EXIT.ok : EXIT.failed;
 }
 
 function recordJson(v: RecordVerdict) {

@@ -108,3 +108,15 @@ export function xlErrorCode(error: unknown): string | undefined {
   if (typeof error === 'object' && error !== null && 'code' in error && typeof error.code === 'string') return error.code;
   return undefined;
 }
+
+/**
+ * `Office.context.document.settings` (Office.Settings, common API requirement set Settings 1.1):
+ * name/value pairs stored in the document per add-in. `set` changes the in-memory copy only;
+ * `saveAsync` writes it into the document and reports `status` = `Office.AsyncResultStatus`.
+ * Values are JSON (string, number, boolean, null, object, array).
+ */
+export interface XlDocumentSettings {
+  get(name: string): unknown;
+  set(name: string, value: unknown): void;
+  saveAsync(callback?: (result: { readonly status: unknown; readonly error: { readonly message: string } | null }) => void): void;
+}

@@ -54,8 +54,8 @@ export interface PatternTable {
 /** Reading settings a problem can point to (see settings.ts for how each host names them). */
 export type Setting = 'x-means-dont-care' | 'inputs' | 'range' | 'dont-cares';
 
-/** Which host words the messages: each names its settings its own way (settings.ts). */
-export type HostKind = 'cli' | 'pane' | 'any';
+/** Which host words the messages: each names its settings its own way (settings.ts); 'pane' = the Excel pane, 'page' = the standalone page. */
+export type HostKind = 'cli' | 'pane' | 'page' | 'any';
 
 /**
  * How an output's don't-cares are resolved, once, into the one function every form, proof, test

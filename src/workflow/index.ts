@@ -10,3 +10,4 @@ export { handOverFiles, type HandOverFile, type HandOverKind, type HandOverReque
 export { checkExpression, implementationWord, programCleared, verifyProgram, type ImplementationWord } from './implementation.js';
 export { workbookJson } from './json.js';
 export { workbookView, type TableView, type WorkbookView } from './view.js';
+export { checkRecords, judgeRecords, readRecordGrids, recordsCleared, type RecordGrids, type RecordVerdict } from './records.js';

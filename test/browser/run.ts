@@ -6,7 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import { tmpdir } from 'node:os';
-import { extname, join, normalize, resolve } from 'node:path';
+import { extname, join, normalize } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import XLSX from 'xlsx';
 import { parseExpression } from '../../src/logic/expr/parse.js';
@@ -21,10 +21,10 @@ import { analyseTable } from '../../src/spec/analyse.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
 import type { TableAnalysis } from '../../src/spec/analysis-types.js';
 import { cliOutcome, WORKBOOKS, xlsxBytes, xlsxSheets, type Outcome } from '../workflow/workbooks.js';
+import { check, expect, ORIGIN, results, ROOT, same, SHOTS } from './harness.js';
+import { recordChecks, settingsChecks, wideLadderChecks } from './settings-records.js';
 
-const ROOT = resolve(import.meta.dirname, '../..');
 const SAMPLE = join(ROOT, 'sample-workbooks/capper-cell.xlsx');
-const SHOTS = join(ROOT, 'test-output/screenshots');
 const CHROMIUM = '/usr/bin/chromium';
 
 /**
@@ -37,32 +37,6 @@ const OFFICE_TELEMETRY_REFUSED = [
   /^taskpane console: Framing 'https:\/\/telemetryservice\.firstpartyapps\.oaspapps\.com\/' violates the following Content Security Policy directive/,
   /^taskpane console: Applying inline style violates the following Content Security Policy directive 'style-src 'self''/,
 ];
-
-const results: { name: string; ok: boolean; detail?: string }[] = [];
-/** The origin the pages are served from, once the server runs. */
-const ORIGIN = { value: '' };
-
-async function check(name: string, body: () => Promise<void>): Promise<void> {
-  try {
-    await body();
-    results.push({ name, ok: true });
-    console.log(`  ok    ${name}`);
-  } catch (e) {
-    const detail = e instanceof Error ? e.message : String(e);
-    results.push({ name, ok: false, detail });
-    console.log(`  FAIL  ${name}\n        ${detail.split('\n').join('\n        ')}`);
-  }
-}
-
-function expect(cond: boolean, message: string): void {
-  if (!cond) throw new Error(message);
-}
-
-function same<T>(actual: T, expected: T, what: string): void {
-  const a = JSON.stringify(actual);
-  const b = JSON.stringify(expected);
-  if (a !== b) throw new Error(`${what}:\n  expected ${b}\n  got      ${a}`);
-}
 
 function build(out: string): void {
   const r = spawnSync('npm', ['run', 'build'], { cwd: ROOT, env: { ...process.env, IA_OUT_DIR: out }, encoding: 'utf8' });
@@ -160,6 +134,9 @@ async function main(): Promise<number> {
     ORIGIN.value = origin;
     await workflowChecks(page, work);
     await screenshots(page, 'standalone-not-analysed');
+    await settingsChecks(page, work);
+    await recordChecks(page, work);
+    await wideLadderChecks(page, work);
     await taskpaneChecks(context, origin, pageErrors);
     await check('no request left the page’s own origin', async () => {
       same(foreign, [], 'requests to other origins');

@@ -545,3 +545,38 @@ class DoubleTable {
 export function column(letters: string): number {
   return columnIndex(letters)!;
 }
+
+/**
+ * `Office.context.document.settings` as the document keeps it: `set` changes the in-memory copy
+ * only, `saveAsync` stores it in the document later (its callback never runs synchronously),
+ * `reopened()` is the add-in loaded again with what the document saved. Values are kept as
+ * JSON, as Office stores them; a value JSON cannot hold fails like Office.js (InvalidArgument).
+ * A missing setting reads null. `refuseSaves` makes saveAsync report status 'failed'.
+ */
+export class SettingsDouble {
+  refuseSaves = false;
+  private memory: Map<string, string>;
+  constructor(private readonly document: Map<string, string> = new Map()) {
+    this.memory = new Map(document);
+  }
+  get(name: string): unknown {
+    const v = this.memory.get(name);
+    return v === undefined ? null : JSON.parse(v);
+  }
+  set(name: string, value: unknown): void {
+    const json = JSON.stringify(value);
+    if (json === undefined) throw new DoubleError('InvalidArgument', 'The argument is invalid or missing or has an incorrect format.');
+    this.memory.set(name, json);
+  }
+  saveAsync(callback?: (result: { status: unknown; error: { message: string } | null }) => void): void {
+    setTimeout(() => {
+      if (this.refuseSaves) return callback?.({ status: 'failed', error: { message: 'The settings could not be saved.' } });
+      for (const [k, v] of this.memory) this.document.set(k, v);
+      callback?.({ status: 'succeeded', error: null });
+    }, 0);
+  }
+  /** The add-in opened again on the same document: only what was saved is there. */
+  reopened(): SettingsDouble {
+    return new SettingsDouble(this.document);
+  }
+}
