@@ -3,7 +3,7 @@
 // execution order, so a coil's variable used as a contact further down is substituted.
 import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
-import { blockKind, kindWord } from './constructs.js';
+import { namedValue, unevaluatedBlock } from './graphic-parts.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
@@ -67,11 +67,7 @@ class Network {
     this.checkCycles();
     for (const node of this.order) {
       if (node.kind === 'block') {
-        const type = node.el.attrs['typeName'] ?? '';
-        const kind = blockKind(type, this.context.blockTypes);
-        const name = node.el.attrs['instanceName'];
-        const what = `${kindWord(kind)} block ${name ? `${name} (${type})` : type}, localId ${node.id}`;
-        this.blocks.set(node.id, this.b.cannotJudge(kind, what, node.el.line));
+        this.blocks.set(node.id, unevaluatedBlock(this.b, this.context, node.el, node.id));
       } else if (node.kind === 'jump' || node.kind === 'return') {
         this.b.taintEveryOutput('control-flow', `${node.kind} element, localId ${node.id}`, node.el.line);
       }
@@ -168,14 +164,7 @@ class Network {
   }
 
   private readVariable(node: Node, name: string): Expr {
-    const line = node.el.line;
-    if (!/[.[]/.test(name)) return this.b.read(name, line);
-    const base = name.split(/[.[]/)[0]!;
-    const type = this.b.variable(base, line).type;
-    const kind = blockKind(type, this.context.blockTypes);
-    return kind === 'function-call'
-      ? this.b.opaque('unsupported', `${name} (member or element), localId ${node.id}`, line)
-      : this.b.opaque(kind, `${kindWord(kind)} ${base} (${type}): ${name}, localId ${node.id}`, line);
+    return namedValue(this.b, this.context, name, node.id, node.el.line);
   }
 
   /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */

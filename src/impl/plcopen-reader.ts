@@ -1,6 +1,7 @@
 // PLCopen XML (TC6 2.0 and 2.01) read back: each POU's interface, and its body in Structured
-// Text or Ladder Diagram. Element names as in the published schemas (tc6_xml_v201.xsd).
+// Text, Ladder Diagram or FBD. Element names as in the published schemas (tc6_xml_v201.xsd).
 import { fail, ok, type Result } from '../logic/result.js';
+import { readFbdBody } from './fbd-network.js';
 import { readLdBody } from './ld-network.js';
 import { tokenize } from './st-lexer.js';
 import { readStBody } from './st-reader.js';
@@ -116,7 +117,8 @@ function readPou(file: string, el: XmlElement, globals: readonly ImplVariable[],
     return readStBody({ file, source: code, globals, blockTypes }, header('ST'), tokens.value);
   }
   if (language === 'LD') return readLdBody({ file, globals, blockTypes }, header('LD'), content);
-  if (language === 'FBD' || language === 'IL' || language === 'SFC') return ok(unreadBody(header(language), content.line));
+  if (language === 'FBD') return readFbdBody({ file, globals, blockTypes }, header('FBD'), content);
+  if (language === 'IL' || language === 'SFC') return ok(unreadBody(header(language), content.line));
   throw new LineError(content.line, `POU ${name} has a body in <${content.name}>, which is not a PLCopen language`);
 }
 

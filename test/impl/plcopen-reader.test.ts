@@ -206,8 +206,8 @@ describe('PLCopen project', () => {
     expect(errorOf(project('').replace('<body></body>', ''))).toBe('t.xml line 3: POU P has no body');
   });
 
-  it('a body in FBD is reported as not read, every output unchecked', () => {
-    const pou = pouOf(project('<FBD></FBD>'));
+  it('a body in IL is reported as not read, every output unchecked', () => {
+    const pou = pouOf(project('<IL><xhtml xmlns="http://www.w3.org/1999/xhtml">LD a</xhtml></IL>'));
     expect(pou.outputs.map((o) => [o.name, kinds(o)])).toEqual([['q', ['unsupported']], ['r', ['unsupported']]]);
   });
 
