@@ -176,7 +176,8 @@ class Network {
       }
       const missing = this.needs(top).filter((s) => !this.memo.has(keyOf(s)));
       if (missing.length > 0) {
-        for (const m of missing) stack.push(m);
+        // Reversed, so the first input is computed first: leaves come in drawing order.
+        for (let i = missing.length - 1; i >= 0; i--) stack.push(missing[i]!);
         continue;
       }
       this.memo.set(keyOf(top), this.compute(top));
