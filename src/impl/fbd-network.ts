@@ -5,12 +5,12 @@
 // written above and read further down is substituted. Every walk is iterative and the depth of
 // a network is capped: the file never decides how deep the call stack goes.
 import { FALSE, TRUE, xor, type Expr } from '../logic/expr/ast.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import { namedValue, unevaluatedBlock } from './graphic-parts.js';
+import type { Result } from '../logic/result.js';
+import { bodyElements, namedValue, readBody, unevaluatedBlock, type BodyElement } from './graphic-parts.js';
 import { LineError } from './line-error.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
-import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
+import { childNamed, childrenNamed, textContent, type XmlElement } from './xml.js';
 
 /** Longest chain of elements from an input to an output variable; far beyond a drawn network. */
 export const MAX_NETWORK_DEPTH = 1000;
@@ -30,11 +30,7 @@ const KNOWN = new Set(['comment', 'label', 'inVariable', 'outVariable', 'inOutVa
 /** Elements whose output can be connected to an input. */
 const SOURCES = new Set(['inVariable', 'inOutVariable', 'block', 'continuation']);
 
-interface Node {
-  readonly el: XmlElement;
-  readonly kind: string;
-  readonly id: string;
-}
+type Node = BodyElement;
 
 /** A value leaving a node: a block's output pin (upper case), '' for any other node. */
 interface Source {
@@ -50,12 +46,7 @@ interface Input {
 }
 
 export function readFbdBody(context: ReadContext, header: PouHeader, fbd: XmlElement): Result<ImplPou> {
-  try {
-    return ok(new Network(context, header, fbd).read());
-  } catch (e) {
-    if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
-    throw e;
-  }
+  return readBody(context, () => new Network(context, header, fbd).read());
 }
 
 const keyOf = (s: Source): string => `${s.node.id}/${s.pin}`;
@@ -76,20 +67,13 @@ class Network {
     private readonly header: PouHeader,
     fbd: XmlElement,
   ) {
-    for (const el of fbd.children) {
-      const kind = localName(el.name);
-      if (!KNOWN.has(kind)) throw new LineError(el.line, `unknown element <${el.name}> in the FBD body of ${header.name}`);
-      const id = el.attrs['localId'];
-      if (id === undefined) throw new LineError(el.line, `<${kind}> in ${header.name} has no localId`);
-      const twice = this.nodes.get(id);
-      if (twice) throw new LineError(el.line, `localId ${id} is used twice in ${header.name} (first on line ${twice.el.line})`);
-      const node = { el, kind, id };
-      this.nodes.set(id, node);
+    for (const node of bodyElements(fbd, header.name, KNOWN)) {
+      this.nodes.set(node.id, node);
       this.order.push(node);
-      if (kind === 'connector') {
+      if (node.kind === 'connector') {
         const name = this.connectorName(node);
         const other = this.connectors.get(name.toLowerCase());
-        if (other) throw new LineError(el.line, `connector ${name} (localId ${id}) is drawn twice (also localId ${other.id}, line ${other.el.line})`);
+        if (other) throw new LineError(node.el.line, `connector ${name} (localId ${node.id}) is drawn twice (also localId ${other.id}, line ${other.el.line})`);
         this.connectors.set(name.toLowerCase(), node);
       }
     }

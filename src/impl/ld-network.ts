@@ -2,8 +2,8 @@
 // (series = AND; several connections into one input = OR) into coils. Coils are taken in
 // execution order, so a coil's variable used as a contact further down is substituted.
 import { TRUE, type Expr } from '../logic/expr/ast.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import { namedValue, unevaluatedBlock } from './graphic-parts.js';
+import type { Result } from '../logic/result.js';
+import { bodyElements, namedValue, readBody, unevaluatedBlock, type BodyElement } from './graphic-parts.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
@@ -20,19 +20,10 @@ const KNOWN = new Set([
   'connector', 'continuation', 'jump', 'label', 'return',
 ]);
 
-interface Node {
-  readonly el: XmlElement;
-  readonly kind: string;
-  readonly id: string;
-}
+type Node = BodyElement;
 
 export function readLdBody(context: ReadContext, header: PouHeader, ld: XmlElement): Result<ImplPou> {
-  try {
-    return ok(new Network(context, header, ld).read());
-  } catch (e) {
-    if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
-    throw e;
-  }
+  return readBody(context, () => new Network(context, header, ld).read());
 }
 
 class Network {
@@ -47,15 +38,8 @@ class Network {
     private readonly header: PouHeader,
     ld: XmlElement,
   ) {
-    for (const el of ld.children) {
-      const kind = localName(el.name);
-      if (!KNOWN.has(kind)) throw new LineError(el.line, `unknown element <${el.name}> in the LD body of ${header.name}`);
-      if (IGNORED.has(kind)) continue;
-      const id = el.attrs['localId'];
-      if (id === undefined) throw new LineError(el.line, `<${kind}> in ${header.name} has no localId`);
-      if (this.nodes.has(id)) throw new LineError(el.line, `localId ${id} is used twice in ${header.name} (first on line ${this.nodes.get(id)!.el.line})`);
-      const node = { el, kind, id };
-      this.nodes.set(id, node);
+    for (const node of bodyElements(ld, header.name, KNOWN, IGNORED)) {
+      this.nodes.set(node.id, node);
       this.order.push(node);
     }
     const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => this.variableOf(n).toLowerCase()));

@@ -4,21 +4,14 @@ import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
-import { verifyExitCode, verifyImplementation, type OutputVerdict, type VerifyReport } from '../../src/impl/verify.js';
+import { verifyExitCode, verifyImplementation } from '../../src/impl/verify.js';
 import { parseXml } from '../../src/impl/xml.js';
 import { tinyTable } from '../report/fixtures.js';
 import { schemaViolations } from '../report/plcopen-schema.js';
 import { capperTables, fixtureText, implementation } from './capper.js';
+import { statuses, verdict } from './verdicts.js';
 
 const tables = capperTables();
-
-function verdict(report: VerifyReport, header: string): OutputVerdict {
-  const v = report.outputs.find((o) => o.output.header === header);
-  if (!v) throw new Error(`no verdict for ${header}`);
-  return v;
-}
-
-const statuses = (report: VerifyReport): Record<string, string> => Object.fromEntries(report.outputs.map((o) => [o.output.header, o.status]));
 
 /** A spec table over `inputs` whose outputs are the given functions of the input bits (leftmost input first). */
 function specOf(inputs: readonly string[], outputs: Readonly<Record<string, (x: readonly number[]) => boolean>>) {

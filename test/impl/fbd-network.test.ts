@@ -1,14 +1,11 @@
 // FBD bodies element by element: what is evaluated, what is named as cannot-judge, and the
 // errors that name the element.
 import { describe, expect, it } from 'vitest';
-import { equals } from '../../src/logic/bits.js';
-import { truthTable } from '../../src/logic/expr/evaluate.js';
-import { parseExpression } from '../../src/logic/expr/parse.js';
-import { printSt } from '../../src/logic/expr/print-st.js';
 import { MAX_NETWORK_DEPTH } from '../../src/impl/fbd-network.js';
 import { readPlcopen } from '../../src/impl/plcopen-reader.js';
-import type { CannotJudgeKind, ImplOutput, ImplPou } from '../../src/impl/types.js';
+import type { ImplPou } from '../../src/impl/types.js';
 import { block, connector, continuation, fbdProject, inOutVariable, inVariable, outVariable, type Interface } from './fbd-writer.js';
+import { expectFunction, kinds, output } from './pou-checks.js';
 
 const FACE: Interface = { inputs: ['a', 'b', 'c'], outputs: ['q', 'r'] };
 
@@ -24,22 +21,6 @@ function errorOf(elements: string[], face: Interface = FACE): string {
   return r.error.message.replace(/^t\.xml line \d+: /, '');
 }
 
-function output(pou: ImplPou, name: string): ImplOutput {
-  const o = pou.outputs.find((x) => x.name === name);
-  if (!o) throw new Error(`no output ${name}`);
-  return o;
-}
-
-function expectFunction(pou: ImplPou, name: string, expected: string): void {
-  const o = output(pou, name);
-  expect(o.cannotJudge).toEqual([]);
-  const want = parseExpression(expected, pou.inputs.map((n) => ({ header: n, identifier: n })));
-  if (!want.ok) throw new Error(want.error.message);
-  const n = Math.max(1, pou.inputs.length);
-  expect(equals(truthTable(o.expr!, n), truthTable(want.value, n)), `${printSt(o.expr!)} vs ${expected}`).toBe(true);
-}
-
-const kinds = (o: ImplOutput): CannotJudgeKind[] => o.cannotJudge.map((c) => c.kind);
 const ab = [inVariable(1, 'a'), inVariable(2, 'b')];
 
 describe('FBD logic blocks', () => {
