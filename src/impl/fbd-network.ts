@@ -61,6 +61,8 @@ class Network {
   private readonly unevaluated = new Map<string, CannotJudge>();
   private readonly b: PouBuilder;
   private memo = new Map<string, Expr>();
+  /** Names the input and in-out variables read (lower case). */
+  private readonly readNames = new Set<string>();
 
   constructor(
     private readonly context: ReadContext,
@@ -77,7 +79,10 @@ class Network {
         this.connectors.set(name.toLowerCase(), node);
       }
     }
-    for (const node of this.order) this.inputs.set(node.id, this.inputsOf(node));
+    for (const node of this.order) {
+      this.inputs.set(node.id, this.inputsOf(node));
+      if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(this.variableOf(node).toLowerCase());
+    }
     const assigned = new Set(this.writers().map((n) => this.variableOf(n).toLowerCase()));
     this.b = new PouBuilder(header, context.globals, assigned);
   }
@@ -119,7 +124,8 @@ class Network {
     const value = this.modified(node, node.el, suffix, this.valueOf(this.single(node, input!)), `${node.kind} ${name}`);
     if (/[.[]/.test(name)) this.b.cannotJudge('unsupported', `${node.kind} writes ${name}, localId ${node.id}`, line);
     else if (this.b.isBool(name, line)) this.b.assign(name, value, line);
-    this.memo = new Map();
+    // Values computed so far stay true unless some element reads the variable just written.
+    if (this.readNames.has(name.toLowerCase())) this.memo = new Map();
   }
 
   /**
