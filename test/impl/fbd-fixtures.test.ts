@@ -3,6 +3,7 @@
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { readMappingCsv } from '../../src/impl/mapping.js';
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyExitCode, verifyImplementation } from '../../src/impl/verify.js';
 import { parseXml } from '../../src/impl/xml.js';
@@ -140,6 +141,15 @@ describe('small hand-drawn diagrams', () => {
     expect(statuses(report)).toEqual({ run: 'unchecked', lamp: 'equal' });
     expect(verdict(report, 'run').reasons).toEqual(['timer block T1 (TON), localId 3 (Delayed, line 45)']);
     expect(verdict(report, 'run').cannotJudge).toEqual([{ kind: 'timer', pou: 'Delayed', line: 45, what: 'timer block T1 (TON), localId 3' }]);
+  });
+
+  it('a mapping cannot yet stand a spec input for the timer output: T1.Q reads as POU T1, and run stays unchecked', () => {
+    const spec = specOf(['Delayed start', 'guard'], { run: ([s, g]) => s + g === 2 });
+    const map = readMappingCsv('map.csv', 'Delayed start;T1.Q\n');
+    if (!map.ok) throw new Error(map.error.message);
+    const report = verifyImplementation([spec], fbd('timer.xml'), map.value);
+    expect(statuses(report)).toEqual({ run: 'unchecked' });
+    expect(report.unusedMapping).toEqual(["map.csv line 1: the program has no variable 'T1.Q'"]);
   });
 
   it('two blocks feeding each other are refused, the loop named by its localIds', () => {
