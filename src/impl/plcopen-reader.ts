@@ -1,6 +1,7 @@
 // PLCopen XML (TC6 2.0 and 2.01) read back: each POU's interface, and its body in Structured
-// Text or Ladder Diagram. Element names as in the published schemas (tc6_xml_v201.xsd).
+// Text, Ladder Diagram or FBD. Element names as in the published schemas (tc6_xml_v201.xsd).
 import { fail, ok, type Result } from '../logic/result.js';
+import { readFbdBody } from './fbd-network.js';
 import { readLdBody } from './ld-network.js';
 import { tokenize, type Token } from './st-lexer.js';
 import { readStBody, stText, type StBlock, type StBody, type StText } from './st-reader.js';
@@ -174,9 +175,9 @@ function readPou(context: ReadContext, el: XmlElement, face: PouHeader): Result<
       const body: StBody = { tokens, text, actions, elsewhere };
       return readStBody(context, header('ST'), body);
     }
-    if (language === 'LD') {
-      const read = readLdBody(context, header('LD'), content);
-      // A ladder body calls no action: what actions and transitions write is not modelled.
+    if (language === 'LD' || language === 'FBD') {
+      const read = language === 'LD' ? readLdBody(context, header('LD'), content) : readFbdBody(context, header('FBD'), content);
+      // A ladder or FBD body calls no action: what actions and transitions write is not modelled.
       const others = [...actions.map((a) => ({ what: `action ${a.name}`, line: a.line })), ...elsewhere];
       return read.ok && others.length > 0 ? ok(taintAll(read.value, others)) : read;
     }
@@ -184,7 +185,7 @@ function readPou(context: ReadContext, el: XmlElement, face: PouHeader): Result<
     if (e instanceof ReadFailure) return fail({ message: e.message });
     throw e;
   }
-  if (language === 'FBD' || language === 'IL' || language === 'SFC') return ok(unreadBody(header(language), content.line));
+  if (language === 'IL' || language === 'SFC') return ok(unreadBody(header(language), content.line));
   throw new LineError(content.line, `POU ${name} has a body in <${content.name}>, which is not a PLCopen language`);
 }
 

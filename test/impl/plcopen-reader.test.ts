@@ -2,11 +2,10 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { equals } from '../../src/logic/bits.js';
 import { truthTable } from '../../src/logic/expr/evaluate.js';
-import { parseExpression } from '../../src/logic/expr/parse.js';
-import { printSt } from '../../src/logic/expr/print-st.js';
 import { readPlcopen } from '../../src/impl/plcopen-reader.js';
-import type { CannotJudgeKind, ImplOutput, ImplPou } from '../../src/impl/types.js';
+import type { ImplOutput, ImplPou } from '../../src/impl/types.js';
 import { verifyImplementation } from '../../src/impl/verify.js';
+import { expectFunction, kinds, output } from './pou-checks.js';
 import { exportPlcopen } from '../../src/report/plcopen-export.js';
 import { analyseTable } from '../../src/spec/analyse.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
@@ -53,23 +52,6 @@ function errorOf(text: string): string {
   if (r.ok) throw new Error('expected a failure');
   return r.error.message;
 }
-
-function output(pou: ImplPou, name: string): ImplOutput {
-  const o = pou.outputs.find((x) => x.name === name);
-  if (!o) throw new Error(`no output ${name}`);
-  return o;
-}
-
-function expectFunction(pou: ImplPou, name: string, expected: string): void {
-  const o = output(pou, name);
-  expect(o.cannotJudge).toEqual([]);
-  const want = parseExpression(expected, pou.inputs.map((n) => ({ header: n, identifier: n })));
-  if (!want.ok) throw new Error(want.error.message);
-  const n = Math.max(1, pou.inputs.length);
-  expect(equals(truthTable(o.expr!, n), truthTable(want.value, n)), `${printSt(o.expr!)} vs ${expected}`).toBe(true);
-}
-
-const kinds = (o: ImplOutput): CannotJudgeKind[] => o.cannotJudge.map((c) => c.kind);
 
 describe('PLCopen LD body', () => {
   it('contacts in series are an AND', () => {
@@ -206,8 +188,8 @@ describe('PLCopen project', () => {
     expect(errorOf(project('').replace('<body></body>', ''))).toBe('t.xml line 3: POU P has no body');
   });
 
-  it('a body in FBD is reported as not read, every output unchecked', () => {
-    const pou = pouOf(project('<FBD></FBD>'));
+  it('a body in IL is reported as not read, every output unchecked', () => {
+    const pou = pouOf(project('<IL><xhtml xmlns="http://www.w3.org/1999/xhtml">LD a</xhtml></IL>'));
     expect(pou.outputs.map((o) => [o.name, kinds(o)])).toEqual([['q', ['unsupported']], ['r', ['unsupported']]]);
   });
 

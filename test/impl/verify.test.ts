@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readMappingCsv, type NameMapping } from '../../src/impl/mapping.js';
 import { readImplementation } from '../../src/impl/read.js';
-import { verifyExitCode, verifyImplementation, type OutputVerdict, type VerifyReport } from '../../src/impl/verify.js';
+import { verifyExitCode, verifyImplementation } from '../../src/impl/verify.js';
 import { verifyReportJson, verifyReportText } from '../../src/impl/verify-report.js';
 import { CAUTION, CAUTION_LINES } from '../../src/report/caution.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
@@ -9,16 +9,9 @@ import type { SpecTable } from '../../src/spec/types.js';
 import type { ImplProgram } from '../../src/impl/types.js';
 import { specGrid } from '../report/fixtures.js';
 import { capperTables, fixtureText, implementation } from './capper.js';
+import { statuses, verdict } from './verdicts.js';
 
 const tables = capperTables();
-
-function verdict(report: VerifyReport, header: string): OutputVerdict {
-  const v = report.outputs.find((o) => o.output.header === header);
-  if (!v) throw new Error(`no verdict for ${header}`);
-  return v;
-}
-
-const statuses = (report: VerifyReport): Record<string, string> => Object.fromEntries(report.outputs.map((o) => [o.output.header, o.status]));
 
 function mapping(name: string): NameMapping {
   const r = readMappingCsv(name, fixtureText(name));

@@ -2,7 +2,8 @@
 // (content models) and required attributes, transcribed by hand from the published schema
 // tc6_xml_v201.xsd (PLCopen, targetNamespace http://www.plcopen.org/xml/tc6_0201; read from
 // a public copy of the file, which states no licence, so it is not committed here).
-// Only the elements we write are listed; a check fails on any element not listed.
+// Only the elements we write (and the FBD elements our test files use) are listed; a check
+// fails on any element not listed.
 import { localName, type XmlElement } from '../../src/impl/xml.js';
 
 /**
@@ -12,6 +13,7 @@ import { localName, type XmlElement } from '../../src/impl/xml.js';
  */
 const VARS = '(localVars|tempVars|inputVars|outputVars|inOutVars|externalVars|globalVars|accessVars)*';
 const LD_OBJECTS = '(comment|error|connector|continuation|actionBlock|vendorElement|block|inVariable|outVariable|inOutVariable|label|jump|return|leftPowerRail|rightPowerRail|coil|contact)*';
+const FBD_OBJECTS = '(comment|error|connector|continuation|actionBlock|vendorElement|block|inVariable|outVariable|inOutVariable|label|jump|return)*';
 const VARIABLE = ['type', 'initialValue?', 'addData?', 'documentation?'];
 const VAR_LIST = ['variable*', 'addData?', 'documentation?'];
 const CONTACT = ['position', 'connectionPointIn?', 'connectionPointOut?', 'variable', 'addData?', 'documentation?'];
@@ -33,12 +35,30 @@ export const CONTENT: Readonly<Record<string, readonly string[]>> = {
   interface: ['returnType?', VARS, 'addData?', 'documentation?'],
   inputVars: VAR_LIST,
   outputVars: VAR_LIST,
+  localVars: VAR_LIST,
   'inputVars/variable': VARIABLE,
   'outputVars/variable': VARIABLE,
+  'localVars/variable': VARIABLE,
   type: ['(BOOL|BYTE|WORD|DWORD|LWORD|SINT|INT|DINT|LINT|USINT|UINT|UDINT|ULINT|REAL|LREAL|TIME|DATE|DT|TOD|string|wstring|array|derived|enum|struct|subrangeSigned|subrangeUnsigned|pointer)'],
   BOOL: [],
+  derived: [],
   body: ['(IL|ST|FBD|LD|SFC)', 'addData?', 'documentation?'],
   LD: [LD_OBJECTS],
+  FBD: [FBD_OBJECTS],
+  // FBD objects: checked against a generated binding of the same schema (JAXB classes of
+  // tc6_0201 in the public repository mattsse/plcopen-xml); outVariable from memory, as
+  // inVariable with connectionPointIn in place of connectionPointOut.
+  block: ['position', 'inputVariables', 'inOutVariables', 'outputVariables', 'addData?', 'documentation?'],
+  inputVariables: ['variable*'],
+  inOutVariables: ['variable*'],
+  outputVariables: ['variable*'],
+  'inputVariables/variable': ['connectionPointIn', 'documentation?'],
+  'inOutVariables/variable': ['connectionPointIn?', 'connectionPointOut?', 'documentation?'],
+  'outputVariables/variable': ['connectionPointOut?', 'documentation?'],
+  inVariable: ['position', 'connectionPointOut?', 'expression', 'addData?', 'documentation?'],
+  outVariable: ['position', 'connectionPointIn?', 'expression', 'addData?', 'documentation?'],
+  inOutVariable: ['position', 'connectionPointIn?', 'connectionPointOut?', 'expression', 'addData?', 'documentation?'],
+  expression: [],
   instances: ['configurations'],
   configurations: ['configuration*'],
   leftPowerRail: ['position', 'connectionPointOut*', 'addData?', 'documentation?'],
@@ -68,6 +88,15 @@ export const REQUIRED: Readonly<Record<string, readonly string[]>> = {
   pou: ['name', 'pouType'],
   'inputVars/variable': ['name'],
   'outputVars/variable': ['name'],
+  'localVars/variable': ['name'],
+  derived: ['name'],
+  block: ['localId', 'typeName'],
+  'inputVariables/variable': ['formalParameter'],
+  'inOutVariables/variable': ['formalParameter'],
+  'outputVariables/variable': ['formalParameter'],
+  inVariable: ['localId'],
+  outVariable: ['localId'],
+  inOutVariable: ['localId'],
   leftPowerRail: ['localId'],
   'leftPowerRail/connectionPointOut': ['formalParameter'],
   rightPowerRail: ['localId'],
@@ -90,6 +119,11 @@ export const ATTRIBUTE_TYPES: Readonly<Record<string, RegExp>> = {
   localId: /^\d+$/,
   refLocalId: /^\d+$/,
   negated: /^(true|false|1|0)$/,
+  negatedIn: /^(true|false|1|0)$/,
+  negatedOut: /^(true|false|1|0)$/,
+  executionOrderId: /^\d+$/,
+  edge: /^(none|rising|falling)$/,
+  storage: /^(none|set|reset)$/,
   pouType: /^(function|functionBlock|program)$/,
   creationDateTime: /^-?\d{4,}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?(Z|[+-]\d{2}:\d{2})?$/,
   modificationDateTime: /^-?\d{4,}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?(Z|[+-]\d{2}:\d{2})?$/,
