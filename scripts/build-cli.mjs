@@ -35,7 +35,8 @@ export async function buildCli() {
     chunkNames: 'chunk-[hash]',
     logLevel: 'warning',
   });
-  copyFileSync(join(root, 'src', 'hosts', 'parse-worker.mjs'), join(temp, 'parse-worker.mjs'));
+  // The parse worker runs as its own process, beside the bundle, with the plain modules it imports.
+  for (const file of ['parse-worker.mjs', 'package-facts.mjs', 'zip-package.mjs']) copyFileSync(join(root, 'src', 'hosts', file), join(temp, file));
   rmSync(CLI_OUT, { recursive: true, force: true });
   renameSync(temp, CLI_OUT);
 }

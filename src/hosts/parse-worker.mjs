@@ -169,10 +169,11 @@ function runProblems(sheet, cells, severity, code, say, sayRest) {
   const out = listed.map((run) => ({ severity, code, sheet, cell: runRange(run), message: say(run, run.top === run.bottom) }));
   if (listed.length < runs.length) {
     const rest = runs.slice(listed.length);
-    const top = Math.min(...rest.map((r) => r.top));
-    const bottom = Math.max(...rest.map((r) => r.bottom));
-    const left = Math.min(...rest.map((r) => r.c));
-    const right = Math.max(...rest.map((r) => r.c));
+    // Folded, not spread: the runs may be many.
+    const top = rest.reduce((m, r) => Math.min(m, r.top), Infinity);
+    const bottom = rest.reduce((m, r) => Math.max(m, r.bottom), -Infinity);
+    const left = rest.reduce((m, r) => Math.min(m, r.c), Infinity);
+    const right = rest.reduce((m, r) => Math.max(m, r.c), -Infinity);
     const count = rest.reduce((n, r) => n + r.bottom - r.top + 1, 0);
     out.push({ severity, code, sheet, cell: `${encodeCell(top, left)}:${encodeCell(bottom, right)}`, message: sayRest(count) });
   }

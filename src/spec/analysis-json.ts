@@ -1,6 +1,7 @@
 // One element of the `tables` array of `analyze --json` (DESIGN.md section 4), plus more.
 // Input combinations are written as patterns over the table's inputs, in the order of
 // `inputs`: "101" is first input 1, second 0, third 1; in a cube, '-' is "any".
+import type { Problem } from './types.js';
 import type { Combination } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import type { OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
@@ -91,15 +92,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
     range: table.range,
     inputs: analysis.inputs.map((s) => s.header),
     outputs: analysis.outputs.map((o) => outputJson(o, analysis)),
-    problems: analysis.problems.map((p) => ({
-      severity: p.severity,
-      code: p.code,
-      cell: p.cell,
-      message: p.message,
-      ...(p.cells ? { cells: p.cells } : {}),
-      ...(p.setting ? { setting: p.setting } : {}),
-      ...(p.patterns ? { patterns: p.patterns } : {}),
-    })),
+    problems: analysis.problems.map(problemJson),
     roleRule: table.roleRule,
     xReading: table.xReading,
     readings: table.readings ?? [],
@@ -155,4 +148,17 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
       steps: o.steps.map((s) => ({ combination: combination(s.combination), expected: s.expected, reason: s.reason })),
     };
   }
+}
+
+/** A problem in the JSON document: the contract's fields, and every cell of a summarised one. */
+export function problemJson(p: Problem): ProblemJson {
+  return {
+    severity: p.severity,
+    code: p.code,
+    cell: p.cell,
+    message: p.message,
+    ...(p.cells ? { cells: p.cells } : {}),
+    ...(p.setting ? { setting: p.setting } : {}),
+    ...(p.patterns ? { patterns: p.patterns } : {}),
+  };
 }

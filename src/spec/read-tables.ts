@@ -53,7 +53,7 @@ import type {
   XReading,
 } from './types.js';
 import { gapCubes } from './uncovered.js';
-import { appendAll } from '../logic/arrays.js';
+import { appendAll, maxOf, minOf } from '../logic/arrays.js';
 
 export interface SpecTablesRead {
   readonly tables: SpecTable[];
@@ -568,10 +568,10 @@ class BadCells {
       if (list.length === 1)
         return { ...sheet.problem('error', 'bad-cell', sheet.address(first.row, first.col), advice ?? first.reason), ...setting };
       const box = sheet.range({
-        top: Math.min(...list.map((b) => b.row)),
-        left: Math.min(...list.map((b) => b.col)),
-        bottom: Math.max(...list.map((b) => b.row)),
-        right: Math.max(...list.map((b) => b.col)),
+        top: minOf(list.map((b) => b.row)),
+        left: minOf(list.map((b) => b.col)),
+        bottom: maxOf(list.map((b) => b.row), 0),
+        right: maxOf(list.map((b) => b.col), 0),
       });
       const example = kind === 'x' || kind === 'blank' ? '' : ` (first at ${sheet.address(first.row, first.col)}: ${first.reason.replace(/;.*$/, '')})`;
       const message = `${list.length} cells in ${box} ${BAD_KIND_WORDS[kind]}${example}: ${advice ?? HOW_TO_WRITE}`;

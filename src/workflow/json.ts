@@ -2,7 +2,7 @@
 // A table that was not analysed carries its signals, gaps, conflicts and problems, and no form.
 import { count } from '../logic/bits.js';
 import { cube, cubeToPattern } from '../logic/cube.js';
-import { analysisJson } from '../spec/analysis-json.js';
+import { analysisJson, problemJson, type ProblemJson } from '../spec/analysis-json.js';
 import type { Problem } from '../spec/types.js';
 import { gapCubes } from '../spec/uncovered.js';
 import type { TableResult, Workbook } from './examine.js';
@@ -17,8 +17,9 @@ function verdictJson(v: Verdict): VerdictJson {
   return { kind: v.kind, text: verdictWords(v) };
 }
 
-function problemJson(p: Problem): { severity: string; code: string; sheet: string; cell: string; message: string } {
-  return { severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message };
+/** A problem beside the tables carries its sheet too. */
+function problemWithSheet(p: Problem): ProblemJson & { readonly sheet: string } {
+  return { ...problemJson(p), sheet: p.sheet };
 }
 
 function tableJson(t: TableResult): Record<string, unknown> {
@@ -50,13 +51,13 @@ function tableJson(t: TableResult): Record<string, unknown> {
         combinations: c.combinations,
       })),
     })),
-    problems: table.problems.map((p) => ({ severity: p.severity, code: p.code, cell: p.cell, message: p.message })),
+    problems: table.problems.map(problemJson),
     roleRule: table.roleRule,
     xReading: table.xReading,
     identifiers,
   };
 }
 
-export function workbookJson(wb: Workbook): { tables: Record<string, unknown>[]; problems: ReturnType<typeof problemJson>[] } {
-  return { tables: wb.tables.map(tableJson), problems: wb.problems.map(problemJson) };
+export function workbookJson(wb: Workbook): { tables: Record<string, unknown>[]; problems: ReturnType<typeof problemWithSheet>[] } {
+  return { tables: wb.tables.map(tableJson), problems: wb.problems.map(problemWithSheet) };
 }
