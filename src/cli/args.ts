@@ -30,13 +30,28 @@ export type Command =
       readonly form: FormChoice;
       readonly ladderBody: boolean;
     }
-  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean };
+  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean }
+  | CompareCommand;
+
+export interface CompareCommand {
+  readonly name: 'compare';
+  readonly old: string;
+  readonly new: string;
+  readonly oldSpec: SpecChoice;
+  readonly newSpec: SpecChoice;
+  readonly json: boolean;
+  /** A filled-in commissioning test record of the old revision. */
+  readonly oldRecord?: string;
+  readonly out?: string;
+}
 
 export const USAGE = `Usage:
   interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
   interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
                             [--form and-or|xor|best-xor] [--ld] [spec options]
   interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+  interlock-algebra compare OLD NEW [--json] [--old-record FILLED.xlsx] [-o change.xlsx] [spec options]
+                            [--old-sheet NAME] [--old-range A1:H20] [--new-sheet NAME] [--new-range A1:H20]
 
 Spec options:
   --sheet NAME            read only this sheet
@@ -46,8 +61,9 @@ Spec options:
   --safe NAME=0|1         an output's safe value (default 0); may be given more than once
   --time-limit SECONDS    longest the workbook may take to read (default 60)
 
-Exit status: 0 every form proven against the spec (verify: the implementation is equal),
-1 a spec error or a failed check, 2 a usage error or a file that cannot be read.`;
+Exit status: 0 every form proven against the spec (verify: the implementation is equal;
+compare: every output behaves the same), 1 a spec error or a failed check (compare: a
+behaviour changed), 2 a usage error or a file that cannot be read.`;
 
 type Kind = 'flag' | 'value' | 'many';
 const SPEC_FLAGS: Record<string, Kind> = {
@@ -127,8 +143,9 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
 export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') return ok({ name: 'help' });
+  if (name === 'compare') return parseCompare(rest);
   const flags = COMMAND_FLAGS[name];
-  if (!flags) return fail(`unknown command "${name}" (expected analyze, export or verify)`);
+  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify or compare)`);
   if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
   const words = splitWords(rest, flags);
   if (!words.ok) return words;
@@ -157,4 +174,50 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   if (impl === undefined) return fail('verify needs --impl <file.st|file.xml>');
   const map = one('--map');
   return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json') });
+}
+
+const COMPARE_FLAGS: Record<string, Kind> = {
+  ...SPEC_FLAGS,
+  '--old-sheet': 'value',
+  '--old-range': 'value',
+  '--new-sheet': 'value',
+  '--new-range': 'value',
+  '--old-record': 'value',
+  '--json': 'flag',
+  '-o': 'value',
+  '--out': 'value',
+};
+
+/** `compare OLD NEW`: the spec options apply to both files; --old-sheet, --new-range and the like choose per file. */
+function parseCompare(rest: readonly string[]): Result<Command, string> {
+  if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
+  const words = splitWords(rest, COMPARE_FLAGS);
+  if (!words.ok) return words;
+  const { positional, values } = words.value;
+  if (positional.length !== 2) return fail(`compare needs two files, the old revision and the new one; got ${positional.length}`);
+  const side = (which: 'old' | 'new'): Result<SpecChoice, string> => {
+    const own = new Map(values);
+    for (const what of ['sheet', 'range']) {
+      const given = values.get(`--${which}-${what}`);
+      if (given) own.set(`--${what}`, given);
+    }
+    return readSpec(own);
+  };
+  const oldSpec = side('old');
+  if (!oldSpec.ok) return oldSpec;
+  const newSpec = side('new');
+  if (!newSpec.ok) return newSpec;
+  if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
+  const out = values.get('-o')?.[0] ?? values.get('--out')?.[0];
+  const oldRecord = values.get('--old-record')?.[0];
+  return ok({
+    name: 'compare',
+    old: positional[0]!,
+    new: positional[1]!,
+    oldSpec: oldSpec.value,
+    newSpec: newSpec.value,
+    json: values.has('--json'),
+    ...(oldRecord !== undefined ? { oldRecord } : {}),
+    ...(out !== undefined ? { out } : {}),
+  });
 }

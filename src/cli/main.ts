@@ -2,6 +2,7 @@
 // `main(argv, io)` returns the exit status, so that tests run the CLI in-process.
 import { pathToFileURL } from 'node:url';
 import { analyzeCommand } from './analyze.js';
+import { compareCommand } from './compare.js';
 import { parseArgs, USAGE } from './args.js';
 import { exportCommand } from './export.js';
 import { EXIT, processIo, type CliIo, type ExitCode } from './io.js';
@@ -26,6 +27,8 @@ export async function main(argv: readonly string[], io: CliIo = processIo): Prom
       return exportCommand(cmd, io, progress);
     case 'verify':
       return verifyCommand(cmd, io, progress);
+    case 'compare':
+      return compareCommand(cmd, io, progress);
   }
 }
 

@@ -110,5 +110,10 @@ export function comparisonText(c: TableComparison, retest?: Retest): string {
   const problems = [...c.problems, ...(retest?.problems ?? [])];
   if (problems.length > 0) lines.push('Problems:', ...problemLines(problems));
   lines.push(c.changed ? 'Behaviour CHANGED: review the changes above and repeat the steps listed.' : 'Behaviour identical on every combination of every output (cells may differ).');
-  return [...CAUTION_LINES, '', ...lines, ''].join('\n');
+  return lines.join('\n') + '\n';
+}
+
+/** The whole report: the caution first, then each table compared. */
+export function comparisonReport(tables: readonly { readonly comparison: TableComparison; readonly retest?: Retest }[]): string {
+  return [...CAUTION_LINES, '', ...tables.map((t) => comparisonText(t.comparison, t.retest))].join('\n');
 }

@@ -1,7 +1,7 @@
 // Which steps of the old commissioning test record still hold after an edit, which must be
 // repeated (a value they expect changed, or a product term they test is not in the new form),
 // and which steps of the new record are new. The new record marks each step.
-import { popcount, type Combination } from '../logic/bits.js';
+import { has, popcount, type Combination } from '../logic/bits.js';
 import { cube, cubeContains, type Cube } from '../logic/cube.js';
 import { sopToExpr } from '../logic/expr/forms.js';
 import { printSt } from '../logic/expr/print-st.js';
@@ -84,9 +84,12 @@ export function oldStepsFromRecord(c: TableComparison, record: ReadRecord): { st
   return { steps, problems };
 }
 
-/** A term "tested" by a step: the step lies in it (the ON step) or one literal away (a flip). */
-function touches(c: Cube, k: Combination): boolean {
-  return popcount((k ^ c.bits) & c.mask) <= 1;
+/**
+ * The terms a step tests, as the unique-cause steps are chosen: a step where the output is ON
+ * tests the terms it lies in; a step where it is OFF, the terms one literal away (the flip).
+ */
+function testedTerms(terms: readonly Cube[], k: Combination, on: boolean): Cube[] {
+  return terms.filter((t) => popcount((k ^ t.bits) & t.mask) === (on ? 0 : 1));
 }
 
 const PASSED = /^(pass|passed|ok)$/i;
@@ -116,7 +119,8 @@ export function selectRetest(c: TableComparison, old: readonly OldStep[], source
     tested.forEach((p) => {
       if (!p) return;
       const after = c.outputs.find((o) => o.identifier === p.new.identifier)!.after!.terms;
-      for (const term of c.old.outputs[p.oldIndex]!.andOr.cubes.filter((t) => touches(t, s.combination))) {
+      const isOn = has(c.old.table.outputs[p.oldIndex]!.built.fn.on, s.combination);
+      for (const term of testedTerms(c.old.outputs[p.oldIndex]!.andOr.cubes, s.combination, isOn)) {
         const mapped = remapCube(joint, term);
         if (!after.some((t) => t.mask === mapped.mask && t.bits === mapped.bits))
           because(p.new.header, `the term ${printSt(sopToExpr([term], oldInputs))} it tests is not in the new AND/OR form`);
@@ -165,4 +169,10 @@ export function retestRecordSheet(c: TableComparison, retest: Retest, options: R
     rows: [...rows.slice(0, head), [{ value: note, style: 'label' }], ...rows.slice(head)],
     columnWidths: [...(sheet.columnWidths ?? []), 44],
   };
+}
+
+/** The record of the old table among those read: by revision stamp, else by the table it names. */
+export function recordFor(c: TableComparison, records: readonly ReadRecord[]): ReadRecord | undefined {
+  const where = qualifiedAddress(c.old.table.sheet, c.old.table.range);
+  return records.find((r) => r.stamp === c.oldStamp) ?? records.find((r) => r.table === where);
 }
