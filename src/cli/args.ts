@@ -31,6 +31,7 @@ export type Command =
       readonly ladderBody: boolean;
     }
   | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean }
+  | { readonly name: 'record'; readonly file: string; readonly json: boolean; readonly timeLimitMs?: number }
   | CompareCommand;
 
 export interface CompareCommand {
@@ -50,6 +51,9 @@ export const USAGE = `Usage:
   interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
                             [--form and-or|xor|best-xor] [--ld] [spec options]
   interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+  interlock-algebra record  <filled-record.xlsx> [--json]
+                            reads filled-in test records back: each step passed, failed or not run,
+                            and whether the table is still the revision the record was made from
   interlock-algebra compare OLD NEW [--json] [--old-record FILLED.xlsx] [-o change.xlsx] [spec options]
                             [--old-sheet NAME] [--old-range A1:H20] [--new-sheet NAME] [--new-range A1:H20]
 
@@ -62,8 +66,9 @@ Spec options:
   --time-limit SECONDS    longest the workbook may take to read (default 60)
 
 Exit status: 0 every form proven against the spec (verify: the implementation is equal;
-compare: every output behaves the same), 1 a spec error or a failed check (compare: a
-behaviour changed), 2 a usage error or a file that cannot be read.`;
+compare: every output behaves the same), 1 a spec error or a failed check (record: a step not
+passed, or a stale record; compare: a behaviour changed), 2 a usage error or a file that cannot
+be read.`;
 
 type Kind = 'flag' | 'value' | 'many';
 const SPEC_FLAGS: Record<string, Kind> = {
@@ -78,6 +83,8 @@ const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
   analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
   export: { ...SPEC_FLAGS, '--st': 'value', '--plcopen': 'value', '--svg': 'value', '--steps': 'value', '--form': 'value', '--ld': 'flag' },
   verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag' },
+  // The settings come from the record itself, so that the table is read as it was then.
+  record: { '--json': 'flag', '--time-limit': 'value' },
 };
 
 const FORMS: Readonly<Record<string, FormChoice>> = { 'and-or': 'andOr', xor: 'xor', 'best-xor': 'bestXor' };
@@ -145,7 +152,7 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') return ok({ name: 'help' });
   if (name === 'compare') return parseCompare(rest);
   const flags = COMMAND_FLAGS[name];
-  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify or compare)`);
+  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify, record or compare)`);
   if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
   const words = splitWords(rest, flags);
   if (!words.ok) return words;
@@ -156,6 +163,10 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const spec = readSpec(values);
   if (!spec.ok) return spec;
   const one = (flag: string): string | undefined => values.get(flag)?.[0];
+  if (name === 'record') {
+    const { timeLimitMs } = spec.value;
+    return ok({ name, file, json: values.has('--json'), ...(timeLimitMs !== undefined ? { timeLimitMs } : {}) });
+  }
   if (name === 'analyze') {
     if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
     const out = one('-o') ?? one('--out');

@@ -11,15 +11,14 @@ import {
   matchTables,
   oldStepsFromRecord,
   oldStepsOf,
-  readRecordGrid,
   recordFor,
   retestRecordSheet,
   selectRetest,
-  type ReadRecord,
   type Retest,
   type TableComparison,
 } from '../compare/index.js';
 import { openFile, sameFile } from '../hosts/file-host.js';
+import { readTestRecord, type FilledRecord } from '../report/record-read.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { Problem } from '../spec/types.js';
 import { analyseAll, problemJson } from './analyze.js';
@@ -35,13 +34,13 @@ interface Compared {
 }
 
 /** Every record sheet of a filled-in record workbook. */
-async function readRecords(file: string, progress: Progress): Promise<Result<ReadRecord[], string>> {
+async function readRecords(file: string, progress: Progress): Promise<Result<FilledRecord[], string>> {
   const opened = await progress.during(`reading ${file}`, openFile(file));
   if (!opened.ok) return fail(opened.error.message);
-  const records: ReadRecord[] = [];
+  const records: FilledRecord[] = [];
   for (const sheet of await opened.value.listSheets()) {
     if (opened.value.sheetProblem(sheet)) continue;
-    const record = readRecordGrid(await opened.value.readGrid(sheet));
+    const record = readTestRecord(await opened.value.readGrid(sheet));
     if (record) records.push(record);
   }
   if (records.length === 0) return fail(`${file}: no commissioning test record sheet in it (a sheet titled "Commissioning test record: ...")`);
@@ -49,7 +48,7 @@ async function readRecords(file: string, progress: Progress): Promise<Result<Rea
 }
 
 /** The tables paired, compared, and their retest chosen from the record or the old table. */
-function compareLoaded(old: Loaded, next: Loaded, records: readonly ReadRecord[] | undefined, progress: Progress): { compared: Compared[]; problems: Problem[] } {
+function compareLoaded(old: Loaded, next: Loaded, records: readonly FilledRecord[] | undefined, progress: Progress): { compared: Compared[]; problems: Problem[] } {
   const match = matchTables(old.tables, next.tables);
   const problems: Problem[] = match.unmatched.map((message) => ({ severity: 'error', code: 'tables-unmatched', sheet: next.tables[0]?.sheet ?? '', cell: 'A1', message }));
   const olds = analyseAll(match.pairs.map((p) => p.old), progress);

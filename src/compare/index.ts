@@ -3,7 +3,6 @@ export { matchSignals, matchTables, type SignalMatch, type SignalPair, type Tabl
 export { behaviourChange, type BehaviourChange, type ChangeSet, type JointInputs } from './behaviour.js';
 export { compareAnalyses, compareTables, type OutputComparison, type RowChange, type TableComparison } from './compare.js';
 export { oldStepsFromRecord, oldStepsOf, recordFor, retestRecordSheet, selectRetest, type NewRecordStep, type OldStep, type Retest, type RetestEntry } from './retest.js';
-export { readRecordGrid, type ReadRecord, type RecordedStep } from './old-record.js';
 export { CHANGE_KINDS, comparisonJson, type ChangeKind } from './change-json.js';
 export { comparisonReport, comparisonText } from './change-text.js';
 export { changeRecordSheet, SIGN_FIELDS } from './change-sheet.js';

@@ -12,7 +12,7 @@ import { qualifiedAddress } from '../spec/grid.js';
 import type { Problem } from '../spec/types.js';
 import { remapCube } from './behaviour.js';
 import type { TableComparison } from './compare.js';
-import type { ReadRecord } from './old-record.js';
+import type { FilledRecord, StepResult } from '../report/record-read.js';
 
 /** One step of the old record: its test ID, its combination of the old inputs, the outputs it tests. */
 export interface OldStep {
@@ -20,8 +20,8 @@ export interface OldStep {
   readonly testId: string;
   readonly combination: Combination;
   readonly outputs: readonly string[];
-  /** What the filled-in record says of it (Pass/Fail), when read from one. */
-  readonly result?: string;
+  /** What the filled-in record says of it, when read from one. */
+  readonly result?: StepResult;
 }
 
 export interface RetestEntry {
@@ -63,12 +63,16 @@ export function oldStepsOf(c: TableComparison): OldStep[] {
 }
 
 /**
- * The steps of a filled-in record, checked against the old table: the test IDs must be
- * patterns of its inputs. A record of another revision is a warning (its steps are still read).
+ * The steps of a filled-in record (read by record-read.ts), checked against the old table: the
+ * test IDs must be patterns of its inputs. A record of another revision is a warning (its steps
+ * are still read). The outputs a step tests are those the old table's selection gives it (all
+ * outputs for a step that selection does not have).
  */
-export function oldStepsFromRecord(c: TableComparison, record: ReadRecord): { steps: OldStep[]; problems: Problem[] } {
+export function oldStepsFromRecord(c: TableComparison, record: FilledRecord): { steps: OldStep[]; problems: Problem[] } {
   const n = c.old.inputs.length;
-  const problems: Problem[] = [];
+  const problems: Problem[] = [...record.problems];
+  const selected = new Map(stepTable(c.old).rows.map((r) => [r.testId, r.outputs]));
+  const every = c.old.outputs.map((o) => o.signal.identifier);
   const at = (severity: Problem['severity'], code: string, message: string): Problem => ({ severity, code, sheet: record.sheet, cell: 'A1', message });
   if (record.stamp !== c.oldStamp)
     problems.push(at('warning', 'record-other-revision', `the record's revision stamp ${record.stamp || '(none)'} is not the old table's (${c.oldStamp}): it was made from another revision`));
@@ -79,7 +83,7 @@ export function oldStepsFromRecord(c: TableComparison, record: ReadRecord): { st
       problems.push(at('error', 'record-mismatch', `step ${s.step} (${s.testId}) sets ${bits.length} inputs, the old table has ${n}: give the record of this table (--old-record)`));
       continue;
     }
-    steps.push({ step: s.step, testId: s.testId, combination: parseInt(bits, 2), outputs: s.outputs, result: s.result });
+    steps.push({ step: s.step, testId: s.testId, combination: parseInt(bits, 2), outputs: selected.get(s.testId) ?? every, result: s.result });
   }
   return { steps, problems };
 }
@@ -91,8 +95,6 @@ export function oldStepsFromRecord(c: TableComparison, record: ReadRecord): { st
 function testedTerms(terms: readonly Cube[], k: Combination, on: boolean): Cube[] {
   return terms.filter((t) => popcount((k ^ t.bits) & t.mask) === (on ? 0 : 1));
 }
-
-const PASSED = /^(pass|passed|ok)$/i;
 
 export function selectRetest(c: TableComparison, old: readonly OldStep[], source: Retest['source'], problems: readonly Problem[] = []): Retest {
   const { joint } = c;
@@ -110,7 +112,7 @@ export function selectRetest(c: TableComparison, old: readonly OldStep[], source
       reasons.push(`${output}: ${why}`);
     };
     const at = remapCube(joint, cube(full, s.combination));
-    if (source === 'record' && !PASSED.test(s.result ?? '')) reasons.push(`the old record shows ${s.result ? `"${s.result}"` : 'no result'}, not a pass`);
+    if (s.result !== undefined && s.result !== 'passed') reasons.push(`the old record shows it ${s.result}`);
     for (const o of c.outputs) {
       if (o.status === 'compared' && cubeMeetsSet(joint.n, at, o.change!.changed)) because(o.name, 'the expected value changed');
       if (o.status === 'not-compared') because(o.name, 'not compared (see the problems)');
@@ -172,7 +174,7 @@ export function retestRecordSheet(c: TableComparison, retest: Retest, options: R
 }
 
 /** The record of the old table among those read: by revision stamp, else by the table it names. */
-export function recordFor(c: TableComparison, records: readonly ReadRecord[]): ReadRecord | undefined {
-  const where = qualifiedAddress(c.old.table.sheet, c.old.table.range);
-  return records.find((r) => r.stamp === c.oldStamp) ?? records.find((r) => r.table === where);
+export function recordFor(c: TableComparison, records: readonly FilledRecord[]): FilledRecord | undefined {
+  const { sheet, range } = c.old.table;
+  return records.find((r) => r.stamp === c.oldStamp) ?? records.find((r) => r.table.sheet === sheet && r.table.range === range);
 }
