@@ -13,12 +13,17 @@ export function sampleTable([sheet, table]: readonly [number, number]): SampleTa
   return capperCell.sheets[sheet]!.tables[table]!;
 }
 
-/** Write the sample workbook with one table's row `index` replaced, to `path`. */
-export function writeRevision(path: string, at: readonly [number, number], index: number, row: string): string {
+/** Write the sample workbook with one table's rows edited, to `path`. */
+export function writeRows(path: string, at: readonly [number, number], edit: (rows: readonly string[]) => readonly string[]): string {
   const [sheetAt, tableAt] = at;
   const sheets = capperCell.sheets.map((s, i) =>
-    i !== sheetAt ? s : { ...s, tables: s.tables.map((t, j) => (j !== tableAt ? t : { ...t, rows: t.rows.map((r, k) => (k === index ? row : r)) })) },
+    i !== sheetAt ? s : { ...s, tables: s.tables.map((t, j) => (j !== tableAt ? t : { ...t, rows: edit(t.rows) })) },
   );
   writeFileSync(path, XLSX.write(sampleWorkbook({ ...capperCell, sheets }), { type: 'buffer', bookType: 'xlsx' }) as Buffer);
   return path;
+}
+
+/** Write the sample workbook with one table's row `index` replaced, to `path`. */
+export function writeRevision(path: string, at: readonly [number, number], index: number, row: string): string {
+  return writeRows(path, at, (rows) => rows.map((r, k) => (k === index ? row : r)));
 }
