@@ -44,6 +44,8 @@ export interface CompareCommand {
   /** A filled-in commissioning test record of the old revision. */
   readonly oldRecord?: string;
   readonly out?: string;
+  /** Old signal -> new signal, where neither identifier nor header pairs them. */
+  readonly renames: readonly (readonly [string, string])[];
 }
 
 export const USAGE = `Usage:
@@ -56,6 +58,7 @@ export const USAGE = `Usage:
                             and whether the table is still the revision the record was made from
   interlock-algebra compare OLD NEW [--json] [--old-record FILLED.xlsx] [-o change.xlsx] [spec options]
                             [--old-sheet NAME] [--old-range A1:H20] [--new-sheet NAME] [--new-range A1:H20]
+                            [--rename OLD=NEW]  (a signal of the old table that the new one calls otherwise)
 
 Spec options:
   --sheet NAME            read only this sheet
@@ -194,6 +197,7 @@ const COMPARE_FLAGS: Record<string, Kind> = {
   '--new-sheet': 'value',
   '--new-range': 'value',
   '--old-record': 'value',
+  '--rename': 'many',
   '--json': 'flag',
   '-o': 'value',
   '--out': 'value',
@@ -221,6 +225,12 @@ function parseCompare(rest: readonly string[]): Result<Command, string> {
   if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
   const out = values.get('-o')?.[0] ?? values.get('--out')?.[0];
   const oldRecord = values.get('--old-record')?.[0];
+  const renames: [string, string][] = [];
+  for (const pair of values.get('--rename') ?? []) {
+    const m = /^([^=]+)=([^=]+)$/.exec(pair);
+    if (!m) return fail(`--rename needs OLD=NEW (the old signal's name, the new one's), got "${pair}"`);
+    renames.push([m[1]!.trim(), m[2]!.trim()]);
+  }
   return ok({
     name: 'compare',
     old: positional[0]!,
@@ -228,6 +238,7 @@ function parseCompare(rest: readonly string[]): Result<Command, string> {
     oldSpec: oldSpec.value,
     newSpec: newSpec.value,
     json: values.has('--json'),
+    renames,
     ...(oldRecord !== undefined ? { oldRecord } : {}),
     ...(out !== undefined ? { out } : {}),
   });

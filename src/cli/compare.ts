@@ -48,13 +48,13 @@ async function readRecords(file: string, progress: Progress): Promise<Result<Fil
 }
 
 /** The tables paired, compared, and their retest chosen from the record or the old table. */
-function compareLoaded(old: Loaded, next: Loaded, records: readonly FilledRecord[] | undefined, progress: Progress): { compared: Compared[]; problems: Problem[] } {
+function compareLoaded(cmd: CompareCommand, old: Loaded, next: Loaded, records: readonly FilledRecord[] | undefined, progress: Progress): { compared: Compared[]; problems: Problem[] } {
   const match = matchTables(old.tables, next.tables);
   const problems: Problem[] = match.unmatched.map((message) => ({ severity: 'error', code: 'tables-unmatched', sheet: next.tables[0]?.sheet ?? '', cell: 'A1', message }));
   const olds = analyseAll(match.pairs.map((p) => p.old), progress);
   const news = analyseAll(match.pairs.map((p) => p.new), progress);
   const compared = olds.map((a, i) => {
-    const comparison = compareAnalyses(a, news[i]!);
+    const comparison = compareAnalyses(a, news[i]!, { renames: cmd.renames });
     const record = records && recordFor(comparison, records);
     if (records && !record)
       problems.push({ severity: 'warning', code: 'record-not-found', sheet: a.table.sheet, cell: a.table.range, message: "no sheet of the record is of this table: the old table's own steps are used" });
@@ -91,7 +91,7 @@ export async function compareCommand(cmd: CompareCommand, io: CliIo, progress: P
     }
   }
   if (!old.ok || !next.ok) return EXIT.usage;
-  const { compared, problems } = compareLoaded(old.value, next.value, records?.ok ? records.value : undefined, progress);
+  const { compared, problems } = compareLoaded(cmd, old.value, next.value, records?.ok ? records.value : undefined, progress);
   // A comparison is only as good as what was read: errors in either revision keep it from clearing.
   const specProblems = [old.value, next.value].flatMap((l) => [...l.otherProblems, ...l.tables.flatMap((t) => t.problems)]).filter((p) => p.severity === 'error');
   report(cmd, io, compared, problems, specProblems);

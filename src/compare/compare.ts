@@ -2,13 +2,13 @@
 // removed), per output the exact change over every joint combination, the rows that differ as
 // context, and the AND/OR forms before and after.
 import { cubeToPattern, type Cube } from '../logic/cube.js';
-import type { Signal } from '../logic/signals.js';
+import { signalIndex, type Signal } from '../logic/signals.js';
 import { revisionStamp } from '../report/revision.js';
 import { analyseTable, type AnalyseOptions } from '../spec/analyse.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
 import type { Problem, SpecTable } from '../spec/types.js';
 import { behaviourChange, behaviourChanged, remapCube, removedInputsUsed, type BehaviourChange, type JointInputs } from './behaviour.js';
-import { matchSignals, type SignalMatch } from './match.js';
+import { matchSignals, type Rename, type SignalMatch } from './match.js';
 
 export interface FormChange {
   /** Structured Text of the AND/OR form. */
@@ -60,18 +60,23 @@ export interface TableComparison {
   readonly changed: boolean;
 }
 
-export function compareTables(oldTable: SpecTable, newTable: SpecTable, options: AnalyseOptions = {}): TableComparison {
-  return compareAnalyses(analyseTable(oldTable, options), analyseTable(newTable, options));
+export interface CompareOptions {
+  /** Old signal -> new signal, where neither identifier nor header pairs them. */
+  readonly renames?: readonly Rename[];
 }
 
-export function compareAnalyses(oldA: TableAnalysis, newA: TableAnalysis): TableComparison {
+export function compareTables(oldTable: SpecTable, newTable: SpecTable, options: AnalyseOptions & CompareOptions = {}): TableComparison {
+  return compareAnalyses(analyseTable(oldTable, options), analyseTable(newTable, options), options);
+}
+
+export function compareAnalyses(oldA: TableAnalysis, newA: TableAnalysis, options: CompareOptions = {}): TableComparison {
   const oldT = oldA.table;
   const newT = newA.table;
-  const inputMatch = matchSignals(oldT.inputs, newT.inputs);
-  const outputMatch = matchSignals(
-    oldT.outputs.map((o) => o.signal),
-    newT.outputs.map((o) => o.signal),
-  );
+  const renames = options.renames ?? [];
+  const oldOutputs = oldT.outputs.map((o) => o.signal);
+  const newOutputs = newT.outputs.map((o) => o.signal);
+  const inputMatch = matchSignals(oldT.inputs, newT.inputs, renames);
+  const outputMatch = matchSignals(oldOutputs, newOutputs, renames);
   const oldToJoint = oldT.inputs.map((_, i) => inputMatch.pairs.find((p) => p.oldIndex === i)?.newIndex ?? -1);
   const joint: JointInputs = { n: newT.inputs.length, nOld: oldT.inputs.length, oldToJoint };
   const problems: Problem[] = [];
@@ -83,6 +88,18 @@ export function compareAnalyses(oldA: TableAnalysis, newA: TableAnalysis): Table
       cell: newT.range,
       message: `the old table (${oldT.sheet}!${oldT.range}) and the new one share no signal by identifier or header: choose the pair with --old-sheet/--old-range and --new-sheet/--new-range`,
     });
+
+  for (const [from, to] of renames) {
+    const pairs = [...inputMatch.pairs, ...outputMatch.pairs];
+    if (!pairs.some((p) => signalIndex([p.old], from) === 0 && signalIndex([p.new], to) === 0))
+      problems.push({
+        severity: 'error',
+        code: 'rename-unknown',
+        sheet: newT.sheet,
+        cell: newT.range,
+        message: `--rename ${from}=${to}: the old table has no free signal "${from}" or the new one no free signal "${to}" of the same role`,
+      });
+  }
 
   // Per removed input: which old outputs depend on it (the comparison of those is undefined).
   const usedBy = new Map<number, string[]>();
@@ -102,7 +119,7 @@ export function compareAnalyses(oldA: TableAnalysis, newA: TableAnalysis): Table
       cell: oldT.headerCells[i]!,
       message:
         `input "${header}" is not in the new table, but in the old one ${outs.join(', ')} differ between ${header} = 0 and ${header} = 1, ` +
-        'so the two cannot be compared: give the new table a column with the same header or identifier, or choose the old table with --old-sheet/--old-range',
+        `so the two cannot be compared: map it to a signal of the new table (--rename "${header}=NEW NAME"), give the new table a column with the same header or identifier, or choose the old table with --old-sheet/--old-range`,
     });
   }
 

@@ -1,7 +1,7 @@
 // Which signal of the new table is which of the old, and which table is which: by identifier,
 // then by header (case-insensitive), nothing guessed. A signal matched by identifier whose
 // header text changed is reported as renamed.
-import type { Signal } from '../logic/signals.js';
+import { signalIndex, type Signal } from '../logic/signals.js';
 import type { SpecTable } from '../spec/types.js';
 
 export interface SignalPair {
@@ -22,10 +22,24 @@ export interface SignalMatch {
 
 const key = (s: string): string => s.trim().toLowerCase();
 
-/** Pairs in the new table's order; identifiers are matched first over all signals, then headers. */
-export function matchSignals(oldSignals: readonly Signal[], newSignals: readonly Signal[]): SignalMatch {
+/** "Old signal OLD is new signal NEW": the user's word where names alone do not pair them. */
+export type Rename = readonly [oldName: string, newName: string];
+
+/**
+ * Pairs in the new table's order: the user's renames first (by header or identifier), then
+ * identifiers over all signals, then headers. A rename naming no signal of these lists is skipped
+ * (the caller says so when no list has it).
+ */
+export function matchSignals(oldSignals: readonly Signal[], newSignals: readonly Signal[], renames: readonly Rename[] = []): SignalMatch {
   const partner = new Map<number, number>(); // new index -> old index
   const taken = new Set<number>();
+  for (const [from, to] of renames) {
+    const i = signalIndex(oldSignals, from);
+    const j = signalIndex(newSignals, to);
+    if (i < 0 || j < 0 || taken.has(i) || partner.has(j)) continue;
+    partner.set(j, i);
+    taken.add(i);
+  }
   for (const by of [(s: Signal) => key(s.identifier), (s: Signal) => key(s.header)]) {
     newSignals.forEach((s, j) => {
       if (partner.has(j)) return;

@@ -68,8 +68,9 @@ describe('compare on the command line', () => {
     expect(run.code).toBe(0);
   });
 
-  it('usage errors exit 2: one file, or -o naming an input', async () => {
+  it('usage errors exit 2: one file, a rename without =, or -o naming an input', async () => {
     expect((await runCli('compare', CAPPER)).code).toBe(2);
+    expect((await runCli('compare', CAPPER, CSV, '--rename', 'Jog')).err).toContain('--rename needs OLD=NEW');
     const same = await runCli('compare', CAPPER, CSV, '-o', CSV);
     expect(same.code).toBe(2);
     expect(same.err).toContain('is an input file');

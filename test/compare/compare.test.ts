@@ -94,6 +94,21 @@ describe('comparing two revisions of a spec table', () => {
     expect(c.changed).toBe(true);
   });
 
+  it('the used input under another name in the new table: with a rename given, compared, no problem', () => {
+    const old = tinyTable({ ...ISSUED, rows: ['1 1 0 | 1', '1 1 1 | 0', '0 - - | 0', '1 0 - | 0'] });
+    const next = tinyTable({ ...ISSUED, inputs: ['Guard closed', 'Two-hand OK', 'Adjust mode'], rows: ['1 1 0 | 1', '1 1 1 | 0', '0 - - | 0', '1 0 - | 0'] });
+    expect(compareTables(old, next).problems.map((p) => p.code)).toEqual(['removed-input-used']);
+    const c = compareTables(old, next, { renames: [['Setup mode', 'Adjust mode']] });
+    expect(c.problems).toEqual([]);
+    expect(c.changed).toBe(false);
+    expect(c.inputMatch.pairs.map((p) => p.renamed)).toEqual([false, false, true]);
+  });
+
+  it('a rename naming no signal is a problem', () => {
+    const c = compareTables(tinyTable(ISSUED), tinyTable(ISSUED), { renames: [['Nothing', 'Setup mode']] });
+    expect(c.problems.map((p) => p.code)).toEqual(['rename-unknown']);
+  });
+
   it('an output added and one removed are changes; an output renamed is matched', () => {
     const c = compareTables(
       tinyTable({ ...ISSUED, outputs: ['Stroke permit', 'Lamp'], rows: ['1 1 - | 1 1', '0 - - | 0 0', '1 0 - | 0 1'] }),
