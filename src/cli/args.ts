@@ -3,6 +3,7 @@ import type { SafeValue } from '../logic/boolfn.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { FormChoice } from '../report/st-export.js';
 import { parseRange } from '../spec/grid.js';
+import type { DontCarePolicy } from '../spec/types.js';
 
 /** Which tables to read, and how (the options of every command that reads a workbook). */
 export interface SpecChoice {
@@ -14,6 +15,8 @@ export interface SpecChoice {
   readonly safe: Readonly<Record<string, SafeValue>>;
   /** Longest the workbook parse may take, in milliseconds. */
   readonly timeLimitMs?: number;
+  /** How don't-cares are resolved into each output's one function (default minimal). */
+  readonly dontCares?: DontCarePolicy;
 }
 
 export type Command =
@@ -66,6 +69,8 @@ Spec options:
   --x-means-dont-care     read X cells as '-' (any / don't-care); otherwise an X is an error
   --inputs N              the first N signal columns are inputs, the rest outputs
   --safe NAME=0|1         an output's safe value (default 0); may be given more than once
+  --dont-cares minimal|safe  how don't-care cells are resolved, once, for every form, proof and
+                          file: as the minimal AND/OR form uses them (default), or all at the safe value
   --time-limit SECONDS    longest the workbook may take to read (default 60)
 
 Exit status: 0 every form proven against the spec (verify: the implementation is equal;
@@ -81,6 +86,7 @@ const SPEC_FLAGS: Record<string, Kind> = {
   '--inputs': 'value',
   '--safe': 'many',
   '--time-limit': 'value',
+  '--dont-cares': 'value',
 };
 const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
   analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
@@ -140,6 +146,9 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
   const seconds = limitText === undefined ? undefined : Number(limitText);
   if (seconds !== undefined && !(seconds > 0 && seconds <= 3600)) return fail(`--time-limit needs seconds between 0 and 3600, got "${limitText}"`);
   const sheet = one('--sheet');
+  const dontCares = one('--dont-cares');
+  if (dontCares !== undefined && dontCares !== 'minimal' && dontCares !== 'safe')
+    return fail(`--dont-cares needs minimal or safe, got "${dontCares}"`);
   return ok({
     ...(sheet !== undefined ? { sheet } : {}),
     ...(range !== undefined ? { range } : {}),
@@ -147,6 +156,7 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
     ...(inputs !== undefined ? { inputs } : {}),
     safe,
     ...(seconds !== undefined ? { timeLimitMs: seconds * 1000 } : {}),
+    ...(dontCares !== undefined ? { dontCares } : {}),
   });
 }
 

@@ -11,6 +11,7 @@ import {
   matchTables,
   oldStepsFromRecord,
   oldStepsOf,
+  problemJson,
   recordFor,
   retestRecordSheet,
   selectRetest,
@@ -20,8 +21,10 @@ import {
 import { openFile, sameFile } from '../hosts/file-host.js';
 import { readTestRecord, type FilledRecord } from '../report/record-read.js';
 import { fail, ok, type Result } from '../logic/result.js';
-import type { Problem } from '../spec/types.js';
-import { analyseAll, problemJson } from './analyze.js';
+import { analyseTable } from '../spec/analyse.js';
+import type { TableAnalysis } from '../spec/analysis-types.js';
+import { qualifiedAddress } from '../spec/grid.js';
+import type { Problem, SpecTable } from '../spec/types.js';
 import type { CompareCommand } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { loadTables, type Loaded } from './load.js';
@@ -47,10 +50,18 @@ async function readRecords(file: string, progress: Progress): Promise<Result<Fil
   return ok(records);
 }
 
+function analyseAll(tables: readonly SpecTable[], progress: Progress): TableAnalysis[] {
+  return tables.map((table) => {
+    const label = `analysing ${qualifiedAddress(table.sheet, table.range)}`;
+    progress.note(label);
+    return analyseTable(table, { onProgress: (done, total) => progress.tick(label, done, total) });
+  });
+}
+
 /** The tables paired, compared, and their retest chosen from the record or the old table. */
 function compareLoaded(cmd: CompareCommand, old: Loaded, next: Loaded, records: readonly FilledRecord[] | undefined, progress: Progress): { compared: Compared[]; problems: Problem[] } {
-  const match = matchTables(old.tables, next.tables);
-  const problems: Problem[] = match.unmatched.map((message) => ({ severity: 'error', code: 'tables-unmatched', sheet: next.tables[0]?.sheet ?? '', cell: 'A1', message }));
+  const match = matchTables(old.read.tables, next.read.tables);
+  const problems: Problem[] = match.unmatched.map((message) => ({ severity: 'error', code: 'tables-unmatched', sheet: next.read.tables[0]?.sheet ?? '', cell: 'A1', message }));
   const olds = analyseAll(match.pairs.map((p) => p.old), progress);
   const news = analyseAll(match.pairs.map((p) => p.new), progress);
   const compared = olds.map((a, i) => {
@@ -93,7 +104,7 @@ export async function compareCommand(cmd: CompareCommand, io: CliIo, progress: P
   if (!old.ok || !next.ok) return EXIT.usage;
   const { compared, problems } = compareLoaded(cmd, old.value, next.value, records?.ok ? records.value : undefined, progress);
   // A comparison is only as good as what was read: errors in either revision keep it from clearing.
-  const specProblems = [old.value, next.value].flatMap((l) => [...l.otherProblems, ...l.tables.flatMap((t) => t.problems)]).filter((p) => p.severity === 'error');
+  const specProblems = [old.value, next.value].flatMap((l) => [...l.read.problems, ...l.read.tables.flatMap((t) => t.problems)]).filter((p) => p.severity === 'error');
   report(cmd, io, compared, problems, specProblems);
 
   if (cmd.out !== undefined) {

@@ -11,7 +11,8 @@ import type { Retest } from './retest.js';
 export const CHANGE_KINDS = ['nowPermits', 'nowTrips', 'dontCareChanged', 'gapsOpened', 'gapsClosed', 'conflictsNew', 'conflictsGone'] as const;
 export type ChangeKind = (typeof CHANGE_KINDS)[number];
 
-const problemJson = (p: Problem) => ({ severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message });
+/** A problem as the JSON documents write it. */
+export const problemJson = (p: Problem) => ({ severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message });
 
 export function comparisonJson(c: TableComparison, retest?: Retest) {
   const n = c.joint.n;

@@ -1,7 +1,7 @@
 // A revision stamp: a hash of what a spec table says and of the settings it was read with, so
 // a test record can tell whether the table in the workbook is still the one it was made from.
 // Only what the table means is hashed (signals, roles, rows as patterns and values, safe values,
-// the X reading): a cell re-typed with the same meaning (TRUE for 1) keeps the stamp.
+// the X reading, the don't-care policy): a cell re-typed with the same meaning (TRUE for 1) keeps the stamp.
 import { cubeToPattern } from '../logic/cube.js';
 import type { SpecOptions, SpecTable } from '../spec/types.js';
 import { sha256Hex } from './sha256.js';
@@ -15,6 +15,7 @@ export function revisionStamp(table: SpecTable): string {
     range: table.range,
     roleRule: table.roleRule,
     xReading: table.xReading,
+    dontCares: table.dontCares ?? 'minimal',
     inputs: table.inputs.map((s) => [s.header, s.identifier]),
     outputs: table.outputs.map((o) => [o.signal.header, o.signal.identifier, o.safe]),
     rows: table.rows.map((r) => [r.cells, cubeToPattern(n, r.cube), r.values.join('')]),
@@ -24,10 +25,10 @@ export function revisionStamp(table: SpecTable): string {
 
 /**
  * The settings that read this table again the same way, as one line a person can read and the
- * record reader can parse: "range=A3:J12; x=dont-care; inputs=5; safe=Spindle_run_permit:0".
+ * record reader can parse: "range=A3:J12; x=dont-care; dont-cares=minimal; inputs=5; safe=Spindle_run_permit:0".
  */
 export function settingsLine(table: SpecTable): string {
-  const parts = [`range=${table.range}`, `x=${table.xReading}`];
+  const parts = [`range=${table.range}`, `x=${table.xReading}`, `dont-cares=${table.dontCares ?? 'minimal'}`];
   if (table.roleRule === 'user-choice') parts.push(`inputs=${table.inputs.length}`);
   parts.push(`safe=${table.outputs.map((o) => `${o.signal.identifier}:${o.safe}`).join(',')}`);
   return parts.join('; ');
@@ -37,7 +38,7 @@ export function settingsLine(table: SpecTable): string {
 export function parseSettingsLine(line: string): SpecOptions | undefined {
   const fields = new Map<string, string>();
   for (const part of line.split(';')) {
-    const m = /^\s*([a-z]+)=(.*?)\s*$/.exec(part);
+    const m = /^\s*([a-z-]+)=(.*?)\s*$/.exec(part);
     if (!m) return undefined;
     fields.set(m[1]!, m[2]!);
   }
@@ -51,5 +52,7 @@ export function parseSettingsLine(line: string): SpecOptions | undefined {
     safeValues[m[1]!] = m[2] === '1' ? 1 : 0;
   }
   const inputs = fields.get('inputs');
-  return { range, xReading: x, safeValues, ...(inputs !== undefined ? { inputCount: Number(inputs) } : {}) };
+  const dontCares = fields.get('dont-cares') ?? 'minimal';
+  if (dontCares !== 'minimal' && dontCares !== 'safe') return undefined;
+  return { range, xReading: x, safeValues, dontCares, ...(inputs !== undefined ? { inputCount: Number(inputs) } : {}) };
 }

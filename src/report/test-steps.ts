@@ -83,13 +83,17 @@ export function stepTable(analysis: TableAnalysis, options: StepOptions = {}): S
   const rows: StepRow[] = [];
   let previous: readonly (0 | 1)[] = analysis.inputs.map(() => 0);
   for (const [combination, { why, outputs }] of chosen) {
-    const expected = specs.map((spec): Expected => (has(spec.built.fn.dc, combination) ? '-' : has(spec.built.fn.on, combination) ? 1 : 0));
+    // The resolved function of each output: what every form does, so what the step expects.
+    const expected = analysis.outputs.map((o): Expected => (has(o.resolved.on, combination) ? 1 : 0));
     const notes: string[] = [];
     if (specs.some((spec) => has(spec.built.gaps, combination))) notes.push('gap: no row covers this combination, each output takes its safe value');
     specs.forEach((spec, j) => {
       if (has(spec.built.conflicted, combination)) notes.push(`conflict: rows ask ${analysis.outputs[j]!.signal.identifier} for 1 and 0 here, it takes its safe value ${spec.safe}`);
     });
-    if (expected.includes('-')) notes.push("'-': either value meets the spec (don't-care)");
+    specs.forEach((spec, j) => {
+      if (has(spec.built.fn.dc, combination))
+        notes.push(`don't-care in the table: ${analysis.outputs[j]!.signal.identifier} expected ${expected[j]} as resolved (${analysis.outputs[j]!.dontCares})`);
+    });
     const inputs = analysis.inputs.map((_, i) => inputValue(n, combination, i));
     const changed = analysis.inputs.flatMap((s, i) => (inputs[i] !== previous[i] ? [`set ${s.header} to ${inputs[i]}`] : []));
     const kept = analysis.inputs.flatMap((s, i) => (inputs[i] === previous[i] ? [`${s.header} = ${inputs[i]}`] : []));

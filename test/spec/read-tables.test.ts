@@ -119,7 +119,8 @@ describe('reading data cells', () => {
     const [p] = errors(allProblems(read));
     expect(p).toMatchObject({ cell: 'A3' });
     expect(p!.message).toMatch(/ambiguous/);
-    expect(p!.message).toMatch(/setting that reads X as don't-care/);
+    expect(p!.message).toMatch(/tick 'X means don't-care' \(command line: --x-means-dont-care\)/);
+    expect(p!.setting).toBe('x-means-dont-care');
     expect(read.tables[0]!.xReading).toBe('none');
   });
 
@@ -139,7 +140,7 @@ describe('reading data cells', () => {
     ['the number 0.5', 0.5, /number 0.5/],
     ['a date', { date: 45000 }, /date/],
     ['an error value', { error: '#N/A' }, /error value #N\/A/],
-    ['other text', 'on', /"on" is not a truth value/],
+    ['other text', 'maybe', /"maybe" is not a truth value/],
   ];
   for (const [what, value, reason] of badCells) {
     it(`${what} in a data row is an error naming its cell`, () => {
@@ -152,7 +153,7 @@ describe('reading data cells', () => {
   }
 
   it('leaves a row with an unreadable cell out of the functions, so its combinations are gaps', () => {
-    const t = onlyTable([ROLES, HEADERS, [1, 1, 1], [0, 'on', 0]]);
+    const t = onlyTable([ROLES, HEADERS, [1, 1, 1], [0, 'maybe', 0]]);
     expect(t.rows).toHaveLength(1);
     expect(members(t.outputs[0]!.built.gaps)).toEqual([0, 1, 2]);
   });
