@@ -43,7 +43,22 @@ export type Command =
       /** Gaps are not judged (default: judged at the safe value). */
       readonly gapsFree: boolean;
     }
-  | { readonly name: 'record'; readonly file: string; readonly json: boolean; readonly timeLimitMs?: number };
+  | { readonly name: 'record'; readonly file: string; readonly json: boolean; readonly timeLimitMs?: number }
+  | CompareCommand;
+
+export interface CompareCommand {
+  readonly name: 'compare';
+  readonly old: string;
+  readonly new: string;
+  readonly oldSpec: SpecChoice;
+  readonly newSpec: SpecChoice;
+  readonly json: boolean;
+  /** A filled-in commissioning test record of the old revision. */
+  readonly oldRecord?: string;
+  readonly out?: string;
+  /** Old signal -> new signal, where neither identifier nor header pairs them. */
+  readonly renames: readonly (readonly [string, string])[];
+}
 
 export const USAGE = `Usage:
   interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
@@ -56,6 +71,9 @@ export const USAGE = `Usage:
   interlock-algebra record  <filled-record.xlsx> [--json]
                             reads filled-in test records back: each step passed, failed or not run,
                             and whether the table is still the revision the record was made from
+  interlock-algebra compare OLD NEW [--json] [--old-record FILLED.xlsx] [-o change.xlsx] [spec options]
+                            [--old-sheet NAME] [--old-range A1:H20] [--new-sheet NAME] [--new-range A1:H20]
+                            [--rename OLD=NEW]  (a signal of the old table that the new one calls otherwise)
 
 Spec options:
   --sheet NAME            read only this sheet
@@ -67,9 +85,10 @@ Spec options:
                           file: as the minimal AND/OR form uses them (default), or all at the safe value
   --time-limit SECONDS    longest the workbook may take to read (default 60)
 
-Exit status: 0 every form proven against the spec (verify: the implementation is equal),
-1 a spec error or a failed check (record: a step not passed, or a stale record), 2 a usage
-error or a file that cannot be read.`;
+Exit status: 0 every form proven against the spec (verify: the implementation is equal;
+compare: every output behaves the same), 1 a spec error or a failed check (record: a step not
+passed, or a stale record; compare: a behaviour changed), 2 a usage error or a file that cannot
+be read.`;
 
 type Kind = 'flag' | 'value' | 'many';
 const SPEC_FLAGS: Record<string, Kind> = {
@@ -158,8 +177,9 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
 export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') return ok({ name: 'help' });
+  if (name === 'compare') return parseCompare(rest);
   const flags = COMMAND_FLAGS[name];
-  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify or record)`);
+  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify, record or compare)`);
   if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
   const words = splitWords(rest, flags);
   if (!words.ok) return words;
@@ -192,4 +212,58 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   if (impl === undefined) return fail('verify needs --impl <file.st|file.xml>');
   const map = one('--map');
   return ok({ name: 'verify', file, spec: spec.value, impl, ...(map !== undefined ? { map } : {}), json: values.has('--json'), gapsFree: values.has('--gaps-free') });
+}
+
+const COMPARE_FLAGS: Record<string, Kind> = {
+  ...SPEC_FLAGS,
+  '--old-sheet': 'value',
+  '--old-range': 'value',
+  '--new-sheet': 'value',
+  '--new-range': 'value',
+  '--old-record': 'value',
+  '--rename': 'many',
+  '--json': 'flag',
+  '-o': 'value',
+  '--out': 'value',
+};
+
+/** `compare OLD NEW`: the spec options apply to both files; --old-sheet, --new-range and the like choose per file. */
+function parseCompare(rest: readonly string[]): Result<Command, string> {
+  if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
+  const words = splitWords(rest, COMPARE_FLAGS);
+  if (!words.ok) return words;
+  const { positional, values } = words.value;
+  if (positional.length !== 2) return fail(`compare needs two files, the old revision and the new one; got ${positional.length}`);
+  const side = (which: 'old' | 'new'): Result<SpecChoice, string> => {
+    const own = new Map(values);
+    for (const what of ['sheet', 'range']) {
+      const given = values.get(`--${which}-${what}`);
+      if (given) own.set(`--${what}`, given);
+    }
+    return readSpec(own);
+  };
+  const oldSpec = side('old');
+  if (!oldSpec.ok) return oldSpec;
+  const newSpec = side('new');
+  if (!newSpec.ok) return newSpec;
+  if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
+  const out = values.get('-o')?.[0] ?? values.get('--out')?.[0];
+  const oldRecord = values.get('--old-record')?.[0];
+  const renames: [string, string][] = [];
+  for (const pair of values.get('--rename') ?? []) {
+    const m = /^([^=]+)=([^=]+)$/.exec(pair);
+    if (!m) return fail(`--rename needs OLD=NEW (the old signal's name, the new one's), got "${pair}"`);
+    renames.push([m[1]!.trim(), m[2]!.trim()]);
+  }
+  return ok({
+    name: 'compare',
+    old: positional[0]!,
+    new: positional[1]!,
+    oldSpec: oldSpec.value,
+    newSpec: newSpec.value,
+    json: values.has('--json'),
+    renames,
+    ...(oldRecord !== undefined ? { oldRecord } : {}),
+    ...(out !== undefined ? { out } : {}),
+  });
 }

@@ -33,6 +33,8 @@ async function run(cmd: Command, io: CliIo): Promise<ExitCode> {
       return (await import('./verify.js')).verifyCommand(cmd, io, progress);
     case 'record':
       return (await import('./record.js')).recordCommand(cmd, io, progress);
+    case 'compare':
+      return (await import('./compare.js')).compareCommand(cmd, io, progress);
   }
 }
 
