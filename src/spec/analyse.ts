@@ -15,6 +15,7 @@ import { uniqueCauseSteps } from '../logic/steps.js';
 import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import type { OutputSpec, Problem, SpecTable } from './types.js';
 import { gapCubes } from './uncovered.js';
+import { analyseWide } from './analyse-wide.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */
@@ -27,6 +28,7 @@ export interface AnalyseOptions {
 const STEPS_PER_OUTPUT = 4;
 
 export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): TableAnalysis {
+  if (table.wide) return analyseWide(table, table.wide, options);
   const n = table.inputs.length;
   const total = table.outputs.length * STEPS_PER_OUTPUT + 1;
   let done = 0;

@@ -5,6 +5,7 @@ import type { Combination } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import type { OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import type { RoleRule, Severity, XReading } from './types.js';
+import { wideAnalysisJson, type WideTableJson } from './analysis-json-wide.js';
 
 export interface MismatchJson {
   readonly form: 'andOr' | 'xor' | 'bestXor';
@@ -53,21 +54,23 @@ export interface TableJson {
   readonly identifiers: Record<string, string>;
 }
 
-export function analysisJson(analysis: TableAnalysis): TableJson {
+export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson {
   const { table } = analysis;
   const n = analysis.inputs.length;
   const identifiers: Record<string, string> = {};
-  for (const s of [...analysis.inputs, ...analysis.outputs.map((o) => o.signal)]) identifiers[s.header] = s.identifier;
-  return {
+  for (const s of [...analysis.inputs, ...analysis.outputs.map((o) => o.signal), ...(analysis.wide?.outputs ?? []).map((o) => o.signal)])
+    identifiers[s.header] = s.identifier;
+  const tableFields = {
     sheet: table.sheet,
     range: table.range,
     inputs: analysis.inputs.map((s) => s.header),
-    outputs: analysis.outputs.map((o) => outputJson(o, analysis)),
     problems: analysis.problems.map((p) => ({ severity: p.severity, cell: p.cell, message: p.message })),
     roleRule: table.roleRule,
     xReading: table.xReading,
     identifiers,
   };
+  if (analysis.wide) return wideAnalysisJson(analysis, analysis.wide, tableFields);
+  return { ...tableFields, outputs: analysis.outputs.map((o) => outputJson(o, analysis)) };
 
   function outputJson(o: OutputAnalysis, a: TableAnalysis): OutputJson {
     const combination = (k: Combination): string => cubeToPattern(n, cube((1 << n) - 1, k));

@@ -7,6 +7,7 @@ import type { Signal } from '../logic/signals.js';
 import type { TestStep } from '../logic/steps.js';
 import type { Expr } from '../logic/expr/ast.js';
 import type { Problem, SpecTable } from './types.js';
+import type { WideTableAnalysis } from './wide-types.js';
 
 export interface FormProof {
   readonly combinations: number;
@@ -70,6 +71,9 @@ export interface OutputAnalysis {
 export interface TableAnalysis {
   readonly table: SpecTable;
   readonly inputs: readonly Signal[];
+  /** Empty for a table of more than 24 inputs: its outputs are in `wide`. */
   readonly outputs: readonly OutputAnalysis[];
   readonly problems: readonly Problem[];
+  /** Only for a table of more than 24 inputs: the symbolic engine's results. */
+  readonly wide?: WideTableAnalysis;
 }

@@ -1,6 +1,8 @@
 // A grid of cells -> the spec tables on it, with every problem pinned to an A1 cell.
 import { buildFunction, type OutputValue, type SafeValue, type TableRow } from '../logic/boolfn.js';
 import { MAX_INPUTS, count } from '../logic/bits.js';
+import { WIDE_MAX_INPUTS, type WideCube } from '../logic/wide-cube.js';
+import { readWide, wideRowCube } from './read-wide.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import { toIdentifiers } from '../logic/identifiers.js';
 import type { Signal } from '../logic/signals.js';
@@ -185,11 +187,13 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
 
   const xReading = options.xReading ?? 'none';
   const rows: SpecRow[] = [];
+  const wideCubes: WideCube[] = [];
   let xCells = 0;
   for (let r = headerRow + 1; r <= block.bottom; r++) {
     const row = readRow(sheet, r, layout, roles.inputs, roles.outputs, xReading, problems);
     if (row) {
       rows.push(row.row);
+      if (row.wideCube) wideCubes.push(row.wideCube);
       xCells += row.xCells;
     }
   }
@@ -199,8 +203,12 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
       sheet.problem('info', tableRange, `${xCells} cell${xCells === 1 ? '' : 's'} reading X taken as - (any / don't-care), as set`),
     );
 
-  const outputs = outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
-  if (rows.length > 0) reportGaps(sheet, tableRange, inputs, outputs, problems);
+  // Over 24 inputs the symbolic engine takes the table (read-wide.ts): no bit-set outputs.
+  const wide = inputs.length > MAX_INPUTS;
+  const outputs = wide ? [] : outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
+  if (rows.length > 0 && !wide) reportGaps(sheet, tableRange, inputs, outputs, problems);
+  const safeOf = (signal: Signal): { signal: Signal; safe: SafeValue } => ({ signal, safe: safeValueOf(signal, options) });
+  const wideSpec = wide && readWide(rows, wideCubes, inputs, outputSignals.map(safeOf), tableRange, (...p) => sheet.problem(...p), problems);
 
   const table: SpecTable = {
     sheet: sheet.grid.sheet,
@@ -212,6 +220,7 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
     xReading,
     headerCells: [...roles.inputs, ...roles.outputs].map((c) => sheet.address(headerRow, c)),
     problems,
+    ...(wideSpec ? { wide: wideSpec } : {}),
   };
   return { table, problems };
 }
@@ -264,13 +273,9 @@ function shapeProblem(
 ): Problem | undefined {
   if (inputs.length === 0) return sheet.problem('error', headerRange, 'no input column: mark at least one column as an input');
   if (outputs.length === 0) return sheet.problem('error', headerRange, 'no output column: mark at least one column as an output');
-  if (inputs.length > MAX_INPUTS) {
+  if (inputs.length > WIDE_MAX_INPUTS) {
     const cells = sheet.range({ top: row, left: inputs[0]!, bottom: row, right: inputs[inputs.length - 1]! });
-    return sheet.problem(
-      'error',
-      cells,
-      `${inputs.length} inputs: at most ${MAX_INPUTS} are handled (2^${MAX_INPUTS} combinations); split the table`,
-    );
+    return sheet.problem('error', cells, `${inputs.length} inputs: at most ${WIDE_MAX_INPUTS} are handled; split the table`);
   }
   return undefined;
 }
@@ -284,7 +289,7 @@ function readRow(
   outputCols: readonly number[],
   xReading: XReading,
   problems: Problem[],
-): { row: SpecRow; xCells: number } | undefined {
+): { row: SpecRow; xCells: number; wideCube?: WideCube } | undefined {
   const n = inputCols.length;
   let good = true;
   let xCells = 0;
@@ -300,22 +305,23 @@ function readRow(
   };
   let mask = 0;
   let bits = 0;
-  inputCols.forEach((col, i) => {
-    const v = read(col);
+  const inputValues = inputCols.map(read);
+  inputValues.forEach((v, i) => {
     const bit = 1 << (n - 1 - i);
     if (v === 1 || v === 0) mask |= bit;
     if (v === 1) bits |= bit;
   });
   const values = outputCols.map(read);
   if (!good) return undefined;
+  const wide = n > MAX_INPUTS;
   const row: SpecRow = {
     cells: sheet.range({ top: r, left: layout.block.left, bottom: r, right: layout.block.right }),
     inputCells: inputCols.map((c) => sheet.address(r, c)),
     outputCells: outputCols.map((c) => sheet.address(r, c)),
-    cube: cube(mask, bits),
+    cube: wide ? cube(0, 0) : cube(mask, bits),
     values: values as OutputValue[],
   };
-  return { row, xCells };
+  return { row, xCells, ...(wide ? { wideCube: wideRowCube(inputValues) } : {}) };
 }
 
 /** The safe value set for an output by its header or identifier (any case); 0 when none is. */

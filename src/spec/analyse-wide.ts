@@ -1,0 +1,65 @@
+// A spec table of more than 24 inputs (up to 64) analysed by the symbolic engine: per output
+// its forms, each proven on every combination from BDDs, and the same problems as analyse.ts.
+import { analyseWideOutput } from '../logic/wide-analysis.js';
+import type { AnalyseOptions } from './analyse.js';
+import type { TableAnalysis } from './analysis-types.js';
+import { wideBuilt } from './read-wide.js';
+import type { Problem, SpecTable } from './types.js';
+import type { WideOutputAnalysis, WideSpec } from './wide-types.js';
+
+/** Disjoint gap cubes listed in an analysis (the count is complete). */
+export const WIDE_GAP_CUBES_LISTED = 1000;
+
+export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOptions = {}): TableAnalysis {
+  const n = table.inputs.length;
+  const total = wide.outputs.length + 1;
+  let done = 0;
+  const progress = (what: string): void => options.onProgress?.(++done, total, what);
+  const { dd, built } = wideBuilt(n, wide, table.rows);
+  const gapSet = built[0]?.gaps ?? 0;
+  const gaps = dd.pathCubes(gapSet, WIDE_GAP_CUBES_LISTED).cubes;
+  const gapCount = dd.satCount(gapSet);
+  progress('gaps');
+  const problems: Problem[] = [...table.problems];
+  const outputs = wide.outputs.map((o, j): WideOutputAnalysis => {
+    const b = built[j]!;
+    const forms = analyseWideOutput(b.fn, o.safe, table.inputs, options.budgetMs === undefined ? {} : { budgetMs: options.budgetMs });
+    const analysed: WideOutputAnalysis = {
+      ...forms,
+      signal: o.signal,
+      safe: o.safe,
+      conflicts: b.conflicts.map((c) => ({
+        rowCellsA: table.rows[c.rowA]!.cells,
+        rowCellsB: table.rows[c.rowB]!.cells,
+        example: c.example,
+        combinations: c.combinations,
+      })),
+    };
+    problems.push(...wideProblems(table, analysed, table.headerCells[n + j]!));
+    progress(`${o.signal.header}: forms`);
+    return analysed;
+  });
+  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount } };
+}
+
+/** As analyse.ts: a form that differs (error), a form not proven minimal, unused inputs (info). */
+function wideProblems(table: SpecTable, o: WideOutputAnalysis, cell: string): Problem[] {
+  const at = (severity: Problem['severity'], message: string): Problem => ({ severity, sheet: table.sheet, cell, message });
+  const out: Problem[] = [];
+  const forms: [string, { proof: { mismatchCount: bigint } }][] = [
+    ['AND/OR form', o.andOr],
+    ['XOR form', o.xor],
+    ['best-polarity XOR form', o.bestXor],
+  ];
+  for (const [name, form] of forms)
+    if (form.proof.mismatchCount > 0n)
+      out.push(at('error', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
+  if (!o.andOr.proven)
+    out.push(at('info', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal (heuristic)`));
+  if (o.unusedInputs.length > 0) {
+    const names = o.unusedInputs.map((i) => table.inputs[i]!.header).join(', ');
+    const where = o.dontCareCount > 0n ? ` (don't-cares taken as the safe value ${o.safe})` : '';
+    out.push(at('info', `${o.signal.header} does not depend on ${names}${where}`));
+  }
+  return out;
+}
