@@ -9,21 +9,29 @@
 // is "if input then hi else lo", read as a ZDD it is lo ∪ {m ∪ {input} : m ∈ hi}. BDD nodes
 // never have lo = hi and ZDD nodes never have hi = 0, so one unique table serves both.
 // No garbage collection: a diagram lives as long as its analysis.
+import { now } from './primes.js';
 import { inputBit, type WideCombination, type WideCube } from './wide-cube.js';
 
 export type Node = number;
 export const FALSE: Node = 0;
 export const TRUE: Node = 1;
 
-/** More nodes than a manager was allowed: the function is too large for the symbolic engine. */
-export class NodeLimitError extends Error {
-  constructor(readonly limit: number) {
-    super(`the decision diagram passed ${limit} nodes`);
+/**
+ * A manager ran past its node budget or its time: the functions are too large for the
+ * symbolic engine (a random-looking sum of many cubes can need exponentially many nodes in
+ * any order). Thrown inside the engine, caught where a table is read or analysed.
+ */
+export class DdTooLarge extends Error {
+  constructor(readonly why: string) {
+    super(why);
   }
 }
 
 /** Default node budget: 4 million nodes, about 100 MB with the tables. */
 export const DEFAULT_NODE_LIMIT = 4_000_000;
+
+/** Default time for one manager's work (ms). */
+export const DEFAULT_DD_TIME_MS = 5_000;
 
 const AND = 1;
 const OR = 2;
@@ -45,10 +53,14 @@ export class Dd {
   private readonly anfMemo = new Map<Node, Node>();
   private readonly zCountMemo = new Map<Node, bigint>();
 
+  private readonly deadline: number;
+
   constructor(
     readonly n: number,
     readonly nodeLimit = DEFAULT_NODE_LIMIT,
+    readonly timeMs = DEFAULT_DD_TIME_MS,
   ) {
+    this.deadline = now() + timeMs;
     if (!Number.isInteger(n) || n < 1 || n > 64) throw new Error(`bug: ${n} inputs for a decision diagram`);
     const capacity = 1 << 14;
     this.vars = new Int32Array(capacity);
@@ -86,7 +98,8 @@ export class Dd {
       if (this.vars[id] === v && this.los[id] === lo && this.his[id] === hi) return id;
       h = (h + 1) & this.tableMask;
     }
-    if (this.size >= this.nodeLimit) throw new NodeLimitError(this.nodeLimit);
+    if (this.size >= this.nodeLimit) throw new DdTooLarge(`the decision diagrams passed ${this.nodeLimit.toLocaleString('en-US')} nodes`);
+    if ((this.size & 0xffff) === 0 && now() > this.deadline) throw new DdTooLarge(`the decision diagrams took more than ${this.timeMs / 1000} s`);
     if (this.size === this.vars.length) this.grow();
     const id = this.size++;
     this.vars[id] = v;

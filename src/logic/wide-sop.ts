@@ -1,6 +1,6 @@
 // Minimal AND/OR forms over up to 64 inputs: primes from the BDD, exact covering over pieces
 // of the on-set (cover.ts), a heuristic cover when the primes or the matrix are out of reach.
-import { FALSE, TRUE, type Dd, type Node } from './bdd.js';
+import { DdTooLarge, FALSE, TRUE, type Dd, type Node } from './bdd.js';
 import { exactCover, type CoverProblem } from './cover.js';
 import { heuristicCover } from './heuristic.js';
 import { now } from './primes.js';
@@ -10,6 +10,9 @@ import { compareWidePrinted, inputBit, wideContains, wideCube, wideLiterals, wid
 
 /** Beyond this many primes the cover is heuristic. */
 export const WIDE_PRIME_LIMIT = 20_000;
+
+/** A heuristic cover starts from at most this many disjoint cubes of the on-set. */
+export const WIDE_PATH_LIMIT = 100_000;
 
 export interface WideSopForm {
   readonly cubes: WideCube[];
@@ -144,7 +147,9 @@ export function wideExpandToPrime(dd: Dd, c: WideCube, allowed: Node): WideCube 
  */
 function wideExpandCover(fn: WideFunction, allowed: Node, deadline: number): WideCube[] {
   const { dd } = fn;
-  const paths = dd.pathCubes(fn.on).cubes.sort((a, b) => wideLiterals(a) - wideLiterals(b));
+  const found = dd.pathCubes(fn.on, WIDE_PATH_LIMIT);
+  if (!found.complete) throw new DdTooLarge(`the on-set has more than ${WIDE_PATH_LIMIT.toLocaleString('en-US')} disjoint cubes and its primes are out of reach`);
+  const paths = found.cubes.sort((a, b) => wideLiterals(a) - wideLiterals(b));
   const taken: WideCube[] = [];
   let covered: Node = FALSE;
   for (const c of paths) {

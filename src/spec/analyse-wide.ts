@@ -1,9 +1,11 @@
 // A spec table of more than 24 inputs (up to 64) analysed by the symbolic engine: per output
 // its forms, each proven on every combination from BDDs, and the same problems as analyse.ts.
-import { analyseWideOutput } from '../logic/wide-analysis.js';
+import { DdTooLarge } from '../logic/bdd.js';
+import { analyseWideOutput, type WideOutputForms } from '../logic/wide-analysis.js';
+import { toWide } from '../logic/wide-cube.js';
 import type { AnalyseOptions } from './analyse.js';
 import type { TableAnalysis } from './analysis-types.js';
-import { wideBuilt } from './read-wide.js';
+import { tooLarge, wideBuilt } from './read-wide.js';
 import type { Problem, SpecTable } from './types.js';
 import type { WideOutputAnalysis, WideSpec } from './wide-types.js';
 
@@ -15,15 +17,35 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   const total = wide.outputs.length + 1;
   let done = 0;
   const progress = (what: string): void => options.onProgress?.(++done, total, what);
-  const { dd, built } = wideBuilt(n, wide, table.rows);
+  const problems: Problem[] = [...table.problems];
+  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n } };
+  // Reading has already said so at the table.
+  if (wide.tooLarge !== undefined) return nothing;
+  let made: ReturnType<typeof wideBuilt>;
+  try {
+    made = wideBuilt(n, wide, table.rows);
+  } catch (e) {
+    if (!(e instanceof DdTooLarge)) throw e;
+    problems.push({ severity: 'error', sheet: table.sheet, cell: table.range, message: tooLarge(n, e) });
+    return nothing;
+  }
+  const { dd, built } = made;
   const gapSet = built[0]?.gaps ?? 0;
   const gaps = dd.pathCubes(gapSet, WIDE_GAP_CUBES_LISTED).cubes;
   const gapCount = dd.satCount(gapSet);
   progress('gaps');
-  const problems: Problem[] = [...table.problems];
-  const outputs = wide.outputs.map((o, j): WideOutputAnalysis => {
+  const outputs = wide.outputs.flatMap((o, j): WideOutputAnalysis[] => {
     const b = built[j]!;
-    const forms = analyseWideOutput(b.fn, o.safe, table.inputs, options.budgetMs === undefined ? {} : { budgetMs: options.budgetMs });
+    const cell = table.headerCells[n + j]!;
+    let forms: WideOutputForms;
+    try {
+      forms = analyseWideOutput(b.fn, o.safe, table.inputs, options.budgetMs === undefined ? {} : { budgetMs: options.budgetMs });
+    } catch (e) {
+      if (!(e instanceof DdTooLarge)) throw e;
+      problems.push({ severity: 'error', sheet: table.sheet, cell, message: `${o.signal.header}: no form derived. ${tooLarge(n, e)}` });
+      progress(`${o.signal.header}: too large`);
+      return [];
+    }
     const analysed: WideOutputAnalysis = {
       ...forms,
       signal: o.signal,
@@ -35,9 +57,9 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
         combinations: c.combinations,
       })),
     };
-    problems.push(...wideProblems(table, analysed, table.headerCells[n + j]!));
+    problems.push(...wideProblems(table, analysed, cell));
     progress(`${o.signal.header}: forms`);
-    return analysed;
+    return [analysed];
   });
   return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount } };
 }
@@ -62,4 +84,9 @@ function wideProblems(table: SpecTable, o: WideOutputAnalysis, cell: string): Pr
     out.push(at('info', `${o.signal.header} does not depend on ${names}${where}`));
   }
   return out;
+}
+
+/** The wide part of a table of at most 24 inputs, to run it through the symbolic engine too. */
+export function wideSpecOf(table: SpecTable): WideSpec {
+  return { cubes: table.rows.map((r) => toWide(r.cube)), outputs: table.outputs.map((o) => ({ signal: o.signal, safe: o.safe })) };
 }

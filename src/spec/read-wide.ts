@@ -1,6 +1,6 @@
 // Spec tables of more than 24 inputs (up to 64): the rows' cubes kept for the symbolic engine,
 // conflicts and gaps reported from BDDs as read-tables.ts does from bit sets.
-import { Dd } from '../logic/bdd.js';
+import { Dd, DdTooLarge } from '../logic/bdd.js';
 import type { OutputValue, SafeValue } from '../logic/boolfn.js';
 import type { Signal } from '../logic/signals.js';
 import { buildWide, overlapCube, type WideBuilt } from '../logic/wide-fn.js';
@@ -51,7 +51,15 @@ export function readWide(
   const spec: WideSpec = { cubes, outputs };
   if (rows.length === 0) return spec;
   const n = inputs.length;
-  const { dd, built } = wideBuilt(n, spec, rows);
+  let made: ReturnType<typeof wideBuilt>;
+  try {
+    made = wideBuilt(n, spec, rows);
+  } catch (e) {
+    if (!(e instanceof DdTooLarge)) throw e;
+    problems.push(problemAt('error', tableRange, tooLarge(n, e)));
+    return { ...spec, tooLarge: e.message };
+  }
+  const { dd, built } = made;
   built.forEach((b, j) => {
     const { signal, safe } = outputs[j]!;
     for (const c of b.conflicts) {
@@ -100,4 +108,12 @@ function describeWide(c: WideCube, inputs: readonly Signal[]): string {
     return c.mask & bit ? [`${s.header}=${c.bits & bit ? 1 : 0}`] : [];
   });
   return parts.length === 0 ? 'every combination' : parts.join(', ');
+}
+
+/** Why a table could not be checked: the symbolic engine's limit, with what to do. */
+export function tooLarge(n: number, e: DdTooLarge): string {
+  return (
+    `${n} inputs: this table is too large for the symbolic engine (${e.message}, inputs in column order), ` +
+    'so nothing about it was checked or proven; split the table, or order its columns so that inputs used together stand together'
+  );
 }

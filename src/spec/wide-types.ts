@@ -10,6 +10,8 @@ export interface WideSpec {
   readonly cubes: readonly WideCube[];
   /** The outputs with their safe values (`SpecTable.outputs` is empty for such a table). */
   readonly outputs: readonly { readonly signal: Signal; readonly safe: SafeValue }[];
+  /** Set when reading found the table too large for the symbolic engine (an error at the table says so). */
+  readonly tooLarge?: string;
 }
 
 export interface WideConflictReport {
