@@ -15,7 +15,7 @@ import { analyseWideOutput } from '../../src/logic/wide-analysis.js';
 import { WIDE_EXHAUSTIVE_POLARITY_INPUTS, wideAnf } from '../../src/logic/wide-anf.js';
 import { inputBit, toNarrow, toWide, wideCube } from '../../src/logic/wide-cube.js';
 import { buildWide, type WideRow } from '../../src/logic/wide-fn.js';
-import { exprToBdd, proveWide } from '../../src/logic/wide-proof.js';
+import { proveWide } from '../../src/logic/wide-proof.js';
 
 const signals = (n: number) => Array.from({ length: n }, (_, i) => ({ header: `In ${i + 1}`, identifier: `In_${i + 1}` }));
 
