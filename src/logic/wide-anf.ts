@@ -7,7 +7,7 @@ import { inputBit } from './wide-cube.js';
 /** XOR forms list their terms only up to this many; beyond, only the count is given. */
 export const XOR_PRINT_LIMIT = 64;
 
-/** Best-polarity search tries all 2^n polarities up to this many inputs. */
+/** Best-polarity search tries every polarity when the function depends on at most this many inputs. */
 export const WIDE_EXHAUSTIVE_POLARITY_INPUTS = 10;
 
 /** Time a polarity search may take beyond its first candidates (ms). */
@@ -52,7 +52,8 @@ interface Cost {
 
 /**
  * The fixed-polarity form with fewest terms, then fewest complemented literals, then the
- * lowest polarity. Exhaustive up to WIDE_EXHAUSTIVE_POLARITY_INPUTS; above, a search from
+ * lowest polarity. Exhaustive over the inputs the function depends on, up to
+ * WIDE_EXHAUSTIVE_POLARITY_INPUTS of them (2^10 ANFs); above, a search from
  * polarity 0 and from every input complemented (an OR of many inputs is TRUE XOR the AND of
  * their complements there), flipping single inputs while the cost falls, within the budget.
  */
@@ -65,12 +66,13 @@ export function wideBestPolarity(dd: Dd, f: Node, budgetMs = POLARITY_BUDGET_MS)
   };
   const better = (a: Cost, b: Cost): boolean =>
     a.terms < b.terms || (a.terms === b.terms && (a.complemented < b.complemented || (a.complemented === b.complemented && a.polarity < b.polarity)));
-  const exhaustive = n <= WIDE_EXHAUSTIVE_POLARITY_INPUTS;
+  let used = 0;
+  for (let m = support; m !== 0n; m &= m - 1n) used++;
+  const exhaustive = used <= WIDE_EXHAUSTIVE_POLARITY_INPUTS;
   let best = cost(0n);
   if (exhaustive) {
-    for (let p = 1n; p < 1n << BigInt(n); p++) {
-      // Inputs the function does not depend on never change the terms: skip those polarities.
-      if ((p & ~support) !== 0n) continue;
+    // Inputs the function does not depend on never change the terms: only subsets of the support.
+    for (let p = (0n - support) & support; p !== 0n; p = (p - support) & support) {
       const c = cost(p);
       if (better(c, best)) best = c;
     }
