@@ -36,7 +36,7 @@ export interface Verdict {
 
 export function verdictOf(analyses: readonly TableAnalysis[], otherProblems: readonly Problem[]): Verdict {
   const problems = [...otherProblems, ...analyses.flatMap((a) => a.problems)];
-  const forms = analyses.flatMap((a) => a.outputs.flatMap((o) => [o.andOr.proof, o.xor.proof, o.bestXor.proof]));
+  const forms = analyses.flatMap((a) => [...a.outputs, ...(a.wide?.outputs ?? [])].flatMap((o) => [o.andOr.proof, o.xor.proof, o.bestXor.proof]));
   return {
     errors: problems.filter((p) => p.severity === 'error').length,
     failedForms: forms.filter((p) => p.mismatchCount > 0).length,

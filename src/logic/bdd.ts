@@ -287,28 +287,25 @@ export class Dd {
 
   /** The cube lies wholly inside the function. */
   implies(c: WideCube, f: Node): boolean {
-    const memo = new Map<Node, boolean>();
-    const walk = (g: Node): boolean => {
-      if (g < 2) return g === TRUE;
-      const known = memo.get(g);
-      if (known !== undefined) return known;
-      const bit = inputBit(this.n, this.vars[g]!);
-      const r = c.mask & bit ? walk(c.bits & bit ? this.his[g]! : this.los[g]!) : walk(this.los[g]!) && walk(this.his[g]!);
-      memo.set(g, r);
-      return r;
-    };
-    return walk(f);
+    return this.underCube(c, f, true);
   }
 
   /** The cube and the function share a combination. */
   meets(c: WideCube, f: Node): boolean {
+    return this.underCube(c, f, false);
+  }
+
+  /** Inside the cube, f is TRUE everywhere (`all`) or somewhere (not `all`). */
+  private underCube(c: WideCube, f: Node, all: boolean): boolean {
     const memo = new Map<Node, boolean>();
     const walk = (g: Node): boolean => {
       if (g < 2) return g === TRUE;
       const known = memo.get(g);
       if (known !== undefined) return known;
       const bit = inputBit(this.n, this.vars[g]!);
-      const r = c.mask & bit ? walk(c.bits & bit ? this.his[g]! : this.los[g]!) : walk(this.los[g]!) || walk(this.his[g]!);
+      let r: boolean;
+      if (c.mask & bit) r = walk(c.bits & bit ? this.his[g]! : this.los[g]!);
+      else r = all ? walk(this.los[g]!) && walk(this.his[g]!) : walk(this.los[g]!) || walk(this.his[g]!);
       memo.set(g, r);
       return r;
     };

@@ -93,8 +93,8 @@ export function readWide(
     problemAt(
       'info',
       tableRange,
-      `${n} inputs: analysed by the symbolic engine (up to 64 inputs); the forms and proofs are in the JSON ` +
-        `document (--json); the results sheet, test steps, Structured Text and PLCopen export and verify take at most 24 inputs`,
+      `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms and proofs are in the report and ` +
+        `the JSON document; the results sheet, test steps, Structured Text and PLCopen export and verify take at most 24 inputs`,
     ),
   );
   return spec;
