@@ -4,7 +4,6 @@
 // during the run (the process's, so it includes what earlier runs left behind).
 import type { CellValue } from '../src/spec/types.js';
 import { analyseTable } from '../src/spec/analyse.js';
-import { analyseWide, wideSpecOf } from '../src/spec/analyse-wide.js';
 import { analysisJson } from '../src/spec/analysis-json.js';
 import type { TableAnalysis } from '../src/spec/analysis-types.js';
 import { readSpecTables } from '../src/spec/read-tables.js';
@@ -87,7 +86,7 @@ function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic'): { ms: numb
   const t0 = now();
   const read = readSpecTables({ sheet: 'Bench', origin: 'A1', cells });
   const table = read.tables[0]!;
-  const a = engine === 'symbolic' && !table.wide ? analyseWide(table, wideSpecOf(table)) : analyseTable(table);
+  const a = analyseTable(table, { engine });
   JSON.stringify(analysisJson(a));
   const ms = now() - t0;
   sample();

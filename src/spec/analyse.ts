@@ -16,12 +16,15 @@ import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } fro
 import type { OutputSpec, Problem, SpecTable } from './types.js';
 import { gapCubes } from './uncovered.js';
 import { analyseWide } from './analyse-wide.js';
+import { SYMBOLIC_FROM_INPUTS, analyseSymbolically } from './analyse-symbolic.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */
   readonly budgetMs?: number;
   /** Called after each step: `what` says which ("Motor_Permit: XOR form"). */
   readonly onProgress?: (done: number, total: number, what: string) => void;
+  /** Up to 24 inputs, which engine: by default the symbolic one from SYMBOLIC_FROM_INPUTS on (benches and tests compare). */
+  readonly engine?: 'bit-set' | 'symbolic';
 }
 
 /** Steps per output reported to onProgress; one more for the gaps of the table. */
@@ -29,6 +32,9 @@ const STEPS_PER_OUTPUT = 4;
 
 export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): TableAnalysis {
   if (table.wide) return analyseWide(table, table.wide, options);
+  const engine = options.engine ?? (table.inputs.length >= SYMBOLIC_FROM_INPUTS ? 'symbolic' : 'bit-set');
+  const symbolic = engine === 'symbolic' ? analyseSymbolically(table, options) : null;
+  if (symbolic) return symbolic;
   const n = table.inputs.length;
   const total = table.outputs.length * STEPS_PER_OUTPUT + 1;
   let done = 0;
@@ -137,7 +143,7 @@ function formProof(p: FormProof): FormProof {
 }
 
 /** What the analysis adds to the table's problems for one output, pinned to its header cell. */
-function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
+export function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
   const at = (severity: Problem['severity'], message: string): Problem => ({ severity, sheet: table.sheet, cell, message });
   const out: Problem[] = [];
   const forms: [string, { proof: FormProof }][] = [
