@@ -15,7 +15,7 @@ import type { WideFunction } from '../logic/wide-fn.js';
 import { exprToBdd, proveWide, type WideProof } from '../logic/wide-proof.js';
 import type { Signal } from '../logic/signals.js';
 import { outputProblems, type AnalyseOptions } from './analyse.js';
-import { wideSpecOf } from './analyse-wide.js';
+import { conflictReports, wideSpecOf } from './analyse-wide.js';
 import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import { wideBuilt } from './read-wide.js';
 import type { Problem, SpecTable } from './types.js';
@@ -67,12 +67,7 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
       unusedInputs: forms.unusedInputs,
       gaps,
       gapCount: count(gapSet),
-      conflicts: output.built.conflicts.map((c) => ({
-        rowCellsA: table.rows[c.rowA]!.cells,
-        rowCellsB: table.rows[c.rowB]!.cells,
-        example: c.example,
-        combinations: c.combinations,
-      })),
+      conflicts: conflictReports(table, output.built.conflicts),
       dontCareCount: count(fn.dc),
       steps: uniqueCauseSteps(cubes, fn, table.inputs),
     };

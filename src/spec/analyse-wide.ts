@@ -50,12 +50,7 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
       ...forms,
       signal: o.signal,
       safe: o.safe,
-      conflicts: b.conflicts.map((c) => ({
-        rowCellsA: table.rows[c.rowA]!.cells,
-        rowCellsB: table.rows[c.rowB]!.cells,
-        example: c.example,
-        combinations: c.combinations,
-      })),
+      conflicts: conflictReports(table, b.conflicts),
     };
     problems.push(...wideProblems(table, analysed, cell));
     progress(`${o.signal.header}: forms`);
@@ -89,4 +84,12 @@ function wideProblems(table: SpecTable, o: WideOutputAnalysis, cell: string): Pr
 /** The wide part of a table of at most 24 inputs, to run it through the symbolic engine too. */
 export function wideSpecOf(table: SpecTable): WideSpec {
   return { cubes: table.rows.map((r) => toWide(r.cube)), outputs: table.outputs.map((o) => ({ signal: o.signal, safe: o.safe })) };
+}
+
+/** The rows of each conflict named by their cells (both engines' conflicts). */
+export function conflictReports<E, K>(
+  table: SpecTable,
+  conflicts: readonly { rowA: number; rowB: number; example: E; combinations: K }[],
+): { rowCellsA: string; rowCellsB: string; example: E; combinations: K }[] {
+  return conflicts.map((c) => ({ rowCellsA: table.rows[c.rowA]!.cells, rowCellsB: table.rows[c.rowB]!.cells, example: c.example, combinations: c.combinations }));
 }

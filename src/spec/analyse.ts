@@ -15,7 +15,7 @@ import { uniqueCauseSteps } from '../logic/steps.js';
 import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import type { OutputSpec, Problem, SpecTable } from './types.js';
 import { gapCubes } from './uncovered.js';
-import { analyseWide } from './analyse-wide.js';
+import { analyseWide, conflictReports } from './analyse-wide.js';
 import { SYMBOLIC_FROM_INPUTS, analyseSymbolically } from './analyse-symbolic.js';
 
 export interface AnalyseOptions {
@@ -105,12 +105,7 @@ function analyseOutput(
     unusedInputs: support.flatMap((used, i) => (used ? [] : [i])),
     gaps,
     gapCount,
-    conflicts: output.built.conflicts.map((c) => ({
-      rowCellsA: table.rows[c.rowA]!.cells,
-      rowCellsB: table.rows[c.rowB]!.cells,
-      example: c.example,
-      combinations: c.combinations,
-    })),
+    conflicts: conflictReports(table, output.built.conflicts),
     dontCareCount: count(fn.dc),
     steps,
   };
