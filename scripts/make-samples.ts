@@ -6,7 +6,8 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import XLSX from 'xlsx';
 import { sheetFromCells } from '../src/hosts/xlsx-write.js';
-import type { CellValue } from '../src/spec/types.js';
+import type { CellValue, Grid } from '../src/spec/types.js';
+import { burnerWorkbook, conveyorWorkbook, pressWorkbook, type LayoutSheet, type LayoutWorkbook } from '../sample-workbooks/source/layouts.js';
 import {
   capperCell,
   capperCellBroken,
@@ -19,6 +20,40 @@ import {
 
 export const SAMPLE_DIR = join(dirname(fileURLToPath(import.meta.url)), '..', 'sample-workbooks');
 export const SAMPLE_WORKBOOKS: readonly SampleWorkbook[] = [capperCell, capperCellBroken];
+export const LAYOUT_WORKBOOKS: readonly LayoutWorkbook[] = [pressWorkbook, conveyorWorkbook, burnerWorkbook];
+
+/** A sheet of the layout samples as rows of cells: '|' separates cells, 1 and 0 are numbers, the rest text. */
+export function layoutCells(sheet: LayoutSheet): CellValue[][] {
+  const rows = sheet.rows.map((line) =>
+    line === '' ? [] : line.split('|').map((t): CellValue => {
+      const text = t.trim();
+      return text === '' ? null : text === '1' || text === '0' ? Number(text) : text;
+    }),
+  );
+  const width = Math.max(...rows.map((r) => r.length));
+  return rows.map((r) => [...r, ...Array.from({ length: width - r.length }, () => null)]);
+}
+
+/** The sheet as the reader gets it from a host: cells from A1 and the merged areas. */
+export function layoutGrid(sheet: LayoutSheet): Grid {
+  return { sheet: sheet.name, origin: 'A1', cells: layoutCells(sheet), merges: sheet.merges };
+}
+
+export function layoutWorkbook(sample: LayoutWorkbook): XLSX.WorkBook {
+  return workbookOf(sample.sheets.map((sheet) => ({ name: sheet.name, cells: layoutCells(sheet), merges: sheet.merges })));
+}
+
+/** A workbook of sheets given as cells from A1 (and merged areas), columns 20 characters wide. */
+function workbookOf(sheets: readonly { name: string; cells: CellValue[][]; merges?: readonly string[] }[]): XLSX.WorkBook {
+  const book = XLSX.utils.book_new();
+  for (const sheet of sheets) {
+    const ws = sheetFromCells(sheet.cells);
+    ws['!cols'] = sheet.cells[0]!.map(() => ({ wch: 20 }));
+    if (sheet.merges) ws['!merges'] = sheet.merges.map((m) => XLSX.utils.decode_range(m));
+    XLSX.utils.book_append_sheet(book, ws, sheet.name);
+  }
+  return book;
+}
 
 /** One row's values: inputs then outputs, as the characters written in the source. */
 function splitRow(row: string, table: SampleTable): { inputs: string[]; outputs: string[] } {
@@ -79,14 +114,7 @@ export function sheetCells(sheet: SampleSheet): CellValue[][] {
 }
 
 export function sampleWorkbook(sample: SampleWorkbook): XLSX.WorkBook {
-  const book = XLSX.utils.book_new();
-  for (const sheet of sample.sheets) {
-    const cells = sheetCells(sheet);
-    const ws = sheetFromCells(cells);
-    ws['!cols'] = cells[0]!.map(() => ({ wch: 20 }));
-    XLSX.utils.book_append_sheet(book, ws, sheet.name);
-  }
-  return book;
+  return workbookOf(sample.sheets.map((sheet) => ({ name: sheet.name, cells: sheetCells(sheet) })));
 }
 
 /** The CSV sample: semicolons, CRLF line ends, UTF-8 with a byte-order mark (as Excel saves it). */
@@ -99,6 +127,11 @@ export function sampleCsv(): string {
 function main(): void {
   for (const sample of SAMPLE_WORKBOOKS) {
     const data = XLSX.write(sampleWorkbook(sample), { type: 'buffer', bookType: 'xlsx', compression: true }) as Buffer;
+    writeFileSync(join(SAMPLE_DIR, sample.file), data);
+    console.log(`wrote sample-workbooks/${sample.file}`);
+  }
+  for (const sample of LAYOUT_WORKBOOKS) {
+    const data = XLSX.write(layoutWorkbook(sample), { type: 'buffer', bookType: 'xlsx', compression: true }) as Buffer;
     writeFileSync(join(SAMPLE_DIR, sample.file), data);
     console.log(`wrote sample-workbooks/${sample.file}`);
   }

@@ -6,18 +6,13 @@ import type { BrowserFileHost } from '../src/hosts/browser-file-host.js';
 import type { ExcelHost, NamedTable } from '../src/hosts/excel-host.js';
 import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
 import { CAUTION_LINES } from '../src/report/caution.js';
-import { exportPlcopen } from '../src/report/plcopen-export.js';
-import { resultsSheet } from '../src/report/results-sheet.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
-import { exportSt } from '../src/report/st-export.js';
-import { stepsCsv, stepsSheet } from '../src/report/test-steps.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
-import type { Grid, SpecOptions } from '../src/spec/types.js';
+import { readGrids, writeSheets, type HandOverKind, type WorkbookChoice, type WorkbookView } from '../src/workflow/index.js';
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
-import type { Analysed } from './engine-protocol.js';
 import { Cancelled, Engine } from './engine.js';
-import { download, safeFileName } from './files.js';
-import { ProblemList, TableView, type SelectCell } from './results.js';
+import { download } from './files.js';
+import { ProblemList, SpecTableView, type SelectCell } from './results.js';
 
 export type PaneMode =
   | { readonly kind: 'excel'; readonly host: ExcelHost }
@@ -26,9 +21,9 @@ export type PaneMode =
 
 type Busy = { what: string; done?: number; total?: number; cancellable: boolean };
 
+/** Where to read (the reading options are added when it is read). */
 interface Reading {
-  readonly grid: Grid;
-  readonly range?: string;
+  readonly choice: Pick<WorkbookChoice, 'sheet' | 'range'>;
   readonly label: string;
 }
 
@@ -94,10 +89,8 @@ function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Pr
   useEffect(() => void host.listTables().then(setTables), [host]);
   const selection = async (): Promise<Reading> => {
     const sel = await host.selection();
-    if (sel.cells <= 1) {
-      return { grid: await host.readGrid(sel.sheet), label: `sheet ${sel.sheet} (one cell was selected, so the whole sheet)` };
-    }
-    return { grid: await host.readGrid(sel.sheet, sel.range), label: `selection ${qualifiedAddress(sel.sheet, sel.range)}` };
+    if (sel.cells <= 1) return { choice: { sheet: sel.sheet }, label: `sheet ${sel.sheet} (one cell was selected, so the whole sheet)` };
+    return { choice: { sheet: sel.sheet, range: sel.range }, label: `selection ${qualifiedAddress(sel.sheet, sel.range)}` };
   };
   return (
     <section class="card" aria-labelledby="source-title">
@@ -124,7 +117,7 @@ function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Pr
             disabled={busy}
             onClick={() => {
               const t = tables[table]!;
-              read(async () => ({ grid: await host.readGrid(t.sheet, t.range), label: `table ${t.name}` }));
+              read(async () => ({ choice: { sheet: t.sheet, range: t.range }, label: `table ${t.name}` }));
             }}
           >
             Read table
@@ -133,7 +126,7 @@ function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Pr
       )}
       <div class="row">
         <SheetSelect sheets={sheets} sheet={sheet} setSheet={setSheet} />
-        <button type="button" disabled={busy || !sheet} onClick={() => read(async () => ({ grid: await host.readGrid(sheet), label: `sheet ${sheet}` }))}>
+        <button type="button" disabled={busy || !sheet} onClick={() => read(async () => ({ choice: { sheet }, label: `sheet ${sheet}` }))}>
           Read whole sheet
         </button>
       </div>
@@ -203,7 +196,7 @@ function FileSource({
             disabled={busy || !sheet}
             onClick={() => {
               const r = range.trim();
-              read(async () => ({ grid: await file.readGrid(sheet), label: r ? `${qualifiedAddress(sheet, r)}` : `sheet ${sheet}`, ...(r ? { range: r } : {}) }));
+              read(async () => ({ choice: { sheet, ...(r ? { range: r } : {}) }, label: r ? `${qualifiedAddress(sheet, r)}` : `sheet ${sheet}` }));
             }}
           >
             Find and analyse spec tables
@@ -219,60 +212,62 @@ function wroteText(reports: WriteReport[], where: string): string {
   return `Wrote ${reports.map((r) => `sheet "${r.sheet}" (${r.range}, ${r.cells} cells)`).join(' and ')} ${where}. No existing cell was changed.`;
 }
 
-/** Writes a new sheet where the pane writes: the workbook in Excel, the results workbook on the standalone page. */
-function sheetWriter(mode: PaneMode, file: BrowserFileHost | undefined): WriteSheet | undefined {
-  if (mode.kind === 'excel') return async (block: SheetBlock) => wroteText([await mode.host.writeSheet(block)], 'to this workbook');
-  if (file) {
-    return async (block: SheetBlock) =>
-      wroteText([await file.writeSheet(block)], `to the results workbook of ${file.fileName} (Download results workbook saves it)`);
-  }
+/** Where the pane writes new sheets: the workbook in Excel, the results workbook on the standalone page. */
+function sheetTarget(mode: PaneMode, file: BrowserFileHost | undefined): { host: WorkbookHost; where: string } | undefined {
+  if (mode.kind === 'excel') return { host: mode.host, where: 'to this workbook' };
+  if (file) return { host: file, where: `to the results workbook of ${file.fileName} (Download results workbook saves it)` };
   return undefined;
 }
 
-function HandOver({
-  analysed,
-  current,
-  sourceName,
-  mode,
-  file,
-}: {
-  analysed: Analysed;
-  current: number;
-  sourceName: string;
-  mode: PaneMode;
-  file: BrowserFileHost | undefined;
-}) {
+function sheetWriter(mode: PaneMode, file: BrowserFileHost | undefined): WriteSheet | undefined {
+  const target = sheetTarget(mode, file);
+  return target && (async (block: SheetBlock) => wroteText(await writeSheets(target.host, [block]), target.where));
+}
+
+const HAND_OVER: readonly { kind: HandOverKind; label: string }[] = [
+  { kind: 'st', label: 'Structured Text (.st)' },
+  { kind: 'plcopen', label: 'PLCopen XML (.xml)' },
+  { kind: 'steps', label: 'Test steps (.csv)' },
+];
+
+/**
+ * The results sheets and the hand-over pack, as the workflow allows: the same sheets in Excel
+ * and in the results workbook of the page, the files only when every table is cleared.
+ */
+function HandOver({ view, engine, mode, file }: { view: WorkbookView; engine: Engine; mode: PaneMode; file: BrowserFileHost | undefined }) {
   const [message, setMessage] = useState<string>();
   const [error, setError] = useState<string>();
-  const [written, setWritten] = useState<Set<number>>(new Set());
-  const analysis = analysed.analyses[current]!;
-  const base = safeFileName(`${analysis.table.sheet}-${analysis.table.range}`);
-  const source = { workbook: sourceName };
-  const say = (reports: WriteReport[], where: string) => setMessage(wroteText(reports, where));
+  // The results sheets of this reading go into the page's results workbook once.
+  const [queued, setQueued] = useState<WorkbookView>();
+  const target = sheetTarget(mode, file);
   const guard = async (f: () => Promise<void>) => {
     setError(undefined);
     setMessage(undefined);
     try {
       await f();
     } catch (e) {
-      setError((e as Error).message);
+      setError(e instanceof Cancelled ? 'Stopped. Nothing was written.' : (e as Error).message);
     }
   };
+  const writeResults = async (): Promise<WriteReport[]> => {
+    const blocks = await engine.sheets();
+    if (!blocks.ok) throw new Error(`No results written: ${blocks.error}.`);
+    return writeSheets(target!.host, blocks.value);
+  };
+  const handOver = (kind: HandOverKind) =>
+    guard(async () => {
+      const files = await engine.handOver({ files: { kinds: [kind] } });
+      if (!files.ok) throw new Error(`Nothing handed over: ${files.error}.`);
+      for (const f of files.value) download(f.name, f.mime, f.text);
+      setMessage(`Downloaded ${files.value.map((f) => f.name).join(', ')}.`);
+    });
   return (
     <section class="card" aria-labelledby="handover-title">
       <h2 id="handover-title">Hand-over</h2>
-      {mode.kind === 'excel' && (
+      {mode.kind === 'excel' && target && (
         <div class="row">
-          <button
-            type="button"
-            onClick={() =>
-              guard(async () => say([await mode.host.writeSheet(resultsSheet(analysis, { source: sourceName }))], 'to this workbook'))
-            }
-          >
-            Write results sheet
-          </button>
-          <button type="button" onClick={() => guard(async () => say([await mode.host.writeSheet(stepsSheet(analysis))], 'to this workbook'))}>
-            Write test steps sheet
+          <button type="button" disabled={!view.resultsWrite.allowed} onClick={() => guard(async () => setMessage(wroteText(await writeResults(), target.where)))}>
+            Write results and test records
           </button>
         </div>
       )}
@@ -280,22 +275,17 @@ function HandOver({
         <div class="row">
           <button
             type="button"
+            disabled={!view.resultsWrite.allowed}
             onClick={() =>
               guard(async () => {
-                const reports: WriteReport[] = [];
-                const done = new Set(written);
-                for (const [i, a] of analysed.analyses.entries()) {
-                  if (done.has(i)) continue;
-                  reports.push(await file.writeSheet(resultsSheet(a, { source: sourceName })));
-                  done.add(i);
-                }
-                setWritten(done);
+                const added = queued === view ? [] : await writeResults();
+                setQueued(view);
                 const bytes = await file.resultsWorkbook();
                 if (!bytes.ok) throw new Error(bytes.error.message);
                 download(file.resultsFileName(), 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', bytes.value);
                 setMessage(
                   `Downloaded ${file.resultsFileName()}: the sheets of ${file.fileName} followed by ${file.queuedSheets().map((s) => `"${s}"`).join(', ')}.` +
-                    (reports.length === 0 ? '' : ` Added ${reports.length} results sheet${reports.length === 1 ? '' : 's'} this time.`),
+                    (added.length === 0 ? '' : ` Added ${added.length} sheet${added.length === 1 ? '' : 's'} this time.`),
                 );
               })
             }
@@ -305,21 +295,19 @@ function HandOver({
         </div>
       )}
       <div class="row wrap">
-        <button type="button" class="secondary" onClick={() => download('interlocks.st', 'text/plain', exportSt(analysed.analyses, { source }))}>
-          Structured Text (.st)
-        </button>
-        <button
-          type="button"
-          class="secondary"
-          onClick={() => download('interlocks-plcopen.xml', 'application/xml', exportPlcopen(analysed.analyses, { source }))}
-        >
-          PLCopen XML (.xml)
-        </button>
-        <button type="button" class="secondary" onClick={() => download(`${base}-test-steps.csv`, 'text/csv', stepsCsv(analysis))}>
-          Test steps (.csv)
-        </button>
+        {HAND_OVER.map(({ kind, label }) => (
+          <button key={kind} type="button" class="secondary" disabled={!view.handOver.allowed} onClick={() => void handOver(kind)}>
+            {label}
+          </button>
+        ))}
       </div>
-      <p class="meta">Ladder pictures are under each output. Every file carries the caution below.</p>
+      {view.handOver.allowed ? (
+        <p class="meta">Ladder pictures are under each output. Every file carries the caution below.</p>
+      ) : (
+        <p class="meta" role="status">
+          No hand-over: {view.handOver.reason}.
+        </p>
+      )}
       <Outcome message={message} error={error} />
     </section>
   );
@@ -331,7 +319,7 @@ export function App({ mode }: { mode: PaneMode }) {
   const [error, setError] = useState<string>();
   const [file, setFile] = useState<BrowserFileHost>();
   const [reading, setReading] = useState<Reading>();
-  const [analysed, setAnalysed] = useState<Analysed>();
+  const [analysed, setAnalysed] = useState<WorkbookView>();
   const [current, setCurrent] = useState(0);
   const [xAsDontCare, setX] = useState(false);
 
@@ -350,14 +338,23 @@ export function App({ mode }: { mode: PaneMode }) {
   const selectCell: SelectCell | undefined =
     mode.kind === 'excel' ? (sheet, cell) => void mode.host.selectCell(sheet, cell).catch((e: Error) => setError(e.message)) : undefined;
 
+  const host: WorkbookHost | undefined = mode.kind === 'excel' ? mode.host : file;
+  const sourceName = mode.kind === 'file' ? (file?.fileName ?? 'workbook') : 'the Excel workbook';
+
+  /** The workflow: the cells are read here, where the workbook is; the worker examines them. */
   const analyse = async (r: Reading) => {
-    const options: SpecOptions = { xReading: xAsDontCare ? 'dont-care' : 'none', ...(r.range ? { range: r.range } : {}) };
-    setBusy({ what: `Analysing ${r.label}`, cancellable: true });
+    if (!host) return;
+    const choice: WorkbookChoice = { ...r.choice, xReading: xAsDontCare ? 'dont-care' : 'none' };
+    setBusy({ what: `Reading ${r.label}`, cancellable: false });
     try {
-      const result = await engine.analyse({ kind: 'analyse', grid: r.grid, options }, (done, total, what) =>
+      const grids = await readGrids(host, choice, sourceName);
+      if (!grids.ok) throw new Error(grids.error.message);
+      setBusy({ what: `Analysing ${r.label}`, cancellable: true });
+      const result = await engine.examine({ grids: grids.value, choice, source: sourceName }, (done, total, what) =>
         setBusy({ what: `Analysing ${r.label}: ${what}`, done, total, cancellable: true }),
       );
-      setAnalysed(result);
+      if (!result.ok) throw new Error(result.error.message);
+      setAnalysed(result.value);
       setCurrent(0);
     } catch (e) {
       setError(e instanceof Cancelled ? 'Analysis stopped. Nothing was changed.' : (e as Error).message);
@@ -392,8 +389,7 @@ export function App({ mode }: { mode: PaneMode }) {
       .finally(() => setBusy(undefined));
   };
 
-  const tables = analysed?.analyses ?? [];
-  const sourceName = mode.kind === 'file' ? (file?.fileName ?? 'workbook') : 'the Excel workbook';
+  const tables = analysed?.tables ?? [];
   return (
     <div class="pane">
       <Header subtitle={mode.kind === 'excel' ? 'in Excel' : 'standalone page: no Excel, nothing leaves this computer'} />
@@ -439,9 +435,9 @@ export function App({ mode }: { mode: PaneMode }) {
               <label class="pick">
                 Spec table
                 <select value={current} onChange={(e) => setCurrent(Number((e.currentTarget as HTMLSelectElement).value))}>
-                  {tables.map((a, i) => (
+                  {tables.map((t, i) => (
                     <option key={i} value={i}>
-                      {qualifiedAddress(a.table.sheet, a.table.range)}: {a.outputs.map((o) => o.signal.identifier).join(', ')}
+                      {qualifiedAddress(t.sheet, t.range)}: {t.outputs.map((o) => o.signal.identifier).join(', ')}
                     </option>
                   ))}
                 </select>
@@ -449,10 +445,10 @@ export function App({ mode }: { mode: PaneMode }) {
             )}
             {tables[current] && (
               <>
-                <TableView analysis={tables[current]} selectCell={selectCell} />
-                <ExpressionCheck key={current} analysis={tables[current]} engine={engine} write={sheetWriter(mode, file)} />
-                {mode.kind === 'file' && <FileCheck analyses={tables} engine={engine} write={sheetWriter(mode, file)} />}
-                <HandOver analysed={analysed} current={current} sourceName={sourceName} mode={mode} file={file} />
+                <SpecTableView table={tables[current]} handOver={analysed.handOver} selectCell={selectCell} />
+                {tables[current].analysed && <ExpressionCheck key={current} table={tables[current]} engine={engine} write={sheetWriter(mode, file)} />}
+                {mode.kind === 'file' && <FileCheck engine={engine} write={sheetWriter(mode, file)} />}
+                <HandOver view={analysed} engine={engine} mode={mode} file={file} />
               </>
             )}
           </>

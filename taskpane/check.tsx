@@ -3,13 +3,12 @@
 import { useState } from 'preact/hooks';
 import type { Monomial } from '../src/logic/anf.js';
 import type { ImplCheck } from '../src/logic/implcheck.js';
-import type { EngineError, Result } from '../src/logic/result.js';
-import type { VerifyReport } from '../src/impl/verify.js';
+import type { EngineError } from '../src/logic/result.js';
 import { verifyReportText } from '../src/impl/verify-report.js';
 import { printMonomial } from '../src/impl/verify.js';
-import { checkSheet } from '../src/report/check-sheet.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
-import type { TableAnalysis } from '../src/spec/analysis-types.js';
+import { implementationWord, type TableView } from '../src/workflow/index.js';
+import type { Answers } from './engine-protocol.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CombinationTable } from './results.js';
 
@@ -19,7 +18,7 @@ const count = (n: number) => n.toLocaleString('en');
 export type WriteSheet = (block: SheetBlock) => Promise<string>;
 
 /** The button that writes a check to a new sheet, once per check (a new check gives a new button). */
-function WriteCheckSheet({ write, sheet, label }: { write: WriteSheet; sheet: () => SheetBlock; label: string }) {
+function WriteCheckSheet({ write, sheet, label }: { write: WriteSheet; sheet: SheetBlock; label: string }) {
   const [message, setMessage] = useState<string>();
   const [error, setError] = useState<string>();
   const [busy, setBusy] = useState(false);
@@ -27,7 +26,7 @@ function WriteCheckSheet({ write, sheet, label }: { write: WriteSheet; sheet: ()
     setBusy(true);
     setError(undefined);
     try {
-      setMessage(await write(sheet()));
+      setMessage(await write(sheet));
     } catch (e) {
       setError((e as Error).message);
     } finally {
@@ -79,8 +78,8 @@ function ParseError({ error, text }: { error: EngineError; text: string }) {
   );
 }
 
-function CheckResult({ result, analysis }: { result: ImplCheck; analysis: TableAnalysis }) {
-  const inputs = analysis.inputs;
+function CheckResult({ result, table }: { result: ImplCheck; table: TableView }) {
+  const inputs = table.inputs;
   if (result.equal) {
     return (
       <p class="verdict equal" role="status">
@@ -110,10 +109,10 @@ function CheckResult({ result, analysis }: { result: ImplCheck; analysis: TableA
   );
 }
 
-export function ExpressionCheck({ analysis, engine, write }: { analysis: TableAnalysis; engine: Engine; write: WriteSheet | undefined }) {
+export function ExpressionCheck({ table, engine, write }: { table: TableView; engine: Engine; write: WriteSheet | undefined }) {
   const [output, setOutput] = useState(0);
   const [text, setText] = useState('');
-  const [answer, setAnswer] = useState<{ run: number; text: string; output: number; result: Result<ImplCheck> }>();
+  const [answer, setAnswer] = useState<{ run: number; text: string; result: Answers['check'] }>();
   const [busy, setBusy] = useState(false);
   const [failure, setFailure] = useState<string>();
   const run = async (e: Event) => {
@@ -121,8 +120,8 @@ export function ExpressionCheck({ analysis, engine, write }: { analysis: TableAn
     setBusy(true);
     setFailure(undefined);
     try {
-      const result = await engine.check({ kind: 'check', table: analysis.table, output, text });
-      setAnswer({ run: (answer?.run ?? 0) + 1, text, output, result });
+      const result = await engine.check({ table: table.id, output, text });
+      setAnswer({ run: (answer?.run ?? 0) + 1, text, result });
     } catch (err) {
       setFailure(err instanceof Cancelled ? 'The check was stopped.' : String((err as Error).message));
     } finally {
@@ -141,7 +140,7 @@ export function ExpressionCheck({ analysis, engine, write }: { analysis: TableAn
         <label>
           Output
           <select value={output} onChange={(e) => setOutput(Number((e.currentTarget as HTMLSelectElement).value))}>
-            {analysis.outputs.map((o, i) => (
+            {table.outputs.map((o, i) => (
               <option key={i} value={i}>
                 {o.signal.identifier}
               </option>
@@ -157,22 +156,22 @@ export function ExpressionCheck({ analysis, engine, write }: { analysis: TableAn
         </button>
       </form>
       {failure && <p class="error">{failure}</p>}
-      {answer && (answer.result.ok ? <CheckResult result={answer.result.value} analysis={analysis} /> : <ParseError error={answer.result.error} text={answer.text} />)}
+      {answer && (answer.result.ok ? <CheckResult result={answer.result.value.check} table={table} /> : <ParseError error={answer.result.error} text={answer.text} />)}
       {write && answer && checked && (
         <WriteCheckSheet
           key={answer.run}
           write={write}
-          label={checked.equal ? 'Write the verdict to a new sheet' : 'Write counterexamples to a new sheet'}
-          sheet={() => checkSheet({ kind: 'expression', table: analysis.table, output: answer.output, expression: answer.text, check: checked })}
+          label={checked.check.equal ? 'Write the verdict to a new sheet' : 'Write counterexamples to a new sheet'}
+          sheet={checked.sheet}
         />
       )}
     </section>
   );
 }
 
-/** An implementation file (.st or PLCopen .xml) checked against every table read. */
-export function FileCheck({ analyses, engine, write }: { analyses: readonly TableAnalysis[]; engine: Engine; write: WriteSheet | undefined }) {
-  const [report, setReport] = useState<{ run: number; file: string; result: Result<VerifyReport> }>();
+/** An implementation file (.st or PLCopen .xml) checked against every table read (by the worker, which keeps them). */
+export function FileCheck({ engine, write }: { engine: Engine; write: WriteSheet | undefined }) {
+  const [report, setReport] = useState<{ run: number; file: string; result: Answers['verify'] }>();
   const [busy, setBusy] = useState(false);
   const pick = async (e: Event) => {
     const file = (e.currentTarget as HTMLInputElement).files?.[0];
@@ -180,7 +179,7 @@ export function FileCheck({ analyses, engine, write }: { analyses: readonly Tabl
     setBusy(true);
     const run = (report?.run ?? 0) + 1;
     try {
-      const result = await engine.verify({ kind: 'verify', tables: analyses.map((a) => a.table), fileName: file.name, text: await file.text() });
+      const result = await engine.verify({ fileName: file.name, text: await file.text() });
       setReport({ run, file: file.name, result });
     } catch (err) {
       setReport({ run, file: file.name, result: { ok: false, error: { message: (err as Error).message } } });
@@ -188,7 +187,7 @@ export function FileCheck({ analyses, engine, write }: { analyses: readonly Tabl
       setBusy(false);
     }
   };
-  const verified = report?.result.ok ? report.result.value : undefined;
+  const verified = report?.result.ok ? { run: report.run, ...report.result.value } : undefined;
   return (
     <section class="card" aria-labelledby="file-check-title">
       <h2 id="file-check-title">Check a program file</h2>
@@ -198,28 +197,29 @@ export function FileCheck({ analyses, engine, write }: { analyses: readonly Tabl
       </label>
       {busy && <p role="status">Checking…</p>}
       {report && !report.result.ok && <p class="error">{report.result.error.message}</p>}
-      {report?.result.ok && (
+      {verified && (
         <>
           <ul class="verdicts">
-            {report.result.value.outputs.map((o, i) => (
+            {verified.report.outputs.map((o, i) => (
               <li key={i} class={`verdict-line ${o.status}`}>
-                <strong>{o.output.identifier}</strong>: {o.status}
+                <strong>{o.output.identifier}</strong>: {implementationWord(o)}
                 {o.status === 'differs' ? ` on ${count(o.mismatchCount)} of ${count(o.combinations)} combinations` : ''}
                 {o.variable ? ` (${o.variable})` : ''}
+                {o.status === 'unchecked' && o.reasons[0] ? `: ${o.reasons[0]}` : ''}
               </li>
             ))}
           </ul>
-          {write && verified && (
+          {write && (
             <WriteCheckSheet
-              key={report.run}
+              key={verified.run}
               write={write}
-              label={verified.outputs.some((o) => o.counterexamples.length > 0) ? 'Write counterexamples to a new sheet' : 'Write the verdicts to a new sheet'}
-              sheet={() => checkSheet({ kind: 'program', report: verified })}
+              label={verified.report.outputs.some((o) => o.counterexamples.length > 0) ? 'Write counterexamples to a new sheet' : 'Write the verdicts to a new sheet'}
+              sheet={verified.sheet}
             />
           )}
           <details>
             <summary>Full report</summary>
-            <pre class="report">{verifyReportText(report.result.value)}</pre>
+            <pre class="report">{verifyReportText(verified.report)}</pre>
           </details>
         </>
       )}

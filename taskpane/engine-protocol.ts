@@ -1,22 +1,42 @@
-// Messages between the pane and its engine worker. Everything is plain data (structured clone).
-import type { Result } from '../src/logic/result.js';
+// Messages between the pane and its engine worker, typed per request: each request kind has
+// its answer type, and every answer is tagged with the kind it answers. The worker keeps the
+// workbook it examined; later requests name its tables by id instead of sending them again.
+// Everything is plain data (structured clone).
 import type { ImplCheck } from '../src/logic/implcheck.js';
+import type { Result } from '../src/logic/result.js';
 import type { VerifyReport } from '../src/impl/verify.js';
-import type { TableAnalysis } from '../src/spec/analysis-types.js';
-import type { Grid, Problem, SpecOptions, SpecTable } from '../src/spec/types.js';
+import type { SheetBlock } from '../src/report/sheet-block.js';
+import type { GridsRead, HandOverFile, HandOverRequest, ReadFailure, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
 
-export type EngineRequest =
-  | { readonly kind: 'analyse'; readonly grid: Grid; readonly options: SpecOptions }
-  | { readonly kind: 'check'; readonly table: SpecTable; readonly output: number; readonly text: string }
-  | { readonly kind: 'verify'; readonly tables: readonly SpecTable[]; readonly fileName: string; readonly text: string };
-
-export interface Analysed {
-  readonly analyses: TableAnalysis[];
-  /** Problems that belong to no table (each table's own are in its analysis). */
-  readonly problems: Problem[];
+export interface Requests {
+  /** Find the spec tables in the grids the host read, analyse them, keep the result. */
+  readonly examine: { readonly grids: GridsRead; readonly choice: WorkbookChoice; readonly source: string };
+  /** A typed expression against one output of a table examined. */
+  readonly check: { readonly table: number; readonly output: number; readonly text: string };
+  /** A program file against every table examined. */
+  readonly verify: { readonly fileName: string; readonly text: string };
+  /** The results sheets and test records of every table examined. */
+  readonly sheets: Record<never, never>;
+  /** Files of the hand-over pack. */
+  readonly handOver: { readonly files: HandOverRequest };
 }
 
-export type EngineAnswer = Analysed | Result<ImplCheck> | Result<VerifyReport>;
+export interface Answers {
+  readonly examine: Result<WorkbookView, ReadFailure>;
+  /** The check, and the sheet that writes it down. */
+  readonly check: Result<{ readonly check: ImplCheck; readonly sheet: SheetBlock }>;
+  readonly verify: Result<{ readonly report: VerifyReport; readonly sheet: SheetBlock }>;
+  /** Refused (with the reason) when the workflow allows no results write. */
+  readonly sheets: Result<SheetBlock[], string>;
+  /** Refused (with the reason) when the workflow allows no hand-over. */
+  readonly handOver: Result<HandOverFile[], string>;
+}
+
+export type RequestKind = keyof Requests;
+
+export type EngineRequest = { [K in RequestKind]: { readonly kind: K } & Requests[K] }[RequestKind];
+
+export type EngineAnswer = { [K in RequestKind]: { readonly kind: K; readonly value: Answers[K] } }[RequestKind];
 
 export type EngineMessage =
   | { readonly id: number; readonly kind: 'progress'; readonly done: number; readonly total: number; readonly what: string }

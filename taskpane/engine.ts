@@ -1,9 +1,8 @@
-// The pane's handle on the engine worker: one request at a time, progress reports, and a
-// cancel that terminates the worker (the only way to stop a long computation) and starts anew.
-import type { Analysed, EngineMessage, EngineRequest } from './engine-protocol.js';
-import type { Result } from '../src/logic/result.js';
-import type { ImplCheck } from '../src/logic/implcheck.js';
-import type { VerifyReport } from '../src/impl/verify.js';
+// The pane's handle on the engine worker: one request at a time, each method typed by its
+// request kind, progress reports, and a cancel that terminates the worker (the only way to
+// stop a long computation) and starts anew. The new worker is given the last workbook examined
+// again, so table ids the pane holds keep their meaning.
+import type { Answers, EngineAnswer, EngineMessage, EngineRequest, Requests } from './engine-protocol.js';
 
 export type Progress = (done: number, total: number, what: string) => void;
 
@@ -13,10 +12,19 @@ export class Cancelled extends Error {
   }
 }
 
+interface Pending {
+  readonly id: number;
+  readonly accept: (answer: EngineAnswer) => void;
+  readonly reject: (e: Error) => void;
+  readonly progress?: Progress;
+}
+
 export class Engine {
   private worker: Worker;
   private nextId = 1;
-  private pending: { id: number; resolve: (v: unknown) => void; reject: (e: Error) => void; progress?: Progress } | undefined;
+  private pending: Pending | undefined;
+  /** The last examine that was answered: replayed into a new worker after a cancel. */
+  private examined: EngineRequest | undefined;
 
   constructor(private readonly start: () => Worker) {
     this.worker = this.spawn();
@@ -30,7 +38,7 @@ export class Engine {
       if (e.data.kind === 'progress') p.progress?.(e.data.done, e.data.total, e.data.what);
       else {
         this.pending = undefined;
-        if (e.data.kind === 'answer') p.resolve(e.data.answer);
+        if (e.data.kind === 'answer') p.accept(e.data.answer);
         else p.reject(new Error(e.data.message));
       }
     };
@@ -42,37 +50,56 @@ export class Engine {
     return worker;
   }
 
-  private request<T>(request: EngineRequest, progress?: Progress): Promise<T> {
+  /** Send a request; `pick` takes the answer of the same kind (any other is a bug, reported). */
+  private send<T>(request: EngineRequest, pick: (a: EngineAnswer) => T | undefined, progress?: Progress): Promise<T> {
     if (this.pending) this.cancel();
     const id = this.nextId++;
     return new Promise<T>((resolve, reject) => {
-      this.pending = { id, resolve: resolve as (v: unknown) => void, reject, ...(progress ? { progress } : {}) };
+      const accept = (a: EngineAnswer) => {
+        const value = pick(a);
+        if (value === undefined) reject(new Error(`bug in the engine: a ${a.kind} answer to a ${request.kind} request`));
+        else resolve(value);
+      };
+      this.pending = { id, accept, reject, ...(progress ? { progress } : {}) };
       this.worker.postMessage({ id, request });
     });
   }
 
-  analyse(request: Extract<EngineRequest, { kind: 'analyse' }>, progress?: Progress): Promise<Analysed> {
-    return this.request(request, progress);
+  async examine(body: Requests['examine'], progress?: Progress): Promise<Answers['examine']> {
+    const request: EngineRequest = { kind: 'examine', ...body };
+    const answer = await this.send(request, (a) => (a.kind === 'examine' ? a.value : undefined), progress);
+    this.examined = request;
+    return answer;
   }
 
-  check(request: Extract<EngineRequest, { kind: 'check' }>): Promise<Result<ImplCheck>> {
-    return this.request(request);
+  check(body: Requests['check']): Promise<Answers['check']> {
+    return this.send({ kind: 'check', ...body }, (a) => (a.kind === 'check' ? a.value : undefined));
   }
 
-  verify(request: Extract<EngineRequest, { kind: 'verify' }>): Promise<Result<VerifyReport>> {
-    return this.request(request);
+  verify(body: Requests['verify']): Promise<Answers['verify']> {
+    return this.send({ kind: 'verify', ...body }, (a) => (a.kind === 'verify' ? a.value : undefined));
+  }
+
+  sheets(): Promise<Answers['sheets']> {
+    return this.send({ kind: 'sheets' }, (a) => (a.kind === 'sheets' ? a.value : undefined));
+  }
+
+  handOver(body: Requests['handOver']): Promise<Answers['handOver']> {
+    return this.send({ kind: 'handOver', ...body }, (a) => (a.kind === 'handOver' ? a.value : undefined));
   }
 
   get busy(): boolean {
     return this.pending !== undefined;
   }
 
-  /** Stop whatever runs: the worker is terminated and a fresh one started. */
+  /** Stop whatever runs: the worker is terminated and a fresh one started with the last workbook examined. */
   cancel(): void {
     this.worker.terminate();
     const p = this.pending;
     this.pending = undefined;
     this.worker = this.spawn();
+    // Messages are handled in order: anything sent next finds the workbook examined again.
+    if (this.examined) this.worker.postMessage({ id: this.nextId++, request: this.examined });
     p?.reject(new Cancelled());
   }
 }

@@ -5,10 +5,11 @@ import type { Combination } from '../src/logic/bits.js';
 import { inputValue } from '../src/logic/bits.js';
 import type { Signal } from '../src/logic/signals.js';
 import { ladderSvg } from '../src/report/ladder-svg.js';
-import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../src/spec/analysis-types.js';
+import type { AndOrForm, OutputAnalysis, XorForm } from '../src/spec/analysis-types.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
 import { describeCube } from '../src/spec/read-tables.js';
 import type { Problem, RoleRule } from '../src/spec/types.js';
+import { verdictWords, type Permission, type TableView, type Verdict } from '../src/workflow/index.js';
 import { copyText, download, safeFileName } from './files.js';
 
 export type SelectCell = (sheet: string, cell: string) => void;
@@ -69,13 +70,20 @@ function proofLine(proof: { combinations: number; mismatchCount: number }): stri
     : `proof FAILED: ${plural(proof.mismatchCount, 'combination')} of ${proof.combinations.toLocaleString('en')} differ from the spec`;
 }
 
-function FormView({ title, form, meta, badge }: { title: string; form: AndOrForm | XorForm; meta: string; badge?: { text: string; kind: string } }) {
+const BADGE: Readonly<Record<Verdict['kind'], string>> = { proven: 'good', heuristic: 'warn', differs: 'bad', 'not-analysed': 'bad' };
+
+/** The workflow's words for a verdict, as a badge. */
+function VerdictBadge({ verdict }: { verdict: Verdict }) {
+  return <span class={`badge ${BADGE[verdict.kind]}`}>{verdictWords(verdict)}</span>;
+}
+
+function FormView({ title, form, meta, verdict }: { title: string; form: AndOrForm | XorForm; meta: string; verdict?: Verdict }) {
   const ok = form.proof.mismatchCount === 0;
   return (
     <div class="form" data-form={title}>
       <div class="form-head">
         <h4>{title}</h4>
-        {badge && <span class={`badge ${badge.kind}`}>{badge.text}</span>}
+        {verdict && <VerdictBadge verdict={verdict} />}
         <CopyButton text={form.text} what={title} />
       </div>
       <pre class="expr">{form.text}</pre>
@@ -116,7 +124,7 @@ export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Sig
   );
 }
 
-function LadderPicture({ output, inputs }: { output: OutputAnalysis; inputs: readonly Signal[] }) {
+function LadderPicture({ output, inputs, handOver }: { output: OutputAnalysis; inputs: readonly Signal[]; handOver: Permission }) {
   const svg = useMemo(() => ladderSvg(output, inputs), [output, inputs]);
   const [url, setUrl] = useState<string>();
   useEffect(() => {
@@ -129,15 +137,31 @@ function LadderPicture({ output, inputs }: { output: OutputAnalysis; inputs: rea
     <details class="ladder">
       <summary>Ladder picture (AND/OR form)</summary>
       {url && <img src={url} alt={`Ladder Diagram rung for ${output.signal.identifier}`} />}
-      <button type="button" class="small" onClick={() => download(`${safeFileName(output.signal.identifier)}-ladder.svg`, 'image/svg+xml', svg)}>
-        Download picture (SVG)
-      </button>
+      {handOver.allowed ? (
+        <button type="button" class="small" onClick={() => download(`${safeFileName(output.signal.identifier)}-ladder.svg`, 'image/svg+xml', svg)}>
+          Download picture (SVG)
+        </button>
+      ) : (
+        <p class="meta">No download: {handOver.reason}.</p>
+      )}
     </details>
   );
 }
 
-function OutputCard({ output, analysis, selectCell }: { output: OutputAnalysis; analysis: TableAnalysis; selectCell?: SelectCell | undefined }) {
-  const inputs = analysis.inputs;
+function OutputCard({
+  output,
+  verdict,
+  table,
+  handOver,
+  selectCell,
+}: {
+  output: OutputAnalysis;
+  verdict: Verdict;
+  table: TableView;
+  handOver: Permission;
+  selectCell?: SelectCell | undefined;
+}) {
+  const inputs = table.inputs;
   const { andOr, xor, bestXor } = output;
   const unused = output.unusedInputs.map((i) => inputs[i]!.identifier);
   return (
@@ -150,7 +174,7 @@ function OutputCard({ output, analysis, selectCell }: { output: OutputAnalysis; 
         title="AND/OR form"
         form={andOr}
         meta={`sum of products: ${plural(andOr.terms, 'product term')}, ${plural(andOr.literals, 'literal')}`}
-        badge={andOr.proven ? { text: 'proven minimum', kind: 'good' } : { text: 'heuristic (not proven minimal)', kind: 'warn' }}
+        verdict={verdict}
       />
       <FormView title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
       <FormView
@@ -184,8 +208,8 @@ function OutputCard({ output, analysis, selectCell }: { output: OutputAnalysis; 
             <ul>
               {output.conflicts.map((c, i) => (
                 <li key={i}>
-                  rows <CellLink sheet={analysis.table.sheet} cell={c.rowCellsA} selectCell={selectCell} /> and{' '}
-                  <CellLink sheet={analysis.table.sheet} cell={c.rowCellsB} selectCell={selectCell} /> ask for 1 and 0 on{' '}
+                  rows <CellLink sheet={table.sheet} cell={c.rowCellsA} selectCell={selectCell} /> and{' '}
+                  <CellLink sheet={table.sheet} cell={c.rowCellsB} selectCell={selectCell} /> ask for 1 and 0 on{' '}
                   {plural(c.combinations, 'combination')}; the safe value {output.safe} is used
                 </li>
               ))}
@@ -204,25 +228,32 @@ function OutputCard({ output, analysis, selectCell }: { output: OutputAnalysis; 
           )}
         </dd>
       </dl>
-      <LadderPicture output={output} inputs={inputs} />
+      <LadderPicture output={output} inputs={inputs} handOver={handOver} />
     </section>
   );
 }
 
-export function TableView({ analysis, selectCell }: { analysis: TableAnalysis; selectCell?: SelectCell | undefined }) {
-  const { table } = analysis;
+export function SpecTableView({ table, handOver, selectCell }: { table: TableView; handOver: Permission; selectCell?: SelectCell | undefined }) {
   return (
     <div class="table-view">
       <section class="card">
         <h2>
           Spec table <CellLink sheet={table.sheet} cell={table.range} selectCell={selectCell} />
         </h2>
+        <p class="table-verdict">
+          Verdict: <VerdictBadge verdict={table.verdict} />
+        </p>
         <p>
-          {plural(table.inputs.length, 'input')}, {plural(table.outputs.length, 'output')}, {plural(table.rows.length, 'row')}. Inputs and
+          {plural(table.inputs.length, 'input')}, {plural(table.outputs.length, 'output')}, {plural(table.rows, 'row')}. Inputs and
           outputs told apart by {ROLE_RULE[table.roleRule]}.
           {table.xReading === 'dont-care' && ' X cells were read as any / don\'t-care.'}
         </p>
-        <ProblemList problems={analysis.problems} selectCell={selectCell} />
+        {!table.analysed && (
+          <p class="verdict not-analysed" role="status">
+            No form was derived or proven and nothing of this table is handed over: fix the cells below and read it again.
+          </p>
+        )}
+        <ProblemList problems={table.problems} selectCell={selectCell} />
         <details>
           <summary>Signals and their Structured Text names</summary>
           <div class="scroll">
@@ -258,8 +289,8 @@ export function TableView({ analysis, selectCell }: { analysis: TableAnalysis; s
           </div>
         </details>
       </section>
-      {analysis.outputs.map((o) => (
-        <OutputCard key={o.signal.identifier} output={o} analysis={analysis} selectCell={selectCell} />
+      {table.analysed?.map((o, j) => (
+        <OutputCard key={o.signal.identifier} output={o} verdict={table.outputs[j]!.verdict} table={table} handOver={handOver} selectCell={selectCell} />
       ))}
     </div>
   );

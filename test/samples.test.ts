@@ -4,7 +4,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import XLSX from 'xlsx';
 import { describe, expect, it } from 'vitest';
-import { SAMPLE_DIR, SAMPLE_WORKBOOKS, sampleCsv, sampleWorkbook } from '../scripts/make-samples.js';
+import { LAYOUT_WORKBOOKS, SAMPLE_DIR, SAMPLE_WORKBOOKS, layoutWorkbook, sampleCsv, sampleWorkbook } from '../scripts/make-samples.js';
 import { spindleCsv } from '../sample-workbooks/source/capper-cell.js';
 
 /** Every non-empty cell of a sheet as "address -> type:value". */
@@ -26,6 +26,19 @@ describe('sample workbooks', () => {
       expect(committed.SheetNames).toEqual(fresh.SheetNames);
       for (const name of fresh.SheetNames) {
         expect(cellMap(committed.Sheets[name]!), name).toEqual(cellMap(fresh.Sheets[name]!));
+      }
+    });
+  }
+
+  for (const sample of LAYOUT_WORKBOOKS) {
+    it(`${sample.file} holds the cells and merged areas its source describes`, () => {
+      const committed = XLSX.read(readFileSync(join(SAMPLE_DIR, sample.file)));
+      const fresh = layoutWorkbook(sample);
+      expect(committed.SheetNames).toEqual(fresh.SheetNames);
+      for (const name of fresh.SheetNames) {
+        expect(cellMap(committed.Sheets[name]!), name).toEqual(cellMap(fresh.Sheets[name]!));
+        const merges = (ws: XLSX.WorkSheet): string[] => (ws['!merges'] ?? []).map((m) => XLSX.utils.encode_range(m)).sort();
+        expect(merges(committed.Sheets[name]!), name).toEqual(merges(fresh.Sheets[name]!));
       }
     });
   }

@@ -3,6 +3,7 @@ import type { SafeValue } from '../logic/boolfn.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { FormChoice } from '../report/st-export.js';
 import { parseRange } from '../spec/grid.js';
+import type { DontCarePolicy } from '../spec/types.js';
 
 /** Which tables to read, and how (the options of every command that reads a workbook). */
 export interface SpecChoice {
@@ -14,6 +15,8 @@ export interface SpecChoice {
   readonly safe: Readonly<Record<string, SafeValue>>;
   /** Longest the workbook parse may take, in milliseconds. */
   readonly timeLimitMs?: number;
+  /** How don't-cares are resolved into each output's one function (default minimal). */
+  readonly dontCares?: DontCarePolicy;
 }
 
 export type Command =
@@ -30,13 +33,17 @@ export type Command =
       readonly form: FormChoice;
       readonly ladderBody: boolean;
     }
-  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean };
+  | { readonly name: 'verify'; readonly file: string; readonly spec: SpecChoice; readonly impl: string; readonly map?: string; readonly json: boolean }
+  | { readonly name: 'record'; readonly file: string; readonly json: boolean; readonly timeLimitMs?: number };
 
 export const USAGE = `Usage:
   interlock-algebra analyze <workbook.xlsx|table.csv> [--json] [-o results.xlsx] [spec options]
   interlock-algebra export  <workbook> [--st FILE] [--plcopen FILE] [--svg DIR] [--steps FILE]
                             [--form and-or|xor|best-xor] [--ld] [spec options]
   interlock-algebra verify  <workbook> --impl <file.st|file.xml> [--map mapping.csv] [--json] [spec options]
+  interlock-algebra record  <filled-record.xlsx> [--json]
+                            reads filled-in test records back: each step passed, failed or not run,
+                            and whether the table is still the revision the record was made from
 
 Spec options:
   --sheet NAME            read only this sheet
@@ -44,10 +51,13 @@ Spec options:
   --x-means-dont-care     read X cells as '-' (any / don't-care); otherwise an X is an error
   --inputs N              the first N signal columns are inputs, the rest outputs
   --safe NAME=0|1         an output's safe value (default 0); may be given more than once
+  --dont-cares minimal|safe  how don't-care cells are resolved, once, for every form, proof and
+                          file: as the minimal AND/OR form uses them (default), or all at the safe value
   --time-limit SECONDS    longest the workbook may take to read (default 60)
 
 Exit status: 0 every form proven against the spec (verify: the implementation is equal),
-1 a spec error or a failed check, 2 a usage error or a file that cannot be read.`;
+1 a spec error or a failed check (record: a step not passed, or a stale record), 2 a usage
+error or a file that cannot be read.`;
 
 type Kind = 'flag' | 'value' | 'many';
 const SPEC_FLAGS: Record<string, Kind> = {
@@ -57,11 +67,14 @@ const SPEC_FLAGS: Record<string, Kind> = {
   '--inputs': 'value',
   '--safe': 'many',
   '--time-limit': 'value',
+  '--dont-cares': 'value',
 };
 const COMMAND_FLAGS: Record<string, Record<string, Kind>> = {
   analyze: { ...SPEC_FLAGS, '--json': 'flag', '-o': 'value', '--out': 'value' },
   export: { ...SPEC_FLAGS, '--st': 'value', '--plcopen': 'value', '--svg': 'value', '--steps': 'value', '--form': 'value', '--ld': 'flag' },
   verify: { ...SPEC_FLAGS, '--impl': 'value', '--map': 'value', '--json': 'flag' },
+  // The settings come from the record itself, so that the table is read as it was then.
+  record: { '--json': 'flag', '--time-limit': 'value' },
 };
 
 const FORMS: Readonly<Record<string, FormChoice>> = { 'and-or': 'andOr', xor: 'xor', 'best-xor': 'bestXor' };
@@ -114,6 +127,9 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
   const seconds = limitText === undefined ? undefined : Number(limitText);
   if (seconds !== undefined && !(seconds > 0 && seconds <= 3600)) return fail(`--time-limit needs seconds between 0 and 3600, got "${limitText}"`);
   const sheet = one('--sheet');
+  const dontCares = one('--dont-cares');
+  if (dontCares !== undefined && dontCares !== 'minimal' && dontCares !== 'safe')
+    return fail(`--dont-cares needs minimal or safe, got "${dontCares}"`);
   return ok({
     ...(sheet !== undefined ? { sheet } : {}),
     ...(range !== undefined ? { range } : {}),
@@ -121,6 +137,7 @@ function readSpec(values: Map<string, string[]>): Result<SpecChoice, string> {
     ...(inputs !== undefined ? { inputs } : {}),
     safe,
     ...(seconds !== undefined ? { timeLimitMs: seconds * 1000 } : {}),
+    ...(dontCares !== undefined ? { dontCares } : {}),
   });
 }
 
@@ -128,7 +145,7 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') return ok({ name: 'help' });
   const flags = COMMAND_FLAGS[name];
-  if (!flags) return fail(`unknown command "${name}" (expected analyze, export or verify)`);
+  if (!flags) return fail(`unknown command "${name}" (expected analyze, export, verify or record)`);
   if (rest.includes('--help') || rest.includes('-h')) return ok({ name: 'help' });
   const words = splitWords(rest, flags);
   if (!words.ok) return words;
@@ -139,6 +156,10 @@ export function parseArgs(argv: readonly string[]): Result<Command, string> {
   const spec = readSpec(values);
   if (!spec.ok) return spec;
   const one = (flag: string): string | undefined => values.get(flag)?.[0];
+  if (name === 'record') {
+    const { timeLimitMs } = spec.value;
+    return ok({ name, file, json: values.has('--json'), ...(timeLimitMs !== undefined ? { timeLimitMs } : {}) });
+  }
   if (name === 'analyze') {
     if (values.has('-o') && values.has('--out')) return fail('-o and --out are the same option; give one');
     const out = one('-o') ?? one('--out');

@@ -1,10 +1,10 @@
-// Open the file and read its spec tables as the options say: shared by analyze, export, verify.
+// Open the file and read its spec tables through the workflow, as the options say: shared by
+// analyze, export, verify. The file host and its messages are the command line's own.
 import { basename } from 'node:path';
 import { fail, ok, type Result } from '../logic/result.js';
-import { signalIndex } from '../logic/signals.js';
 import { openFile, type FileHost } from '../hosts/file-host.js';
-import { readSpecTables } from '../spec/read-tables.js';
-import type { Problem, SpecOptions, SpecTable } from '../spec/types.js';
+import type { SpecTable } from '../spec/types.js';
+import { examine, readGrids, readTables, type ReadFailure, type TablesRead, type Workbook, type WorkbookChoice } from '../workflow/index.js';
 import type { SpecChoice } from './args.js';
 import type { Progress } from './progress.js';
 
@@ -12,50 +12,62 @@ export interface Loaded {
   readonly host: FileHost;
   /** The file name, as results and hand-over files name their source. */
   readonly source: string;
-  readonly tables: SpecTable[];
-  /** Problems that belong to no table read (each table carries its own). */
-  readonly otherProblems: Problem[];
+  readonly read: TablesRead;
 }
 
-function specOptions(choice: SpecChoice): SpecOptions {
+function workbookChoice(choice: SpecChoice): WorkbookChoice {
   return {
+    ...(choice.sheet !== undefined ? { sheet: choice.sheet } : {}),
     ...(choice.range !== undefined ? { range: choice.range } : {}),
     xReading: choice.xMeansDontCare ? 'dont-care' : 'none',
     ...(choice.inputs !== undefined ? { inputCount: choice.inputs } : {}),
     safeValues: choice.safe,
+    ...(choice.dontCares !== undefined ? { dontCares: choice.dontCares } : {}),
+    host: 'cli',
   };
+}
+
+/** A setting that does not fit the file, in the command line's words (its option names). */
+function failureText(f: ReadFailure): string {
+  switch (f.code) {
+    case 'range-needs-sheet':
+      return `--range needs --sheet: ${f.message}`;
+    case 'unknown-safe-output':
+      return `--safe ${f.subject}: ${f.message}`;
+    case 'sheet-not-read':
+    case 'no-sheet':
+      return f.message;
+  }
 }
 
 /**
  * The spec tables of the file. A failure is a usage-level problem (exit 2): the file cannot
- * be opened, the sheet does not exist, a --safe names no output.
+ * be opened, the sheet does not exist or cannot be read, a --safe names no output.
  */
 export async function loadTables(file: string, choice: SpecChoice, progress: Progress): Promise<Result<Loaded, string>> {
   const opened = await progress.during(`reading ${file}`, openFile(file, choice.timeLimitMs !== undefined ? { timeLimitMs: choice.timeLimitMs } : {}));
   if (!opened.ok) return fail(opened.error.message);
   const host = opened.value;
-  const names = await host.listSheets();
-  if (choice.sheet !== undefined && !names.includes(choice.sheet))
-    return fail(`${file}: no sheet named "${choice.sheet}" (sheets: ${names.join(', ')})`);
-  if (choice.range !== undefined && choice.sheet === undefined && names.length > 1)
-    return fail(`--range needs --sheet: ${file} has ${names.length} sheets`);
-  const sheets = choice.sheet !== undefined ? [choice.sheet] : names;
-  const tables: SpecTable[] = [];
-  const otherProblems: Problem[] = [];
-  for (const sheet of sheets) {
-    const tooLarge = host.sheetProblem(sheet);
-    if (tooLarge) {
-      if (choice.sheet !== undefined) return fail(`${file}: ${tooLarge}`);
-      otherProblems.push({ severity: 'warning', sheet, cell: 'A1', message: `not read: ${tooLarge}` });
-      continue;
-    }
-    const read = readSpecTables(await host.readGrid(sheet), specOptions(choice));
-    tables.push(...read.tables);
-    otherProblems.push(...read.problems);
-  }
-  for (const name of Object.keys(choice.safe)) {
-    if (!tables.some((t) => signalIndex(t.outputs.map((o) => o.signal), name) >= 0))
-      return fail(`--safe ${name}: no output of the tables read has that header or identifier`);
-  }
-  return ok({ host, source: basename(file), tables, otherProblems });
+  const wanted = workbookChoice(choice);
+  const grids = await readGrids(host, wanted, file);
+  if (!grids.ok) return fail(failureText(grids.error));
+  const read = readTables(grids.value, wanted);
+  if (!read.ok) return fail(failureText(read.error));
+  return ok({ host, source: basename(file), read: read.value });
+}
+
+/** The workflow's verdicts of what was loaded, with progress on stderr. */
+export function examineLoaded(loaded: Loaded, progress: Progress): Workbook {
+  return examine(loaded.read, {
+    source: loaded.source,
+    onProgress: ({ table, done, total }) => {
+      const label = `analysing ${where(table)}`;
+      if (done === 0) progress.note(`${label} (${table.inputs.length} inputs, ${table.outputs.length} output${table.outputs.length === 1 ? '' : 's'})`);
+      else progress.tick(label, done, total);
+    },
+  });
+}
+
+function where(t: SpecTable): string {
+  return `${t.sheet}!${t.range}`;
 }

@@ -6,6 +6,7 @@ import { parseArgs, USAGE } from './args.js';
 import { exportCommand } from './export.js';
 import { EXIT, processIo, type CliIo, type ExitCode } from './io.js';
 import { Progress } from './progress.js';
+import { recordCommand } from './record.js';
 import { verifyCommand } from './verify.js';
 
 export async function main(argv: readonly string[], io: CliIo = processIo): Promise<ExitCode> {
@@ -26,6 +27,8 @@ export async function main(argv: readonly string[], io: CliIo = processIo): Prom
       return exportCommand(cmd, io, progress);
     case 'verify':
       return verifyCommand(cmd, io, progress);
+    case 'record':
+      return recordCommand(cmd, io, progress);
   }
 }
 

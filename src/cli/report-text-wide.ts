@@ -46,8 +46,9 @@ export function wideOutputLines(o: WideOutputAnalysis, inputs: readonly Signal[]
   for (const c of o.conflicts)
     lines.push(`  Conflict: rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 at ${plural(c.combinations, 'combination')} (e.g. ${combinationPattern(n, c.example)}); the safe value ${o.safe} is used`);
   if (o.dontCareCount > 0n) {
-    const on = a.proof.permitsAlsoCount;
-    lines.push(`  Don't-cares: ${plural(o.dontCareCount, 'combination')}; the AND/OR form turns ${on === 0n ? 'none of them' : `${on} of them`} ON${on === 0n ? '' : `: ${listed(a.proof.permitsAlso.map((k) => combinationPattern(n, k)), on)}`}`);
+    const on = o.permitsAlsoCount;
+    const how = o.dontCares === 'minimal' ? 'as the minimal AND/OR form uses them' : 'at the safe value';
+    lines.push(`  Don't-cares: ${plural(o.dontCareCount, 'combination')}, resolved ${how}; ${on === 0n ? 'none of them' : `${on} of them`} ON${on === 0n ? '' : `: ${listed(o.permitsAlso.map((k) => combinationPattern(n, k)), on)}`}`);
   }
   return lines;
 }

@@ -1,16 +1,12 @@
 // The readable report of `analyze`: per table its signals, per output its forms, proof,
 // gaps, conflicts and don't-cares turned on, then the problems with sheet!cell, then the caution.
-import type { Combination } from '../logic/bits.js';
 import { wideOutputLines } from './report-text-wide.js';
-import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import type { Signal } from '../logic/signals.js';
 import { CAUTION_LINES } from '../report/caution.js';
+import { combinationTableLines, cubeTableLines } from './pattern-table.js';
 import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from '../spec/analysis-types.js';
 import { qualifiedAddress } from '../spec/grid.js';
 import type { Problem, RoleRule } from '../spec/types.js';
-
-/** Patterns listed by name in one line of the report; the counts are always complete. */
-const LISTED = 8;
 
 const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
   'role-row': 'the role row above the headers',
@@ -26,15 +22,6 @@ function plural(n: number, word: string): string {
   return `${n} ${word}${n === 1 ? '' : 's'}`;
 }
 
-function combinationPattern(n: number, k: Combination): string {
-  return cubeToPattern(n, cube((1 << n) - 1, k));
-}
-
-function patternList(patterns: readonly string[], total: number): string {
-  const shown = patterns.slice(0, LISTED).join(', ');
-  return total > LISTED ? `${shown}, ... (${total} in all)` : shown;
-}
-
 function proofWord(proof: FormProof): string {
   if (proof.mismatchCount === 0) return 'OK';
   return `DIFFERS at ${plural(proof.mismatchCount, 'combination')}`;
@@ -47,7 +34,6 @@ function complemented(form: XorForm, inputs: readonly Signal[]): string {
 }
 
 function outputLines(o: OutputAnalysis, inputs: readonly Signal[]): string[] {
-  const n = inputs.length;
   const id = o.signal.identifier;
   const lines: string[] = [];
   lines.push('', `Output ${o.signal.header} (${id}), safe value ${o.safe}`);
@@ -64,26 +50,28 @@ function outputLines(o: OutputAnalysis, inputs: readonly Signal[]): string[] {
   );
   for (const [label, proof] of [['AND/OR', a.proof], ['XOR', o.xor.proof], ['best XOR', o.bestXor.proof]] as const) {
     if (proof.mismatchCount > 0)
-      lines.push(`    ${label} differs from the spec at: ${patternList(proof.mismatches.map((k) => combinationPattern(n, k)), proof.mismatchCount)}`);
+      lines.push(`    ${label} differs from the spec at:`, ...combinationTableLines(inputs, proof.mismatches, '      ', proof.mismatchCount));
   }
   const unused = o.unusedInputs.map((i) => inputs[i]!.identifier);
   lines.push(`  Inputs that do not matter: ${unused.length === 0 ? 'none' : unused.join(', ')}`);
-  lines.push(
-    o.gapCount === 0
-      ? '  Gaps: none'
-      : `  Gaps: ${plural(o.gapCount, 'combination')} no row covers, set to the safe value ${o.safe}: ${patternList(o.gaps.map((c: Cube) => cubeToPattern(n, c)), o.gaps.length)}`,
-  );
+  if (o.gapCount === 0) lines.push('  Gaps: none');
+  else
+    lines.push(
+      `  Gaps: ${plural(o.gapCount, 'combination')} no row covers, set to the safe value ${o.safe} ('-' = any):`,
+      ...cubeTableLines(inputs, o.gaps, '    '),
+    );
   if (o.conflicts.length === 0) lines.push('  Conflicts: none');
   for (const c of o.conflicts)
     lines.push(
-      `  Conflict: rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 at ${plural(c.combinations, 'combination')} (e.g. ${combinationPattern(n, c.example)}); the safe value ${o.safe} is used`,
+      `  Conflict: rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 at ${plural(c.combinations, 'combination')}; the safe value ${o.safe} is used. For example:`,
+      ...combinationTableLines(inputs, [c.example], '    '),
     );
   if (o.dontCareCount === 0) lines.push("  Don't-cares: none");
   else {
-    const on = a.permitsAlsoCount;
-    const listed = patternList(a.permitsAlso.map((k) => combinationPattern(n, k)), on);
-    lines.push(`  Don't-cares: ${plural(o.dontCareCount, 'combination')}; the AND/OR form turns ${on === 0 ? 'none of them' : `${on} of them`} ON${on === 0 ? '' : `: ${listed}`}`);
-    if (on > 0) lines.push('    (check each is acceptable; write 0 in the table where it is not)');
+    const on = o.permitsAlsoCount;
+    const how = o.dontCares === 'minimal' ? 'as the minimal AND/OR form uses them' : 'at the safe value';
+    lines.push(`  Don't-cares: ${plural(o.dontCareCount, 'combination')}, resolved ${how}; every form turns ${on === 0 ? 'none of them' : `${on} of them`} ON${on === 0 ? '' : " ('-' = any):"}`);
+    if (on > 0) lines.push(...cubeTableLines(inputs, o.permitsAlsoCubes, '    '), '    (check each is acceptable; write 0 in the table where it is not)');
   }
   return lines;
 }
@@ -99,7 +87,6 @@ export function tableReport(analysis: TableAnalysis): string[] {
   const width = Math.min(40, Math.max(...[...inputs, ...analysis.outputs.map((o) => o.signal)].map((s) => s.header.length)));
   for (const s of inputs) lines.push(`  in   ${s.header.padEnd(width)} -> ${s.identifier}`);
   for (const o of analysis.outputs) lines.push(`  out  ${o.signal.header.padEnd(width)} -> ${o.signal.identifier}`);
-  lines.push(`Patterns below list input values in this order, '-' = any: ${inputs.map((s) => s.identifier).join(', ')}`);
   for (const o of analysis.outputs) lines.push(...outputLines(o, inputs));
   for (const o of analysis.wide?.outputs ?? []) lines.push(...wideOutputLines(o, inputs, analysis.wide!));
   if (analysis.problems.length > 0) {

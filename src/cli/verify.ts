@@ -5,11 +5,11 @@ import { basename } from 'node:path';
 import type { Result } from '../logic/result.js';
 import { readMappingCsv } from '../impl/mapping.js';
 import { readImplementation } from '../impl/read.js';
-import { verifyExitCode, verifyImplementation } from '../impl/verify.js';
 import { verifyReportJson, verifyReportText } from '../impl/verify-report.js';
+import { errorsOf, programCleared, verifyProgram } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
-import { loadTables } from './load.js';
+import { examineLoaded, loadTables } from './load.js';
 import type { Progress } from './progress.js';
 import { problemLine } from './report-text.js';
 
@@ -45,7 +45,7 @@ export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Pro
     io.err(`error: ${loaded.error}\n`);
     return EXIT.usage;
   }
-  const { tables, otherProblems } = loaded.value;
+  const wb = examineLoaded(loaded.value, progress);
   // A program that cannot be read, or a mapping that cannot, is a finding about the user's
   // files (exit 1), reported with file and line.
   const program = readImplementation(basename(cmd.impl), implText.value);
@@ -58,11 +58,11 @@ export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Pro
     io.err(`error: ${mapping.error.message}\n`);
     return EXIT.failed;
   }
-  progress.note(`checking ${cmd.impl} against ${tables.length} spec table(s)`);
-  const report = verifyImplementation(tables, program.value, mapping?.value);
+  progress.note(`checking ${cmd.impl} against ${wb.tables.length} spec table(s)`);
+  // Outputs of a table with errors come back UNCHECKED: the workflow's rule, as in every host.
+  const report = verifyProgram(wb, program.value, mapping?.value);
   if (cmd.json) io.out(JSON.stringify(verifyReportJson(report), null, 2) + '\n');
   else io.out(verifyReportText(report));
-  const specErrors = [...otherProblems, ...tables.flatMap((t) => t.problems)].filter((p) => p.severity === 'error');
-  for (const p of specErrors) io.err(problemLine(p) + '\n');
-  return specErrors.length > 0 || tables.length === 0 ? EXIT.failed : verifyExitCode(report);
+  for (const p of errorsOf([...wb.problems, ...wb.tables.flatMap((t) => t.problems)])) io.err(problemLine(p) + '\n');
+  return programCleared(wb, report) ? EXIT.ok : EXIT.failed;
 }

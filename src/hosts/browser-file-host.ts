@@ -2,9 +2,10 @@
 // SheetJS parses the file only inside a Web Worker that runs the file host's own parsing
 // worker (parse-worker.mjs), one job per worker, stopped after a time limit; plain grids come
 // back and are checked cell by cell (parsed-workbook.ts, shared with the command line). CSV
-// text goes through our own parser (csv.ts). Results are new sheets of a copy of the
-// workbook, offered as a download: the user's file is never changed.
+// text goes through our own parser (csv.ts). Results are new sheets added to a copy of the
+// workbook's package (xlsx-package.ts), offered as a download: the user's file is never changed.
 import { fail, ok, type Result } from '../logic/result.js';
+import { inflateRawWeb } from './inflate-web.js';
 import { fileKind, ParsedWorkbook, readSheets, type FileKind, type RunParseJob, type SheetData } from './parsed-workbook.js';
 
 export interface BrowserFileOptions {
@@ -43,7 +44,6 @@ export class BrowserFileHost extends ParsedWorkbook {
     kind: FileKind,
     private readonly source: Uint8Array,
     sheets: readonly SheetData[],
-    private readonly options: BrowserFileOptions,
   ) {
     super(fileName, kind, sheets);
   }
@@ -55,7 +55,7 @@ export class BrowserFileHost extends ParsedWorkbook {
 
   /** The file's sheets followed by the queued ones, as .xlsx bytes. */
   resultsWorkbook(): Promise<Result<Uint8Array>> {
-    return this.resultsBytes(async () => ok(this.source), jobRunner(this.options, this.fileName));
+    return this.resultsBytes(async () => ok(this.source), inflateRawWeb);
   }
 }
 
@@ -66,5 +66,5 @@ export async function openBrowserFile(fileName: string, bytes: Uint8Array, optio
   const kind = fileKind(fileName);
   if (!kind) return fail({ message: `${fileName}: not a workbook or CSV file (expected .xlsx, .xlsm or .csv)` });
   const sheets = await readSheets(fileName, fileName, kind, bytes, options.maxCells ?? BROWSER_DEFAULTS.maxCells, jobRunner(options, fileName));
-  return sheets.ok ? ok(new BrowserFileHost(fileName, kind, bytes, sheets.value, options)) : sheets;
+  return sheets.ok ? ok(new BrowserFileHost(fileName, kind, bytes, sheets.value)) : sheets;
 }

@@ -2,6 +2,7 @@
 // keep each request under Excel on the web's 5 MB limit; values and formulas are written
 // before any format; results always go to a new sheet, checked empty before writing.
 import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
+import { LOOKS, STATUS_LOOKS, type Look } from '../report/sheet-looks.js';
 import { cellAddress, columnLetters } from '../spec/grid.js';
 import type { CellValue, Grid } from '../spec/types.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
@@ -44,35 +45,6 @@ export class ExcelHostError extends Error {
     this.name = 'ExcelHostError';
   }
 }
-
-/** Looks of each block cell style (our own plain choice of colours). */
-interface Look {
-  bold?: boolean;
-  italic?: boolean;
-  color?: string;
-  fill?: string;
-  fontName?: string;
-  size?: number;
-  wrap?: boolean;
-  align?: string;
-}
-
-const LOOKS: Readonly<Record<CellStyle, Look>> = {
-  title: { bold: true, size: 14 },
-  heading: { bold: true, fill: '#DCE6F0' },
-  label: { bold: true },
-  code: { fontName: 'Consolas' },
-  caution: { italic: true, color: '#7A2E00' },
-  status: { bold: true, align: 'Center' },
-  input: { align: 'Center' },
-  number: { align: 'Right' },
-};
-
-/** Conditional formats on status cells: DIFFERS red, OK green. */
-const STATUS_LOOKS = [
-  { text: 'DIFFERS', fill: '#F4C7C3', font: '#8B0000' },
-  { text: 'OK', fill: '#CDE8C5', font: '#1E5B1E' },
-] as const;
 
 /** Points per character of column width (Calibri 11: 8.43 characters = 48 pt), from memory. */
 const POINTS_PER_CHAR = 5.7;
@@ -123,6 +95,8 @@ async function readRange(context: XlContext, sheet: string, range: XlRange, wher
   return { sheet, origin: topLeftOf(range.address), cells };
 }
 
+const OFFICE_ALIGN = { left: 'Left', center: 'Center', right: 'Right' } as const;
+
 function look(range: XlRange, l: Look): void {
   if (l.bold) range.format.font.bold = true;
   if (l.italic) range.format.font.italic = true;
@@ -131,7 +105,7 @@ function look(range: XlRange, l: Look): void {
   if (l.size) range.format.font.size = l.size;
   if (l.fill) range.format.fill.color = l.fill;
   if (l.wrap) range.format.wrapText = true;
-  if (l.align) range.format.horizontalAlignment = l.align;
+  if (l.align) range.format.horizontalAlignment = OFFICE_ALIGN[l.align];
 }
 
 /** Runs of equal style along each row: one format command per run instead of per cell. */

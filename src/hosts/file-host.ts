@@ -7,6 +7,7 @@ import { existsSync, realpathSync, statSync } from 'node:fs';
 import { readFile, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import { basename, dirname, extname, join, resolve } from 'node:path';
 import { Worker } from 'node:worker_threads';
+import { inflateRawSync } from 'node:zlib';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { fileKind, ParsedWorkbook, readSheets, type FileKind, type RunParseJob, type SheetData } from './parsed-workbook.js';
@@ -81,6 +82,11 @@ async function readLimited(path: string, options: FileHostOptions): Promise<Resu
   return ok(new Uint8Array(await readFile(path)));
 }
 
+/** Raw inflate with an output limit (zlib stops at it), for the parts of a package we add to. */
+async function inflateRawNode(data: Uint8Array, maxBytes: number): Promise<Uint8Array> {
+  return new Uint8Array(inflateRawSync(data, { maxOutputLength: maxBytes }));
+}
+
 /** A workbook or CSV file opened for reading, with result sheets queued for `save`. */
 export class FileHost extends ParsedWorkbook {
   constructor(
@@ -99,7 +105,7 @@ export class FileHost extends ParsedWorkbook {
   async save(outPath: string): Promise<Result<string>> {
     if (sameFile(this.path, outPath)) return fail({ message: `${outPath}: is the input file; choose another name for the results` });
     if (extname(outPath).toLowerCase() !== '.xlsx') return fail({ message: `${outPath}: results are written as .xlsx; give a name ending in .xlsx` });
-    const bytes = await this.resultsBytes(() => readLimited(this.path, this.options), workerRunner(this.options, this.path));
+    const bytes = await this.resultsBytes(() => readLimited(this.path, this.options), inflateRawNode);
     if (!bytes.ok) return bytes;
     return writeOutputFile(this.path, outPath, bytes.value);
   }

@@ -10,7 +10,6 @@ import XLSX from 'xlsx';
 /**
  * workerData:
  *   mode 'grids':  { bytes: Uint8Array, maxCells, errorNames }     -> { ok, sheets: [{ name, origin, cells }] }
- *   mode 'append': { bytes: Uint8Array, sheets: [{ name, sheet }] } -> { ok, bytes: Uint8Array }
  *   testHook: 'pollute-prototype' | 'never-finish' | 'exhaust-heap' (tests of the isolation only)
  */
 const job = workerData;
@@ -96,18 +95,9 @@ function grids() {
   return { ok: true, sheets };
 }
 
-/** The source workbook as SheetJS keeps it, with our sheets added after its own. */
-function append() {
-  const book = XLSX.read(job.bytes, { type: 'array', cellNF: true, cellFormula: true, cellStyles: true, bookVBA: true });
-  for (const { name, sheet } of job.sheets) XLSX.utils.book_append_sheet(book, sheet, name);
-  const out = XLSX.write(book, { type: 'array', bookType: job.bookType ?? 'xlsx', compression: true });
-  return { ok: true, bytes: new Uint8Array(out) };
-}
-
 try {
   runTestHook(job.testHook);
-  const answer = job.mode === 'append' ? append() : grids();
-  parentPort.postMessage(answer, answer.bytes ? [answer.bytes.buffer] : []);
+  parentPort.postMessage(grids());
 } catch (e) {
   parentPort.postMessage({ ok: false, message: e instanceof Error ? e.message : String(e) });
 }

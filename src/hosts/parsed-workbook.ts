@@ -2,14 +2,14 @@
 // sheets queued for a copy of it. Neutral about where it runs (no node: imports): the command
 // line (file-host.ts) and the standalone page (browser-file-host.ts) each bring the file's bytes
 // and their own way of running parse-worker.mjs, the only place SheetJS parses a user's file.
-import XLSX from 'xlsx';
 import { fail, ok, type Result } from '../logic/result.js';
 import type { SheetBlock } from '../report/sheet-block.js';
 import { parseCsv } from '../spec/csv.js';
 import { cellAddress, parseRange, restrictGrid } from '../spec/grid.js';
 import type { CellValue, Grid } from '../spec/types.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
-import { ERROR_CODES, freeSheetName, sheetFromBlock, sheetFromCells } from './xlsx-write.js';
+import { addSheets, newWorkbook, type InflateRaw, type NamedBlock } from './xlsx-package.js';
+import { ERROR_CODES, freeSheetName } from './xlsx-write.js';
 
 export type FileKind = 'workbook' | 'csv';
 
@@ -124,7 +124,7 @@ export async function readSheets(
 
 /** A file read into plain grids, with result sheets queued for a copy of it. */
 export class ParsedWorkbook implements WorkbookHost {
-  private readonly queued: { name: string; sheet: XLSX.WorkSheet }[] = [];
+  private readonly queued: NamedBlock[] = [];
 
   constructor(
     /** The file as errors name it: a path on the command line, a file name in the page. */
@@ -160,9 +160,10 @@ export class ParsedWorkbook implements WorkbookHost {
   async writeSheet(block: SheetBlock): Promise<WriteReport> {
     const taken = [...this.sheets.map((s) => s.name), ...this.queued.map((q) => q.name)];
     const name = freeSheetName(block.name, taken);
-    const sheet = sheetFromBlock(block);
-    this.queued.push({ name, sheet });
-    return { sheet: name, range: sheet['!ref'] ?? 'A1', cells: Object.keys(sheet).filter((k) => !k.startsWith('!')).length };
+    this.queued.push({ name, block });
+    const width = Math.max(1, ...block.rows.map((r) => r.length));
+    const cells = block.rows.reduce((n, r) => n + r.filter((c) => c !== null && (c.value !== null || c.formula !== undefined)).length, 0);
+    return { sheet: name, range: `A1:${cellAddress(Math.max(0, block.rows.length - 1), width - 1)}`, cells };
   }
 
   /** Sheets queued so far, by name. */
@@ -171,26 +172,14 @@ export class ParsedWorkbook implements WorkbookHost {
   }
 
   /**
-   * The file's sheets followed by the queued ones, as .xlsx bytes. A workbook source is parsed
-   * again by `run` and our sheets appended there (never in this realm); `source` gives its bytes.
+   * The file's sheets followed by the queued ones, as .xlsx bytes: our sheets are added to a
+   * copy of the workbook's package, every part of it kept as it was (xlsx-package.ts); a CSV
+   * source becomes the first sheet of a new workbook. `source` gives the workbook's bytes.
    */
-  protected async resultsBytes(source: () => Promise<Result<Uint8Array>>, run: RunParseJob): Promise<Result<Uint8Array>> {
-    if (this.kind === 'csv') return ok(this.csvWorkbook());
-    const bytes = await source();
-    if (!bytes.ok) return bytes;
-    const raw = await run({ mode: 'append', sheets: this.queued }, bytes.value);
-    if (!raw.ok) return raw;
-    const answer = workerAnswer(raw.value, this.what, (m) => `${this.what}: could not be copied (${m})`);
-    if (!answer.ok) return answer;
-    const out = answer.value.bytes;
-    return out instanceof Uint8Array ? ok(out) : fail({ message: `${this.what}: the writer returned no file` });
-  }
-
-  /** A CSV source becomes the first sheet of the results workbook. */
-  private csvWorkbook(): Uint8Array {
-    const book = XLSX.utils.book_new();
-    for (const s of this.sheets) XLSX.utils.book_append_sheet(book, sheetFromCells(s.grid!.cells, s.grid!.origin), s.name);
-    for (const q of this.queued) XLSX.utils.book_append_sheet(book, q.sheet, q.name);
-    return new Uint8Array(XLSX.write(book, { type: 'array', bookType: 'xlsx', compression: true }) as ArrayBuffer);
+  protected async resultsBytes(source: () => Promise<Result<Uint8Array>>, inflate: InflateRaw): Promise<Result<Uint8Array>> {
+    const added = this.kind === 'csv'
+      ? await newWorkbook(this.sheets.map((s) => ({ name: s.name, origin: s.grid!.origin, cells: s.grid!.cells })), this.queued)
+      : await source().then((bytes) => (bytes.ok ? addSheets(bytes.value, this.queued, inflate) : bytes));
+    return added.ok ? added : fail({ message: `${this.what}: ${added.error.message}` });
   }
 }

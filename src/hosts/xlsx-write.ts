@@ -1,7 +1,6 @@
-// Cells and sheet blocks -> SheetJS sheets, for the file host and the sample generator.
+// Cells -> SheetJS sheets, for the sample generator and benches; sheet names for every host.
 // Runs in the main thread: it only builds objects from our own data, it never parses a file.
 import XLSX from 'xlsx';
-import type { BlockCell, SheetBlock } from '../report/sheet-block.js';
 import type { CellValue } from '../spec/types.js';
 
 /** Excel's error codes as stored in a file (SheetJS writes `{ t: 'e', v: code }`). */
@@ -41,37 +40,6 @@ export function sheetFromCells(rows: readonly (readonly CellValue[])[], origin =
     }),
   );
   sheet['!ref'] = XLSX.utils.encode_range(start, { r: lastRow, c: lastCol });
-  return sheet;
-}
-
-/**
- * Excel's functions added after the 2007 file format must carry the `_xlfn.` prefix inside a
- * file, or Excel shows #NAME? (DESIGN.md section 3). Of those, our formulas use XOR.
- */
-export function fileFormula(typed: string): string {
-  return typed.replace(/(?<![A-Za-z0-9_.])XOR\(/gi, '_xlfn.XOR(');
-}
-
-function blockCellObject(cell: BlockCell): XLSX.CellObject | undefined {
-  const plain = cellObject(cell.value);
-  if (cell.formula === undefined) return plain;
-  // A formula cell keeps its expected value as the cached value, shown until Excel recalculates.
-  return { ...(plain ?? { t: 's', v: '' }), f: fileFormula(cell.formula) };
-}
-
-/** The sheet for a block, rows from A1, with its column widths. */
-export function sheetFromBlock(block: SheetBlock): XLSX.WorkSheet {
-  const sheet: XLSX.WorkSheet = {};
-  let width = 1;
-  block.rows.forEach((row, r) => {
-    width = Math.max(width, row.length);
-    row.forEach((cell, c) => {
-      const object = cell ? blockCellObject(cell) : undefined;
-      if (object) sheet[XLSX.utils.encode_cell({ r, c })] = object;
-    });
-  });
-  sheet['!ref'] = XLSX.utils.encode_range({ r: 0, c: 0 }, { r: Math.max(0, block.rows.length - 1), c: width - 1 });
-  if (block.columnWidths) sheet['!cols'] = block.columnWidths.map((wch) => ({ wch }));
   return sheet;
 }
 

@@ -78,33 +78,92 @@ const SPELLED: Record<string, string> = {
  * and single underscores, starting with a letter, not a reserved word, at most 24 characters,
  * unique case-insensitively. Accents are transliterated (ä -> ae, é -> e, ß -> ss); other
  * characters become word breaks. A leading digit gets the prefix `S_`; a reserved word the
- * suffix `_Sig`; a repeated name `_2`, `_3`, ... (a name that is unique as derived keeps it);
- * a header with nothing usable becomes `Signal_<position>` (1-based).
+ * suffix `_Sig`; a header with nothing usable becomes `Signal_<position>` (1-based).
+ * A long name is cut at a word break; when that cut is another header's name too (or its
+ * cut), whole words are left out instead so that a word tells the headers apart
+ * (`Light_curtain_active` beside `Light_curtain_muting`); headers alike as names, or ones no
+ * choice of words tells apart, get `_2`, `_3`, ... (a name that is unique as derived keeps it).
  */
 export function toIdentifiers(headers: readonly string[]): string[] {
-  const bases = headers.map((h, i) => baseIdentifier(h) || `Signal_${i + 1}`);
-  // Every name as derived is reserved for its first header; repeats take the next free suffix.
-  const taken = new Set(bases.map((b) => b.toLowerCase()));
+  const full = headers.map((h, i) => baseIdentifier(h) || `Signal_${i + 1}`);
+  const fits = full.map((f) => f.length <= MAX_IDENTIFIER_LENGTH);
+  const prefix = full.map((f, i) => (fits[i] ? f : wordBreakCut(f)));
+  // A name that fits as derived is reserved for its header; cut and repeated names come after.
+  const taken = new Set(full.filter((_, i) => fits[i]).map((f) => f.toLowerCase()));
   const used = new Set<string>();
-  return bases.map((base) => {
-    let name = base;
-    for (let k = 2; used.has(name.toLowerCase()); k++) {
-      const candidate = withSuffix(base, `_${k}`);
-      if (!taken.has(candidate.toLowerCase()) && !isReserved(candidate)) name = candidate;
+  return full.map((name, i) => {
+    // A cut that another, different name also cuts to (or is) tells nothing apart: choose words.
+    const key = prefix[i]!.toLowerCase();
+    const ambiguous = !fits[i] && full.some((other, j) => j !== i && other.toLowerCase() !== name.toLowerCase() && prefix[j]!.toLowerCase() === key);
+    // Headers that read alike as names are told apart by number, not by dropping different words.
+    const twin = full.some((other, j) => j !== i && other.toLowerCase() === name.toLowerCase());
+    const candidates = fits[i] || twin ? [prefix[i]!] : ambiguous ? [...wordChoices(name), prefix[i]!] : [prefix[i]!, ...wordChoices(name)];
+    const free = (c: string): boolean => !used.has(c.toLowerCase()) && (fits[i] || !taken.has(c.toLowerCase()));
+    let chosen = candidates.find(free);
+    for (let k = 2; chosen === undefined; k++) {
+      const candidate = withSuffix(prefix[i]!, `_${k}`);
+      if (!used.has(candidate.toLowerCase()) && !taken.has(candidate.toLowerCase()) && !isReserved(candidate)) chosen = candidate;
     }
-    used.add(name.toLowerCase());
-    taken.add(name.toLowerCase());
-    return name;
+    used.add(chosen.toLowerCase());
+    taken.add(chosen.toLowerCase());
+    return chosen;
   });
 }
 
+/** The identifier a header gets before any cut or suffix for uniqueness (may be too long). */
+export function fullIdentifier(header: string): string {
+  return baseIdentifier(header);
+}
+
+/** Words of a long name beyond which the choices of words to keep are not searched. */
+const MAX_WORDS_SEARCHED = 12;
+
+/** A name too long cut at a word break (see withSuffix), not left a reserved word. */
+function wordBreakCut(name: string): string {
+  const cut = withSuffix(name, '');
+  return isReserved(cut) ? withSuffix(cut, '_Sig') : cut;
+}
+
+/**
+ * Shorter forms of a name too long made of whole words, best first: the first word always
+ * kept, then preferring the last word kept, more words, more characters, the earlier words.
+ * A number stays with the word before it (`sensor_2` is one word here).
+ */
+function wordChoices(name: string): string[] {
+  const words: string[] = [];
+  for (const w of name.split('_')) {
+    if (/^[0-9]+$/.test(w) && words.length > 0) words[words.length - 1] += `_${w}`;
+    else words.push(w);
+  }
+  const k = Math.min(words.length, MAX_WORDS_SEARCHED);
+  const scored: { text: string; key: number[] }[] = [];
+  // Subsets that keep word 0: bit j of `pick` keeps word j + 1.
+  for (let pick = 0; pick < 1 << (k - 1); pick++) {
+    const kept = [0];
+    for (let j = 1; j < k; j++) if (pick & (1 << (j - 1))) kept.push(j);
+    const text = kept.map((i) => words[i]!).join('_');
+    if (text.length > MAX_IDENTIFIER_LENGTH || isReserved(text)) continue;
+    const keepsLast = kept[kept.length - 1] === k - 1 ? 1 : 0;
+    scored.push({ text, key: [-keepsLast, -kept.length, -text.length, ...kept] });
+  }
+  return scored.sort((a, b) => compareKeys(a.key, b.key)).map((c) => c.text);
+}
+
+function compareKeys(a: readonly number[], b: readonly number[]): number {
+  for (let i = 0; i < Math.max(a.length, b.length); i++) {
+    const d = (a[i] ?? -1) - (b[i] ?? -1);
+    if (d !== 0) return d;
+  }
+  return 0;
+}
+
+/** The header as an identifier, not yet cut to the length limit: spelt in ASCII, prefixed or suffixed as needed. */
 function baseIdentifier(header: string): string {
   const spelled = [...header].map((ch) => SPELLED[ch] ?? ch).join('');
   const ascii = spelled.normalize('NFKD').replace(/\p{M}/gu, '');
   let name = ascii.replace(/[^A-Za-z0-9]+/g, '_').replace(/^_+|_+$/g, '');
   if (name === '') return '';
   if (/^[0-9]/.test(name)) name = `S_${name}`;
-  name = withSuffix(name, '');
   if (isReserved(name)) name = withSuffix(name, '_Sig');
   return name;
 }

@@ -1,12 +1,13 @@
 // One output of a wide spec (up to 64 inputs) analysed symbolically: the AND/OR form, the XOR
 // form and the best-polarity XOR form, each proven against the spec on every combination.
-import type { Node } from './bdd.js';
+import { FALSE, type Node } from './bdd.js';
 import { FALSE as FALSE_EXPR, TRUE as TRUE_EXPR, and, not, or, variable, xor, type Expr } from './expr/ast.js';
 import { printSt } from './expr/print-st.js';
 import type { SafeValue } from './boolfn.js';
 import type { Signal } from './signals.js';
 import { XOR_PRINT_LIMIT, wideAnf, wideBestPolarity, type WideAnf } from './wide-anf.js';
-import { inputBit, type WideCube } from './wide-cube.js';
+import { inputBit, type WideCombination, type WideCube } from './wide-cube.js';
+import { LISTED } from './proof.js';
 import type { WideFunction } from './wide-fn.js';
 import { exprToBdd, proveWide, type WideProof } from './wide-proof.js';
 import { minimiseWide } from './wide-sop.js';
@@ -45,9 +46,27 @@ export interface WideOutputForms {
   readonly xor: WideXor;
   readonly bestXor: WideXor;
   readonly degree: number;
-  /** Inputs the output does not depend on (don't-cares at the safe value), by index. */
+  /** Inputs the resolved function does not depend on, by index. */
   readonly unusedInputs: number[];
   readonly dontCareCount: bigint;
+  /** How the don't-cares were resolved into the one function every form is proven equal to. */
+  readonly dontCares: WidePolicy;
+  /** Don't-care combinations the resolved function turns ON: the first LISTED, the count exact. */
+  readonly permitsAlso: WideCombination[];
+  readonly permitsAlsoCount: bigint;
+}
+
+/** As `DontCarePolicy` (spec/types.ts): `minimal` as the minimal AND/OR form uses them, `safe` at the safe value. */
+export type WidePolicy = 'minimal' | 'safe';
+
+/** The spec with its don't-cares at the safe value (none left). */
+function atSafeValue(fn: WideFunction, safe: SafeValue): WideFunction {
+  return { dd: fn.dd, on: safe === 1 ? fn.dd.or(fn.on, fn.dc) : fn.on, dc: FALSE };
+}
+
+/** The one function of an output: `andOr` is the AND/OR form's values (minimised as the policy says). */
+export function wideResolved(fn: WideFunction, safe: SafeValue, policy: WidePolicy, andOr: Node): Node {
+  return policy === 'minimal' ? fn.dd.or(fn.on, fn.dd.and(andOr, fn.dc)) : atSafeValue(fn, safe).on;
 }
 
 /** A sum of products over the signals' identifiers, literals in input order. */
@@ -79,29 +98,37 @@ export function analyseWideOutput(
   fn: WideFunction,
   safe: SafeValue,
   signals: readonly Signal[],
-  options: { budgetMs?: number } = {},
+  options: { budgetMs?: number; dontCares?: WidePolicy } = {},
 ): WideOutputForms {
   const { dd } = fn;
-  const sop = minimiseWide(fn, options);
+  const policy = options.dontCares ?? 'minimal';
+  const sop = minimiseWide(policy === 'minimal' ? fn : atSafeValue(fn, safe), options);
   const andOrExpr = wideSopToExpr(sop.cubes, signals);
-  const andOr: WideAndOr = {
-    ...sop,
-    expr: andOrExpr,
-    text: printSt(andOrExpr),
-    proof: proveWide(fn, exprToBdd(dd, andOrExpr)),
-  };
-  // The XOR forms are of the completely specified function: don't-cares at the safe value.
-  const values = safe === 1 ? dd.or(fn.on, fn.dc) : fn.on;
-  const plain = wideAnf(dd, values);
-  const best = wideBestPolarity(dd, values);
-  const xorForm = xorOf(fn, signals, plain, 0n, true);
-  const bestXor = xorOf(fn, signals, best.anf, best.polarity, best.exhaustive);
+  const andOrValues = exprToBdd(dd, andOrExpr);
+  // Every form, the XOR forms' terms included, is of this one function.
+  const resolved = wideResolved(fn, safe, policy, andOrValues);
+  const andOr: WideAndOr = { ...sop, expr: andOrExpr, text: printSt(andOrExpr), proof: proveWide(fn, andOrValues, resolved) };
+  const plain = wideAnf(dd, resolved);
+  const best = wideBestPolarity(dd, resolved);
+  const xorForm = xorOf(fn, resolved, signals, plain, 0n, true);
+  const bestXor = xorOf(fn, resolved, signals, best.anf, best.polarity, best.exhaustive);
   const unusedInputs: number[] = [];
   for (let i = 0; i < dd.n; i++) if (!(plain.support & inputBit(dd.n, i))) unusedInputs.push(i);
-  return { andOr, xor: xorForm, bestXor, degree: plain.degree, unusedInputs, dontCareCount: dd.satCount(fn.dc) };
+  const permits = dd.and(resolved, fn.dc);
+  return {
+    andOr,
+    xor: xorForm,
+    bestXor,
+    degree: plain.degree,
+    unusedInputs,
+    dontCareCount: dd.satCount(fn.dc),
+    dontCares: policy,
+    permitsAlso: dd.minterms(permits, LISTED),
+    permitsAlsoCount: dd.satCount(permits),
+  };
 }
 
-function xorOf(fn: WideFunction, signals: readonly Signal[], anf: WideAnf, polarity: bigint, exhaustive: boolean): WideXor {
+function xorOf(fn: WideFunction, resolved: Node, signals: readonly Signal[], anf: WideAnf, polarity: bigint, exhaustive: boolean): WideXor {
   const { dd } = fn;
   const expr = anf.monomials && wideAnfToExpr(anf.monomials, signals, polarity);
   const values: Node = expr ? exprToBdd(dd, expr) : dd.flip(dd.zToBdd(anf.zdd), polarity);
@@ -114,6 +141,6 @@ function xorOf(fn: WideFunction, signals: readonly Signal[], anf: WideAnf, polar
     degree: anf.degree,
     exhaustive,
     proofOf: expr ? 'expression' : 'terms',
-    proof: proveWide(fn, values),
+    proof: proveWide(fn, values, resolved),
   };
 }

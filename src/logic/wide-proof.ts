@@ -34,10 +34,13 @@ export function exprToBdd(dd: Dd, expr: Expr): Node {
   }
 }
 
-/** Check a form (its BDD) against the spec: mismatches on the care set, don't-cares turned ON. */
-export function proveWide(fn: WideFunction, values: Node): WideProof {
+/**
+ * Check a form (its BDD) against the spec: mismatches on the care set, or on every combination
+ * against `resolved` (the spec's don't-cares resolved) when given; don't-cares turned ON.
+ */
+export function proveWide(fn: WideFunction, values: Node, resolved?: Node): WideProof {
   const { dd } = fn;
-  const wrong = dd.minus(dd.xor(values, fn.on), fn.dc);
+  const wrong = resolved === undefined ? dd.minus(dd.xor(values, fn.on), fn.dc) : dd.xor(values, resolved);
   const permits = dd.and(values, fn.dc);
   return {
     combinations: 1n << BigInt(dd.n),

@@ -179,7 +179,7 @@ function rungElement(x: XmlWriter, place: RungPlace): void {
       x.empty('position', { x: String(node.x - 1), y: String(top + graph.railTop) });
       if (node.kind === 'left-rail') {
         x.open('connectionPointOut', { formalParameter: '' });
-        x.empty('relPosition', { x: '2', y: String(graph.nodes[1]!.y - graph.railTop) });
+        x.empty('relPosition', { x: '2', y: String(graph.nodes.find((n) => n.kind === 'coil')!.y - graph.railTop) });
         x.close();
       } else {
         x.open('connectionPointIn');
@@ -199,6 +199,16 @@ function rungElement(x: XmlWriter, place: RungPlace): void {
       pointIn();
       pointOut();
       x.text('variable', node.kind === 'contact' ? place.inputs[node.input!]!.identifier : place.coil.identifier);
+      x.close();
+      return;
+    }
+    case 'connector':
+    case 'continuation': {
+      // Names are unique in the body: the rung's coil, then the number shown in the picture.
+      x.open(node.kind, { name: `${place.coil.identifier}_${node.name!}`, localId, height: '16', width: String(node.width) });
+      x.empty('position', { x: String(node.x), y: String(top + node.y - 8) });
+      if (node.kind === 'connector') pointIn();
+      else pointOut();
       x.close();
     }
   }

@@ -12,6 +12,7 @@ import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
 import { cellAddress, qualifiedAddress } from '../spec/grid.js';
 import { CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
+import { printSetup } from './sheet-looks.js';
 import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
 import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
 import { plural } from './text.js';
@@ -52,7 +53,7 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
   for (const o of analysis.outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
   rows.push([]);
 
-  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis)), []);
+  rows.push([heading('Test steps (unique cause)')], ...stepBlockRows(stepTable(analysis), analysis.outputs.length), []);
 
   const statusRanges: string[] = [];
   if (n <= LIVE_CHECK_MAX_INPUTS) {
@@ -72,6 +73,7 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
     rows,
     columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: n + 4 * analysis.outputs.length }, () => 12)],
     statusRanges,
+    print: printSetup(`Results of ${qualifiedAddress(table.sheet, table.range)}`),
   };
 }
 

@@ -22,4 +22,15 @@ export interface SheetBlock {
   readonly columnWidths?: readonly number[];
   /** A1 ranges of status cells that read OK / DIFFERS, for a conditional format. */
   readonly statusRanges?: readonly string[];
+  /** How the sheet prints: landscape, one page wide, the first `titleRows` rows on every page, a footer. */
+  readonly print?: PrintSetup;
+}
+
+export interface PrintSetup {
+  readonly landscape: boolean;
+  readonly fitToWidth: boolean;
+  /** Rows repeated at the top of every printed page (from row 1). */
+  readonly titleRows: number;
+  /** Footer text (left part); the page number goes on the right. */
+  readonly footer: string;
 }

@@ -3,19 +3,20 @@
 // so that every host reads them as it reads analyse.ts's. Chosen by `npm run bench -- wide`:
 // on sparse tables the truth-table proofs of the bit-set path cost seconds at 20 inputs and
 // minutes at 24, the BDDs a fraction of a second.
-import { count, popcount } from '../logic/bits.js';
-import { DdTooLarge } from '../logic/bdd.js';
-import type { SafeValue } from '../logic/boolfn.js';
+import { count, emptySet, popcount, union, type BitSet } from '../logic/bits.js';
+import { DdTooLarge, type Node } from '../logic/bdd.js';
+import type { BoolFunction } from '../logic/boolfn.js';
+import { cubeToSet } from '../logic/cube.js';
 import { anfToExpr } from '../logic/expr/forms.js';
 import { printSt } from '../logic/expr/print-st.js';
 import { uniqueCauseSteps } from '../logic/steps.js';
-import { analyseWideOutput, type WideXor } from '../logic/wide-analysis.js';
+import { analyseWideOutput, wideResolved, type WideXor } from '../logic/wide-analysis.js';
 import { toNarrow } from '../logic/wide-cube.js';
 import type { WideFunction } from '../logic/wide-fn.js';
 import { exprToBdd, proveWide, type WideProof } from '../logic/wide-proof.js';
 import type { Signal } from '../logic/signals.js';
 import { outputProblems, type AnalyseOptions } from './analyse.js';
-import { conflictReports, wideSpecOf } from './analyse-wide.js';
+import { conflictReports, wideOptions, wideSpecOf } from './analyse-wide.js';
 import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import { wideBuilt } from './read-wide.js';
 import type { Problem, SpecTable } from './types.js';
@@ -46,12 +47,21 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
   const problems: Problem[] = [...table.problems];
   const outputs = table.outputs.map((output, j): OutputAnalysis => {
     const wide = built[j]!.fn;
-    const { fn } = output.built;
-    const forms = analyseWideOutput(wide, output.safe, table.inputs, options.budgetMs === undefined ? {} : { budgetMs: options.budgetMs });
+    const spec = output.built.fn;
+    const forms = analyseWideOutput(wide, output.safe, table.inputs, wideOptions(table, options));
     const cubes = forms.andOr.cubes.map(toNarrow);
+    // The one function of this output, as a bit set: the spec's ON set and the don't-cares the policy turned ON.
+    const on = wideResolved(wide, output.safe, forms.dontCares, exprToBdd(wide.dd, forms.andOr.expr));
+    const permits = setOf(wide, wide.dd.and(on, wide.dc));
+    const resolved: BoolFunction = { n, on: union(spec.on, permits), dc: emptySet(n) };
     const analysed: OutputAnalysis = {
       signal: output.signal,
       safe: output.safe,
+      dontCares: forms.dontCares,
+      resolved,
+      permitsAlso: forms.permitsAlso.map(Number),
+      permitsAlsoCount: Number(forms.permitsAlsoCount),
+      permitsAlsoCubes: gapCubes(n, permits).cubes,
       andOr: {
         cubes,
         expr: forms.andOr.expr,
@@ -61,15 +71,15 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
         literals: forms.andOr.literals,
         ...proofFields(forms.andOr.proof),
       },
-      xor: xorForm(wide, output.safe, forms.xor, table.inputs),
-      bestXor: xorForm(wide, output.safe, forms.bestXor, table.inputs),
+      xor: xorForm(wide, on, forms.xor, table.inputs),
+      bestXor: xorForm(wide, on, forms.bestXor, table.inputs),
       degree: forms.degree,
       unusedInputs: forms.unusedInputs,
       gaps,
       gapCount: count(gapSet),
       conflicts: conflictReports(table, output.built.conflicts),
-      dontCareCount: count(fn.dc),
-      steps: uniqueCauseSteps(cubes, fn, table.inputs),
+      dontCareCount: count(spec.dc),
+      steps: uniqueCauseSteps(cubes, resolved, table.inputs),
     };
     problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));
     progress(`${output.signal.header}: forms`);
@@ -78,21 +88,27 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
   return { table, inputs: table.inputs, outputs, problems };
 }
 
-/** Every term listed and printed, as the bit-set path does, and the printed expression proven. */
-function xorForm(fn: WideFunction, safe: SafeValue, form: WideXor, inputs: readonly Signal[]): XorForm {
+/** A function of at most 24 inputs as a bit set, painted from its BDD's disjoint path cubes. */
+function setOf(fn: WideFunction, f: Node): BitSet {
+  const into = emptySet(fn.dd.n);
+  for (const c of fn.dd.pathCubes(f).cubes) cubeToSet(fn.dd.n, toNarrow(c), into);
+  return into;
+}
+
+/** Every term listed and printed, as the bit-set path does, and the printed expression proven against `resolved`. */
+function xorForm(fn: WideFunction, resolved: Node, form: WideXor, inputs: readonly Signal[]): XorForm {
   const { dd } = fn;
   const polarity = Number(form.polarity);
-  const monomials = form.monomials ? form.monomials.map(Number) : allMonomials(fn, safe, form.polarity);
+  const monomials = form.monomials ? form.monomials.map(Number) : allMonomials(fn, resolved, form.polarity);
   const expr = form.expr ?? anfToExpr(monomials, inputs, polarity);
-  const proof = form.expr ? form.proof : proveWide(fn, exprToBdd(dd, expr));
+  const proof = form.expr ? form.proof : proveWide(fn, exprToBdd(dd, expr), resolved);
   return { monomials, polarity, expr, text: printSt(expr), terms: monomials.length, exhaustive: form.exhaustive, ...proofFields(proof) };
 }
 
-/** Every monomial of an XOR form (don't-cares at the safe value, its polarity applied), in printed order. */
-function allMonomials(fn: WideFunction, safe: SafeValue, polarity: bigint): number[] {
+/** Every monomial of an XOR form of the resolved function (its polarity applied), in printed order. */
+function allMonomials(fn: WideFunction, resolved: Node, polarity: bigint): number[] {
   const { dd } = fn;
-  const values = safe === 1 ? dd.or(fn.on, fn.dc) : fn.on;
-  const ms = dd.zMembers(dd.anf(dd.flip(values, polarity)), Infinity).map(Number);
+  const ms = dd.zMembers(dd.anf(dd.flip(resolved, polarity)), Infinity).map(Number);
   const degree = (m: number): number => popcount(m);
   return ms.sort((a, b) => degree(a) - degree(b) || b - a);
 }

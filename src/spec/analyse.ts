@@ -1,19 +1,22 @@
 // A spec table -> per output its AND/OR and XOR forms, each proven against every input
 // combination, with gaps, conflicts and commissioning test steps.
 import { anfDegree, anfOf, anfSupport, type Monomial } from '../logic/anf.js';
-import { count, emptySet, union } from '../logic/bits.js';
+import { count, emptySet, intersect, members, union, type BitSet } from '../logic/bits.js';
 import type { BoolFunction } from '../logic/boolfn.js';
 import type { Cube } from '../logic/cube.js';
 import { truthTable } from '../logic/expr/evaluate.js';
 import { anfToExpr, sopToExpr } from '../logic/expr/forms.js';
 import { printSt } from '../logic/expr/print-st.js';
 import { bestPolarity } from '../logic/polarity.js';
-import { prove } from '../logic/proof.js';
+import { LISTED, prove } from '../logic/proof.js';
 import type { Signal } from '../logic/signals.js';
 import { minimiseSop } from '../logic/sop.js';
 import { uniqueCauseSteps } from '../logic/steps.js';
 import type { AndOrForm, FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
-import type { OutputSpec, Problem, SpecTable } from './types.js';
+import type { OutputSpec, Problem, ProblemCode, SpecTable } from './types.js';
+import { patternTable } from './patterns.js';
+import { describeCube } from './read-tables.js';
+import { settingName } from './settings.js';
 import { gapCubes } from './uncovered.js';
 import { analyseWide, conflictReports } from './analyse-wide.js';
 import { SYMBOLIC_FROM_INPUTS, analyseSymbolically } from './analyse-symbolic.js';
@@ -65,11 +68,17 @@ function analyseOutput(
   sopOptions: { budgetMs?: number },
   progress: (stage: string) => void,
 ): OutputAnalysis {
-  const { fn } = output.built;
+  const spec = output.built.fn;
+  const n = spec.n;
   const inputs = table.inputs;
-  const sop = minimiseSop(fn, sopOptions);
+  const policy = table.dontCares ?? 'minimal';
+  // The one function of this output: its don't-cares resolved once, by the policy.
+  const atSafe: BoolFunction = { n, on: output.safe === 1 ? union(spec.on, spec.dc) : spec.on, dc: emptySet(n) };
+  const sop = minimiseSop(policy === 'minimal' ? spec : atSafe, sopOptions);
   const andOrExpr = sopToExpr(sop.cubes, inputs);
-  const andOrProof = prove(fn, truthTable(andOrExpr, fn.n));
+  const andOrValues = truthTable(andOrExpr, n);
+  const resolved: BoolFunction =
+    policy === 'minimal' ? { n, on: union(spec.on, intersect(andOrValues, spec.dc)), dc: emptySet(n) } : atSafe;
   const andOr: AndOrForm = {
     cubes: sop.cubes,
     expr: andOrExpr,
@@ -77,27 +86,29 @@ function analyseOutput(
     proven: sop.proven,
     terms: sop.terms,
     literals: sop.literals,
-    proof: formProof(andOrProof),
-    permitsAlso: andOrProof.permitsAlso,
-    permitsAlsoCount: andOrProof.permitsAlsoCount,
+    ...checked(spec, resolved, andOrValues),
   };
   progress('AND/OR form');
 
-  // The XOR forms are of the completely specified function: don't-cares take the safe value.
-  const values = output.safe === 1 ? union(fn.on, fn.dc) : fn.on;
-  const monomials = anfOf(values, fn.n);
-  const xor = xorForm(fn, inputs, monomials, 0, true);
+  const monomials = anfOf(resolved.on, n);
+  const xor = xorForm(spec, resolved, inputs, monomials, 0, true);
   progress('XOR form');
-  const best = bestPolarity(values, fn.n);
-  const bestXor = xorForm(fn, inputs, best.monomials, best.polarity, best.exhaustive);
+  const best = bestPolarity(resolved.on, n);
+  const bestXor = xorForm(spec, resolved, inputs, best.monomials, best.polarity, best.exhaustive);
   progress('best-polarity XOR form');
 
-  const support = anfSupport(monomials, fn.n);
-  const steps = uniqueCauseSteps(sop.cubes, fn, inputs);
+  const support = anfSupport(monomials, n);
+  const steps = uniqueCauseSteps(sop.cubes, resolved, inputs);
   progress('test steps');
+  const permits = intersect(resolved.on, spec.dc);
   return {
     signal: output.signal,
     safe: output.safe,
+    dontCares: policy,
+    resolved,
+    permitsAlso: members(permits, LISTED),
+    permitsAlsoCount: count(permits),
+    permitsAlsoCubes: gapCubes(n, permits).cubes,
     andOr,
     xor,
     bestXor,
@@ -106,20 +117,20 @@ function analyseOutput(
     gaps,
     gapCount,
     conflicts: conflictReports(table, output.built.conflicts),
-    dontCareCount: count(fn.dc),
+    dontCareCount: count(spec.dc),
     steps,
   };
 }
 
 function xorForm(
-  fn: BoolFunction,
+  spec: BoolFunction,
+  resolved: BoolFunction,
   inputs: readonly Signal[],
   monomials: readonly Monomial[],
   polarity: number,
   exhaustive: boolean,
 ): XorForm {
   const expr = anfToExpr(monomials, inputs, polarity);
-  const proof = prove(fn, truthTable(expr, fn.n));
   return {
     monomials,
     polarity,
@@ -127,10 +138,14 @@ function xorForm(
     text: printSt(expr),
     terms: monomials.length,
     exhaustive,
-    proof: formProof(proof),
-    permitsAlso: proof.permitsAlso,
-    permitsAlsoCount: proof.permitsAlsoCount,
+    ...checked(spec, resolved, truthTable(expr, spec.n)),
   };
+}
+
+/** A form's values proven against the resolved function; the don't-cares it turns ON, from the spec. */
+function checked(spec: BoolFunction, resolved: BoolFunction, values: BitSet): Pick<AndOrForm, 'proof' | 'permitsAlso' | 'permitsAlsoCount'> {
+  const { permitsAlso, permitsAlsoCount } = prove(spec, values);
+  return { proof: formProof(prove(resolved, values)), permitsAlso, permitsAlsoCount };
 }
 
 function formProof(p: FormProof): FormProof {
@@ -139,7 +154,7 @@ function formProof(p: FormProof): FormProof {
 
 /** What the analysis adds to the table's problems for one output, pinned to its header cell. */
 export function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
-  const at = (severity: Problem['severity'], message: string): Problem => ({ severity, sheet: table.sheet, cell, message });
+  const at = (severity: Problem['severity'], code: ProblemCode, message: string): Problem => ({ severity, code, sheet: table.sheet, cell, message });
   const out: Problem[] = [];
   const forms: [string, { proof: FormProof }][] = [
     ['AND/OR form', o.andOr],
@@ -148,13 +163,41 @@ export function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string
   ];
   for (const [name, form] of forms)
     if (form.proof.mismatchCount > 0)
-      out.push(at('error', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
+      out.push(at('error', 'form-differs', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
   if (!o.andOr.proven)
-    out.push(at('info', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal`));
+    out.push(at('info', 'not-proven', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal`));
   if (o.unusedInputs.length > 0) {
     const names = o.unusedInputs.map((i) => table.inputs[i]!.header).join(', ');
-    const where = o.dontCareCount > 0 ? ` (don't-cares taken as the safe value ${o.safe})` : '';
-    out.push(at('info', `${o.signal.header} does not depend on ${names}${where}`));
+    const where = o.dontCareCount > 0 ? ` (don't-cares resolved ${POLICY_WORDS[o.dontCares]})` : '';
+    out.push(at('info', 'unused-inputs', `${o.signal.header} does not depend on ${names}${where}`));
   }
+  const permits = permitsAlsoProblem(table, o, cell);
+  if (permits) out.push(permits);
   return out;
+}
+
+export const POLICY_WORDS = { minimal: 'as the minimal AND/OR form uses them', safe: 'at the safe value' } as const;
+
+/** How many cubes of a permits-also warning its message spells out (its pattern table has up to LISTED). */
+const PERMITS_SHOWN = 8;
+
+/** The don't-cares the resolved function turned ON: a warning at the output's header cell. */
+function permitsAlsoProblem(table: SpecTable, o: OutputAnalysis, cell: string): Problem | undefined {
+  if (o.permitsAlsoCount === 0) return undefined;
+  const cubes = o.permitsAlsoCubes;
+  const shown = cubes.slice(0, PERMITS_SHOWN).map((c) => describeCube(c, table.inputs));
+  const more = cubes.length > PERMITS_SHOWN ? ` or ${cubes.length - PERMITS_SHOWN} more` : '';
+  const plural = o.permitsAlsoCount === 1 ? 'combination' : 'combinations';
+  const message =
+    `${o.signal.header} permits also ${o.permitsAlsoCount} don't-care ${plural} (resolved ${POLICY_WORDS[o.dontCares]}): ` +
+    `ON with ${shown.join(' or ')}${more}. Check each is acceptable; write 0 in the table where it is not` +
+    (o.dontCares === 'minimal' ? `, or resolve every don't-care at the safe value: ${settingName('dont-cares', table.wording)}` : '');
+  return {
+    severity: 'warning',
+    code: 'permits-also',
+    sheet: table.sheet,
+    cell,
+    message,
+    patterns: patternTable(table.inputs, cubes.slice(0, LISTED)),
+  };
 }

@@ -4,6 +4,7 @@ import { XOR_PRINT_LIMIT } from '../logic/wide-anf.js';
 import { combinationPattern, countJson, inputBit, widePattern } from '../logic/wide-cube.js';
 import type { WideXor } from '../logic/wide-analysis.js';
 import type { TableAnalysis } from './analysis-types.js';
+import type { DontCarePolicy } from './types.js';
 import type { MismatchJson, TableJson } from './analysis-json.js';
 import type { WideOutputAnalysis, WideTableAnalysis } from './wide-types.js';
 
@@ -28,13 +29,14 @@ export interface WideOutputJson {
   readonly permitsAlso: string[];
   readonly permitsAlsoCount: Count;
   readonly safeValue: 0 | 1;
+  readonly dontCares: DontCarePolicy;
   readonly bestXor: { readonly expr: string; readonly terms: Count; readonly complemented: string[]; readonly exhaustive: boolean; readonly proofOf: WideXor['proofOf'] };
   readonly degree: number;
   readonly unusedInputs: string[];
   readonly gaps: string[];
   readonly gapCount: Count;
   readonly dontCareCount: Count;
-  readonly conflicts: { readonly rows: [string, string]; readonly example: string; readonly combinations: Count }[];
+  readonly conflicts: { readonly rows: [string, string]; readonly notes?: [string | null, string | null]; readonly example: string; readonly combinations: Count }[];
   /** Not chosen above 24 inputs (none listed). */
   readonly steps: [];
 }
@@ -69,9 +71,10 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
         mismatchCount: countJson(forms.reduce((k, [, f]) => k + f.proof.mismatchCount, 0n)),
         mismatches: forms.flatMap(([form, f]) => f.proof.mismatches.map((k) => ({ form, combination: combinationPattern(n, k) }))),
       },
-      permitsAlso: o.andOr.proof.permitsAlso.map((k) => combinationPattern(n, k)),
-      permitsAlsoCount: countJson(o.andOr.proof.permitsAlsoCount),
+      permitsAlso: o.permitsAlso.map((k) => combinationPattern(n, k)),
+      permitsAlsoCount: countJson(o.permitsAlsoCount),
       safeValue: o.safe,
+      dontCares: o.dontCares,
       bestXor: {
         expr: o.bestXor.text,
         terms: countJson(o.bestXor.terms),
@@ -86,6 +89,7 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
       dontCareCount: countJson(o.dontCareCount),
       conflicts: o.conflicts.map((c) => ({
         rows: [c.rowCellsA, c.rowCellsB],
+        ...(c.notes ? { notes: [c.notes[0] ?? null, c.notes[1] ?? null] } : {}),
         example: combinationPattern(n, c.example),
         combinations: countJson(c.combinations),
       })),

@@ -4,7 +4,7 @@
 import type { Combination } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import type { OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
-import type { RoleRule, Severity, XReading } from './types.js';
+import type { AnnotationColumn, DontCarePolicy, PatternTable, ProblemCode, RoleRule, Setting, Severity, ValueReading, XReading } from './types.js';
 import { wideAnalysisJson, type WideTableJson } from './analysis-json-wide.js';
 
 export interface MismatchJson {
@@ -26,10 +26,12 @@ export interface OutputJson {
   readonly xorTerms: number;
   /** Every form checked on every combination; mismatches of any form, first 50 each. */
   readonly check: { readonly combinations: number; readonly mismatchCount: number; readonly mismatches: MismatchJson[] };
-  /** Don't-care combinations the AND/OR form turns ON (first 50; count complete). */
+  /** Don't-care combinations the resolved function (so every form) turns ON (first 50; count complete). */
   readonly permitsAlso: string[];
   readonly permitsAlsoCount: number;
   readonly safeValue: 0 | 1;
+  /** How the don't-cares were resolved: the one function every form, step and file is of. */
+  readonly dontCares: DontCarePolicy;
   readonly bestXor: { readonly expr: string; readonly terms: number; readonly complemented: string[]; readonly exhaustive: boolean };
   readonly degree: number;
   /** Input headers the output does not depend on (don't-cares at the safe value). */
@@ -38,8 +40,26 @@ export interface OutputJson {
   readonly gaps: string[];
   readonly gapCount: number;
   readonly dontCareCount: number;
-  readonly conflicts: { readonly rows: [string, string]; readonly example: string; readonly combinations: number }[];
+  readonly conflicts: {
+    readonly rows: [string, string];
+    /** The rows' notes (annotation columns), null where a row has none; absent when neither has. */
+    readonly notes?: [string | null, string | null];
+    readonly example: string;
+    readonly combinations: number;
+  }[];
   readonly steps: { readonly combination: string; readonly expected: 0 | 1; readonly reason: string }[];
+}
+
+export interface ProblemJson {
+  readonly severity: Severity;
+  readonly code: ProblemCode;
+  readonly cell: string;
+  readonly message: string;
+  /** Every cell, when the problem stands for several of one kind. */
+  readonly cells?: readonly string[];
+  readonly setting?: Setting;
+  /** Combinations or cubes concerned: one column per signal. */
+  readonly patterns?: PatternTable;
 }
 
 export interface TableJson {
@@ -47,9 +67,15 @@ export interface TableJson {
   readonly range: string;
   readonly inputs: string[];
   readonly outputs: OutputJson[];
-  readonly problems: { readonly severity: Severity; readonly cell: string; readonly message: string }[];
+  readonly problems: ProblemJson[];
   readonly roleRule: RoleRule;
   readonly xReading: XReading;
+  /** Spellings of truth values found in the data cells (1/0, TRUE/FALSE, ON/OFF, Y/N, YES/NO, -, X). */
+  readonly readings: readonly ValueReading[];
+  /** Columns taken as annotation (notes beside the rows), never signals. */
+  readonly annotations: readonly AnnotationColumn[];
+  /** A1 range of the tag row, when the identifiers come from one. */
+  readonly tagRow?: string;
   /** Header -> Structured Text identifier, inputs and outputs. */
   readonly identifiers: Record<string, string>;
 }
@@ -64,9 +90,20 @@ export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson
     sheet: table.sheet,
     range: table.range,
     inputs: analysis.inputs.map((s) => s.header),
-    problems: analysis.problems.map((p) => ({ severity: p.severity, cell: p.cell, message: p.message })),
+    problems: analysis.problems.map((p) => ({
+      severity: p.severity,
+      code: p.code,
+      cell: p.cell,
+      message: p.message,
+      ...(p.cells ? { cells: p.cells } : {}),
+      ...(p.setting ? { setting: p.setting } : {}),
+      ...(p.patterns ? { patterns: p.patterns } : {}),
+    })),
     roleRule: table.roleRule,
     xReading: table.xReading,
+    readings: table.readings ?? [],
+    annotations: table.annotations ?? [],
+    ...(table.tagRow === undefined ? {} : { tagRow: table.tagRow }),
     identifiers,
   };
   if (analysis.wide) return wideAnalysisJson(analysis, analysis.wide, tableFields);
@@ -94,9 +131,10 @@ export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson
         mismatchCount: forms.reduce((k, [, f]) => k + f.proof.mismatchCount, 0),
         mismatches: forms.flatMap(([form, f]) => f.proof.mismatches.map((k) => ({ form, combination: combination(k) }))),
       },
-      permitsAlso: o.andOr.permitsAlso.map(combination),
-      permitsAlsoCount: o.andOr.permitsAlsoCount,
+      permitsAlso: o.permitsAlso.map(combination),
+      permitsAlsoCount: o.permitsAlsoCount,
       safeValue: o.safe,
+      dontCares: o.dontCares,
       bestXor: {
         expr: o.bestXor.text,
         terms: o.bestXor.terms,
@@ -110,6 +148,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson
       dontCareCount: o.dontCareCount,
       conflicts: o.conflicts.map((c) => ({
         rows: [c.rowCellsA, c.rowCellsB],
+        ...(c.notes ? { notes: [c.notes[0] ?? null, c.notes[1] ?? null] as [string | null, string | null] } : {}),
         example: combination(c.example),
         combinations: c.combinations,
       })),

@@ -6,9 +6,11 @@ import type { Cube } from '../logic/cube.js';
 import type { Signal } from '../logic/signals.js';
 import type { TestStep } from '../logic/steps.js';
 import type { Expr } from '../logic/expr/ast.js';
-import type { Problem, SpecTable } from './types.js';
+import type { BoolFunction } from '../logic/boolfn.js';
+import type { DontCarePolicy, Problem, SpecTable } from './types.js';
 import type { WideTableAnalysis } from './wide-types.js';
 
+/** A form checked on every combination against the output's resolved function. */
 export interface FormProof {
   readonly combinations: number;
   readonly mismatchCount: number;
@@ -47,6 +49,8 @@ export interface XorForm {
 export interface ConflictReport {
   readonly rowCellsA: string;
   readonly rowCellsB: string;
+  /** The rows' annotation text (notes columns), when they have any. */
+  readonly notes?: readonly [string | undefined, string | undefined];
   readonly example: Combination;
   readonly combinations: number;
 }
@@ -54,6 +58,18 @@ export interface ConflictReport {
 export interface OutputAnalysis {
   readonly signal: Signal;
   readonly safe: 0 | 1;
+  /** How the don't-cares were resolved into `resolved`. */
+  readonly dontCares: DontCarePolicy;
+  /**
+   * The one function of this output: the spec with every don't-care resolved by the policy
+   * (no don't-cares left). Every form is proven equal to it, the test steps expect it, and
+   * every hand-over file is of it.
+   */
+  readonly resolved: BoolFunction;
+  /** Don't-care combinations the resolved function turns ON (first 50; count complete), as disjoint cubes too. */
+  readonly permitsAlso: readonly Combination[];
+  readonly permitsAlsoCount: number;
+  readonly permitsAlsoCubes: readonly Cube[];
   readonly andOr: AndOrForm;
   readonly xor: XorForm;
   readonly bestXor: XorForm;

@@ -5,13 +5,13 @@ import type { OutputValue, SafeValue } from '../logic/boolfn.js';
 import type { Signal } from '../logic/signals.js';
 import { buildWide, overlapCube, type WideBuilt } from '../logic/wide-fn.js';
 import { inputBit, widePattern, wideCube, type WideCube } from '../logic/wide-cube.js';
-import type { Problem, Severity, SpecRow } from './types.js';
+import type { Problem, ProblemCode, Severity, SpecRow } from './types.js';
 import type { WideSpec } from './wide-types.js';
 
 /** How many gap cubes a gap warning names. */
 const GAP_CUBES_SHOWN = 8;
 
-type ProblemAt = (severity: Severity, cell: string, message: string) => Problem;
+type ProblemAt = (severity: Severity, code: ProblemCode, cell: string, message: string) => Problem;
 
 /** The cube of one row's input values (1, 0, or '-' = not in the mask), leftmost input first. */
 export function wideRowCube(values: readonly (OutputValue | undefined)[]): WideCube {
@@ -56,7 +56,7 @@ export function readWide(
     made = wideBuilt(n, spec, rows);
   } catch (e) {
     if (!(e instanceof DdTooLarge)) throw e;
-    problems.push(problemAt('error', tableRange, tooLarge(n, e)));
+    problems.push(problemAt('error', 'too-large', tableRange, tooLarge(n, e)));
     return { ...spec, tooLarge: e.message };
   }
   const { dd, built } = made;
@@ -69,7 +69,7 @@ export function readWide(
       const message =
         `rows ${a.cells} and ${r.cells} both cover ${describeWide(overlapCube(cubes[c.rowA]!, cubes[c.rowB]!), inputs)} but ask ${signal.header} ` +
         `for ${a.values[j]} and ${r.values[j]}; ${c.combinations} ${plural} the safe value ${safe}`;
-      problems.push(problemAt('error', r.outputCells[j]!, message));
+      problems.push(problemAt('error', 'conflict', r.outputCells[j]!, message));
     }
   });
   const gaps = built[0]!.gaps;
@@ -81,6 +81,7 @@ export function readWide(
     problems.push(
       problemAt(
         'warning',
+        'gaps',
         tableRange,
         `${gapCount} input ${plural} covered by no row; there each output takes its safe value (${safes}). ` +
           `Uncovered, as patterns over ${inputs.map((s) => s.header).join(', ')} (- = any): ` +
@@ -92,6 +93,7 @@ export function readWide(
   problems.push(
     problemAt(
       'info',
+      'symbolic-engine',
       tableRange,
       `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms and proofs are in the report and ` +
         `the JSON document; the results sheet, test steps, Structured Text and PLCopen export and verify take at most 24 inputs`,

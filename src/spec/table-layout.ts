@@ -1,12 +1,15 @@
 // Where, inside a block of cells, a spec table's role row, header row and data rows are;
 // and which side-by-side blocks are one table split by an empty separator column.
-import { isBlank, isText, looksLikeData, roleWord } from './cell-values.js';
+import { isBlank, isTagWord, isText, looksLikeData, roleWord } from './cell-values.js';
 import { anyFilled } from './find-blocks.js';
 import type { RangeRef } from './grid.js';
 import type { CellValue } from './types.js';
 
 /** Cell lookup in grid coordinates (null outside the grid). */
 export type CellAt = (row: number, col: number) => CellValue;
+
+/** The merged area (grid coordinates) whose top-left cell is this one, if the host reported it. */
+export type MergeAt = (row: number, col: number) => RangeRef | undefined;
 
 export interface BlockLayout {
   /** The block in grid coordinates; note rows above the table are inside it. */
@@ -16,7 +19,15 @@ export interface BlockLayout {
   /** First row of the table: the role row when there is one, else the header row. */
   readonly top: number;
   readonly roleRow?: number;
+  /** A row reading `tag` beside the role row or the headers: each signal's program name. */
+  readonly tagRow?: number;
+  /** Rows of group titles above the signal names (a merged "Guards" over two columns), skipped. */
+  readonly groupRows: readonly number[];
   readonly headerRow: number;
+  /** First data row. */
+  readonly dataTop: number;
+  /** Title rows above the table were skipped. */
+  readonly titled: boolean;
   /** No cell reads as data and there is no role row: a note or title, not a spec table. */
   readonly isNote: boolean;
 }
@@ -30,27 +41,48 @@ export function signalColumns(layout: Pick<BlockLayout, 'block' | 'separator'>):
 
 /**
  * Read the rows of a block from the top:
- * - note rows: a single text cell (a title) above a row with more cells are skipped;
- * - a role row: some cells read input/output (in/out, any case), every filled cell is text,
- *   and the row below names signals (holds text that is not a data value);
- * - the header row: the next row.
+ * - title rows: a single text cell above a row with more cells that names signals, skipped;
+ * - then, in any order, at most one role row (some cells read input/output, in/out, I/Q; all
+ *   text), at most one tag row (a cell reads `tag`; all text) and group rows (text only, fewer
+ *   cells than the row below, which names signals: group titles over the signal names);
+ * - the header row: the next row; a tag row may also follow it directly.
+ * A row "names signals" when it holds at least as much text that is not a value as values
+ * (a header may be Y or N, which are also values).
  */
 export function layoutBlock(cellAt: CellAt, block: RangeRef, separator?: number): BlockLayout {
   const cols = signalColumns({ block, separator });
-  const rowCells = (r: number): CellValue[] => cols.map((c) => cellAt(r, c));
+  const allCols: number[] = [];
+  for (let c = block.left; c <= block.right; c++) allCols.push(c);
+  const rowCells = (r: number, which: readonly number[] = cols): CellValue[] => which.map((c) => cellAt(r, c));
   const filledCount = (r: number): number => rowCells(r).filter((v) => !isBlank(v)).length;
-  const namesSignals = (r: number): boolean => rowCells(r).some((v) => isText(v) && !looksLikeData(v));
+  const namesSignals = (r: number): boolean => {
+    const cells = rowCells(r);
+    const words = cells.filter((v) => isText(v) && !looksLikeData(v)).length;
+    return words > 0 && words >= cells.filter(looksLikeData).length;
+  };
+  const allText = (r: number): boolean => rowCells(r, allCols).every((v) => isBlank(v) || isText(v));
 
   let r = block.top;
   while (r < block.bottom && cols.length > 1 && isNoteRow(rowCells(r)) && filledCount(r + 1) > 1 && namesSignals(r + 1)) r++;
   const top = r;
   let roleRow: number | undefined;
-  const cells = rowCells(r);
-  const filled = cells.filter((v) => !isBlank(v));
-  if (r < block.bottom && filled.some((v) => roleWord(v)) && filled.every(isText) && namesSignals(r + 1)) {
-    roleRow = r;
+  let tagRow: number | undefined;
+  const groupRows: number[] = [];
+  while (r < block.bottom && allText(r) && namesSignals(r + 1)) {
+    const cells = rowCells(r, allCols);
+    if (roleRow === undefined && cells.some((v) => roleWord(v))) roleRow = r;
+    else if (tagRow === undefined && cells.some(isTagWord)) tagRow = r;
+    else if (
+      filledCount(r) < filledCount(r + 1) &&
+      !cells.some((v) => looksLikeData(v) || roleWord(v) || isTagWord(v)) &&
+      !rowCells(r + 1, allCols).some(isTagWord)
+    )
+      groupRows.push(r);
+    else break;
     r++;
   }
+  const headerRow = r;
+  if (tagRow === undefined && headerRow < block.bottom && allText(headerRow + 1) && rowCells(headerRow + 1, allCols).some(isTagWord)) tagRow = headerRow + 1;
   let anyData = false;
   for (let row = block.top; row <= block.bottom && !anyData; row++) anyData = rowCells(row).some(looksLikeData);
   return {
@@ -58,14 +90,18 @@ export function layoutBlock(cellAt: CellAt, block: RangeRef, separator?: number)
     ...(separator === undefined ? {} : { separator }),
     top,
     ...(roleRow === undefined ? {} : { roleRow }),
-    headerRow: r,
+    ...(tagRow === undefined ? {} : { tagRow }),
+    groupRows,
+    headerRow,
+    dataTop: Math.max(headerRow, tagRow ?? headerRow) + 1,
+    titled: top > block.top,
     isNote: !anyData && roleRow === undefined,
   };
 }
 
 function isNoteRow(cells: readonly CellValue[]): boolean {
   const filled = cells.filter((v) => !isBlank(v));
-  return filled.length === 1 && isText(filled[0]!) && !looksLikeData(filled[0]!) && !roleWord(filled[0]!);
+  return filled.length === 1 && isText(filled[0]!) && !looksLikeData(filled[0]!) && !roleWord(filled[0]!) && !isTagWord(filled[0]!);
 }
 
 /** The role row gives every signal column a role by itself (it holds both words). */
@@ -120,6 +156,8 @@ function joinable(
   if (right.block.left !== left.block.right + 2 || left.isNote || right.isNote) return false;
   if (left.headerRow !== right.headerRow) return false;
   if (rolesComplete(cellAt, left) && rolesComplete(cellAt, right)) return false;
+  // Each with a title of its own: two tables side by side.
+  if (left.titled && right.titled) return false;
   // Every filled cell of the surrounding rectangle must belong to one of the two blocks.
   const top = Math.min(left.block.top, right.block.top);
   const bottom = Math.max(left.block.bottom, right.block.bottom);

@@ -17,6 +17,7 @@ export interface WideSpec {
 export interface WideConflictReport {
   readonly rowCellsA: string;
   readonly rowCellsB: string;
+  readonly notes?: readonly [string | undefined, string | undefined];
   readonly example: WideCombination;
   readonly combinations: bigint;
 }

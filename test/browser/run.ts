@@ -20,6 +20,7 @@ import { exportSt } from '../../src/report/st-export.js';
 import { analyseTable } from '../../src/spec/analyse.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
 import type { TableAnalysis } from '../../src/spec/analysis-types.js';
+import { cliOutcome, WORKBOOKS, xlsxBytes, xlsxSheets, type Outcome } from '../workflow/workbooks.js';
 
 const ROOT = resolve(import.meta.dirname, '../..');
 const SAMPLE = join(ROOT, 'sample-workbooks/capper-cell.xlsx');
@@ -38,6 +39,8 @@ const OFFICE_TELEMETRY_REFUSED = [
 ];
 
 const results: { name: string; ok: boolean; detail?: string }[] = [];
+/** The origin the pages are served from, once the server runs. */
+const ORIGIN = { value: '' };
 
 async function check(name: string, body: () => Promise<void>): Promise<void> {
   try {
@@ -154,6 +157,9 @@ async function main(): Promise<number> {
       if (m.type() === 'error') pageErrors.push(`standalone console: ${m.text()}`);
     });
     await standaloneChecks(page, origin, work);
+    ORIGIN.value = origin;
+    await workflowChecks(page, work);
+    await screenshots(page, 'standalone-not-analysed');
     await taskpaneChecks(context, origin, pageErrors);
     await check('no request left the page’s own origin', async () => {
       same(foreign, [], 'requests to other origins');
@@ -273,7 +279,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const source = XLSX.read(readFileSync(SAMPLE), { type: 'buffer' });
     same(book.SheetNames.slice(0, source.SheetNames.length), source.SheetNames, 'the user’s sheets first, unchanged in order');
     const added = book.SheetNames.slice(source.SheetNames.length).filter((name) => name !== checkBlock?.name);
-    same(added.length, spindle.length, 'one results sheet per table');
+    same(added.length, 2 * spindle.length, 'a results sheet and a test record per table');
     const text = (name: string) =>
       Object.entries(book.Sheets[name]!)
         .filter(([k]) => !k.startsWith('!'))
@@ -306,7 +312,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     await page.locator('ul.verdicts li').first().waitFor({ timeout: 30_000 });
     const lines = await page.locator('ul.verdicts li').allTextContents();
     same(lines.length, spindle.reduce((n, a) => n + a.outputs.length, 0), 'one verdict per output');
-    expect(lines.every((l) => l.includes(': equal')), `verdicts: ${lines.join(' | ')}`);
+    expect(lines.every((l) => l.includes(': EQUAL')), `verdicts: ${lines.join(' | ')}`);
   });
 
   await check('the Structured Text hand-over downloads with the caution in its header', async () => {
@@ -320,6 +326,56 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     expect(st.includes(CAUTION_LINES[0]!), 'caution in the ST file');
     expect(st.includes('FUNCTION_BLOCK'), 'a FUNCTION_BLOCK in the ST file');
   });
+}
+
+/** What the page shows and does with one sheet of a workbook, as the command line's Outcome. */
+async function pageOutcome(page: Page, path: string, fileName: string, sheet: string, sourceSheets: number, work: string): Promise<Outcome> {
+  await page.goto(`${ORIGIN.value}/standalone.html`);
+  await page.locator('input[type=file][accept*="xlsx"]').setInputFiles(path);
+  await page.getByText(`Opened ${fileName}`).waitFor({ timeout: 20_000 });
+  await page.getByLabel('Sheet').selectOption(sheet);
+  await page.getByRole('button', { name: 'Find and analyse spec tables' }).click();
+  await page.locator('p.table-verdict').first().waitFor({ timeout: 60_000 });
+  const picker = page.getByLabel('Spec table');
+  const tables = (await picker.count()) > 0 ? await picker.locator('option').count() : 1;
+  const verdicts: string[][] = [];
+  for (let t = 0; t < tables; t++) {
+    if (tables > 1) await picker.selectOption(String(t));
+    const table = (await page.locator('p.table-verdict .badge').textContent()) ?? '';
+    const outputs = await page.locator('.form[data-form="AND/OR form"] .badge').allTextContents();
+    const proofs = await page.locator('p.proof').count();
+    if (table.startsWith('not analysed')) {
+      expect(outputs.length === 0 && proofs === 0, `a table ${table} shows ${outputs.length} form badges and ${proofs} proof lines`);
+      const n = (await page.locator('table.signals td:nth-child(2)').allTextContents()).filter((r) => r === 'output').length;
+      verdicts.push([table, ...Array.from({ length: n }, () => table)]);
+    } else verdicts.push([table, ...outputs]);
+  }
+  const handedOver = await page.getByRole('button', { name: 'Structured Text (.st)', exact: true }).isEnabled();
+  const [file] = await Promise.all([
+    page.waitForEvent('download', { timeout: 30_000 }),
+    page.getByRole('button', { name: 'Download results workbook' }).click(),
+  ]);
+  const saved = join(work, `page-${fileName}`);
+  await file.saveAs(saved);
+  return { verdicts, sheets: xlsxSheets(new Uint8Array(readFileSync(saved)), sourceSheets), handedOver };
+}
+
+/** The good, error-cell and Notes-column workbooks: the page agrees with the command line. */
+async function workflowChecks(page: Page, work: string): Promise<void> {
+  for (const book of WORKBOOKS) {
+    const path = join(work, book.file);
+    writeFileSync(path, xlsxBytes(book));
+    for (const sheet of Object.keys(book.sheets)) {
+      await check(`${book.name} workbook, sheet ${sheet}: the page shows the verdicts, writes the sheets and decides the hand-over as the command line`, async () => {
+        const cli = await cliOutcome(book, sheet);
+        const shown = await pageOutcome(page, path, book.file, sheet, Object.keys(book.sheets).length, work);
+        same(shown.verdicts, cli.verdicts, 'verdicts');
+        same(shown.handedOver, cli.handedOver, 'hand-over allowed');
+        same(shown.sheets.map((x) => x.name), cli.sheets.map((x) => x.name), 'sheets written');
+        same(shown.sheets, cli.sheets, 'cells of the sheets written');
+      });
+    }
+  }
 }
 
 async function screenshots(page: Page, name: string): Promise<void> {

@@ -136,7 +136,8 @@ describe('analyze report', () => {
     expect(run.out).toContain('XOR form: 5 terms');
     expect(run.out).toContain('Best-polarity XOR form');
     expect(run.out).toContain('Proof over all 128 combinations: AND/OR OK, XOR OK, best XOR OK');
-    expect(run.out).toContain("Don't-cares: 8 combinations; the AND/OR form turns 8 of them ON: 0001101");
+    expect(run.out).toContain("Don't-cares: 8 combinations, resolved as the minimal AND/OR form uses them; every form turns 8 of them ON");
+    expect(run.out).toMatch(/ {4}Guard door A closed {2}Guard door B closed .* Jog pressed\n {4}- {20}- .* 1\n/);
     expect(run.out).toContain('E-stop healthy      -> E_stop_healthy');
     expect(run.out).toContain('CAUTION: derived logic is a design aid');
     expect(run.out).not.toContain('Air_supply_OK');
@@ -148,6 +149,13 @@ describe('analyze report', () => {
     const doc = JSON.parse(run.out) as Doc;
     expect(doc.tables[0]!.outputs[0]!.terms).toBe(2);
     expect(doc.tables[0]!.outputs[0]!.literals).toBe(9);
+  });
+
+  it('with --dont-cares safe every form keeps the spindle off where the table leaves it open', async () => {
+    const run = await runCli('analyze', CSV, '--dont-cares', 'safe', '--json');
+    expect(run.code).toBe(0);
+    const out = (JSON.parse(run.out) as Doc).tables[0]!.outputs[0]! as unknown as { permitsAlsoCount: number; dontCares: string };
+    expect([out.dontCares, out.permitsAlsoCount]).toEqual(['safe', 0]);
   });
 
   it('takes an output\'s safe value from --safe, by header or identifier', async () => {
@@ -206,6 +214,7 @@ describe('usage errors exit 2 with a clear message', () => {
     ['a range without a sheet', ['analyze', CAPPER, '--range', 'A1:H20'], /--range needs --sheet/],
     ['an option without its value', ['analyze', CAPPER, '--sheet'], /--sheet needs a value/],
     ['a bad --safe', ['analyze', CAPPER, '--safe', 'Spindle run permit'], /--safe needs NAME=0 or NAME=1/],
+    ['a bad --dont-cares', ['analyze', CSV, '--dont-cares', 'some'], /--dont-cares needs minimal or safe, got "some"/],
   ];
   for (const [what, argv, message] of cases) {
     it(what, async () => {

@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import XLSX from 'xlsx';
 import { main } from '../../src/cli/main.js';
-import { fileFormula } from '../../src/hosts/xlsx-write.js';
+import { fileFormula } from '../../src/hosts/xlsx-package.js';
 import { csvRecords } from '../../src/spec/csv.js';
 
 const work = mkdtempSync(join(tmpdir(), 'interlock-lo-'));
@@ -145,6 +145,24 @@ for (const block of blocks) {
   const summary = computed.find((r) => r[0]?.startsWith('Combinations that differ'));
   check(`"${block.sheet}": the summary counts ${block === spoilt ? 1 : 0} differing combination(s)`, summary?.[1] === (block === spoilt ? '1' : '0'), `got ${summary?.[1]}`);
 }
+
+// Print setup: the results of the 7-input sample CSV as a PDF. Its source sheet prints as
+// LibreOffice's default (portrait); our results and steps sheets landscape, one page wide.
+const csvResults = join(work, 'spindle-results.xlsx');
+const csvStatus = await main(['analyze', 'sample-workbooks/spindle-permit.csv', '-o', csvResults], io);
+check('the command line writes a results workbook of the sample CSV', csvStatus === 0);
+execFileSync('soffice', [`-env:UserInstallation=${profile}`, '--headless', '--convert-to', 'pdf', '--outdir', work, csvResults], { stdio: 'ignore', timeout: 180_000 });
+const pdf = readFileSync(join(work, 'spindle-results.pdf'), 'latin1');
+// Page objects carry their own MediaBox in LibreOffice's PDF; the page tree's comes first.
+const pages = [...pdf.matchAll(/\/Type\/Page\b(?!s)[\s\S]*?\/MediaBox\[\s*([\d.]+)\s+([\d.]+)\s+([\d.]+)\s+([\d.]+)\s*\]/g)].map((m) => ({
+  width: Number(m[3]) - Number(m[1]),
+  height: Number(m[4]) - Number(m[2]),
+}));
+const landscape = pages.filter((p) => p.width > p.height).length;
+console.log(`  (the sample CSV's results workbook prints on ${pages.length} pages: ${landscape} landscape for the results and steps sheets, ${pages.length - landscape} for the source sheet)`);
+check('the results and test-steps sheets print landscape', landscape >= 2, `${landscape} of ${pages.length} pages landscape`);
+// One page wide: the live check's 20-odd columns do not spill onto pages to the right (before: 21 pages for one sheet).
+check('the results and steps sheets print one page wide, on a few pages', landscape <= 6, `${landscape} landscape pages`);
 
 rmSync(work, { recursive: true, force: true });
 console.log(`${passed} passed, ${failed} failed`);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { MAX_IDENTIFIER_LENGTH, isReserved, isValidIdentifier, toIdentifiers } from '../../src/logic/identifiers.js';
+import { MAX_IDENTIFIER_LENGTH, fullIdentifier, isReserved, isValidIdentifier, toIdentifiers } from '../../src/logic/identifiers.js';
 
 describe('identifiers from headers', () => {
   it('turns spaces and symbols into single underscores', () => {
@@ -45,8 +45,33 @@ describe('identifiers from headers', () => {
     expect(toIdentifiers(['Channel discrepancy alarm'])).toEqual(['Channel_discrepancy']);
   });
 
+  it('leaves a word out rather than number a cut name that another header already has', () => {
+    expect(toIdentifiers(['Light curtain muting', 'Light curtain muting active', 'Light curtain muting lamp', 'Light curtain muting sensor 2'])).toEqual([
+      'Light_curtain_muting',
+      'Light_curtain_active',
+      'Light_curtain_lamp',
+      'Light_curtain_sensor_2',
+    ]);
+  });
+
+  it('numbers cut names only when no choice of whole words tells them apart', () => {
+    expect(toIdentifiers(['Supercalifragilistic expialidocious A', 'Supercalifragilistic expialidocious B'])).toEqual([
+      'Supercalifragilistic_A',
+      'Supercalifragilistic_B',
+    ]);
+    expect(toIdentifiers(['Discrepancy alarm channel pair', 'Discrepancy alarm channel pair!'])).toEqual([
+      'Discrepancy_alarm',
+      'Discrepancy_alarm_2',
+    ]);
+  });
+
   it('cuts inside a word only when the last word break would waste more than half the room', () => {
     expect(toIdentifiers(['Ab Supercalifragilisticexpialidocious'])).toEqual(['Ab_Supercalifragilistice']);
+  });
+
+  it('gives the identifier a header would have before any cut, to tell which were cut', () => {
+    expect(fullIdentifier('Light curtain muting active')).toBe('Light_curtain_muting_active');
+    expect(fullIdentifier('→')).toBe('');
   });
 
   it('names a header with nothing usable Signal_<position>', () => {

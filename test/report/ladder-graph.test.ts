@@ -46,6 +46,13 @@ function powerFlow(graph: LadderGraph, n: number): BitSet {
 
 const cubes = (...patterns: string[]): Cube[] => patterns.map(cubeFromPattern);
 
+/** The last contact of each branch, where the branch meets the bus. */
+const branchEnds = (graph: LadderGraph) => {
+  const last = new Map<number, (typeof graph.nodes)[number]>();
+  for (const node of graph.nodes) if (node.kind === 'contact') last.set(node.branch!, node);
+  return [...last.values()];
+};
+
 describe('the drawn ladder graph', () => {
   it('draws A AND NOT B OR C as two branches: NO A and NC B in series, NO C alone', () => {
     const graph = ladderGraph(cubes('10-', '--1'), signals(3));
@@ -92,15 +99,20 @@ describe('the drawn ladder graph', () => {
     expect(equals(powerFlow(graph, 2), emptySet(2))).toBe(true);
   });
 
-  it('at task-pane width a long product term continues on further rows, inside the rails', () => {
+  it('at task-pane width a branch too long for one line continues through a connector and a continuation of the same name', () => {
     const graph = ladderGraph(cubes('10101010'), signals(8), 320);
     const contacts = graph.nodes.filter((node) => node.kind === 'contact');
-    const rows = new Set(contacts.map((c) => c.y));
-    expect(rows.size).toBe(Math.ceil(8 / graph.perRow));
-    const coil = graph.nodes.find((node) => node.kind === 'coil')!;
-    for (const c of contacts) {
-      expect(c.x).toBeGreaterThan(LADDER.railX);
-      expect(c.x + c.width).toBeLessThan(coil.x);
+    const connectors = graph.nodes.filter((node) => node.kind === 'connector');
+    const continuations = graph.nodes.filter((node) => node.kind === 'continuation');
+    const lines = new Set(contacts.map((c) => c.y));
+    expect(contacts).toHaveLength(8);
+    expect(lines.size).toBeGreaterThan(1);
+    expect(connectors).toHaveLength(lines.size - 1);
+    expect(continuations.map((c) => c.name)).toEqual(connectors.map((c) => c.name));
+    for (const c of connectors) {
+      const jump = graph.wires.find((w) => w.from === c.id)!;
+      expect(graph.nodes.find((node) => node.id === jump.to)).toMatchObject({ kind: 'continuation', name: c.name });
+      expect(jump.points).toEqual([]);
     }
     for (const w of graph.wires) for (const [x, y] of w.points) {
       expect(x).toBeGreaterThanOrEqual(LADDER.railX);
@@ -109,12 +121,70 @@ describe('the drawn ladder graph', () => {
     }
   });
 
+  it('keeps series contacts on one line when the width allows', () => {
+    const graph = ladderGraph(cubes('10101010'), signals(8), 1200);
+    const contacts = graph.nodes.filter((node) => node.kind === 'contact');
+    expect(new Set(contacts.map((c) => c.y)).size).toBe(1);
+    expect(graph.nodes.some((node) => node.kind === 'connector')).toBe(false);
+  });
+
+  it('is as wide as its content needs, never wider than asked unless one contact per line does not fit', () => {
+    const small = ladderGraph(cubes('1-', '-1'), signals(2), 800);
+    expect(small.width).toBeLessThan(400);
+    fc.assert(
+      // From 290 px one contact fits on a continued line (continuation, contact, connector, bus, coil).
+      fc.property(fc.integer({ min: 1, max: 12 }), fc.integer({ min: 290, max: 1200 }), (n, width) => {
+        const graph = ladderGraph([cubeFromPattern('1'.repeat(n))], signals(n), width);
+        expect(graph.width).toBeLessThanOrEqual(width);
+      }),
+    );
+  });
+
+  it('every vertical wire is the bus, joining the ends of parallel branches and the coil line, nothing else', () => {
+    const cubeArb = (n: number) =>
+      fc.array(fc.array(fc.constantFrom('0', '1', '-'), { minLength: n, maxLength: n }).map((p) => cubeFromPattern(p.join(''))), { minLength: 1, maxLength: 6 });
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 10 }).chain((n) => fc.tuple(fc.constant(n), cubeArb(n), fc.integer({ min: 240, max: 900 }))),
+        ([n, terms, width]) => {
+          const graph = ladderGraph(terms, signals(n), width);
+          const coil = graph.nodes.find((node) => node.kind === 'coil')!;
+          const ends = new Set(branchEnds(graph).map((c) => c.y));
+          ends.add(coil.y);
+          for (const w of graph.wires)
+            for (let i = 1; i < w.points.length; i++) {
+              const [x1, y1] = w.points[i - 1]!;
+              const [x2, y2] = w.points[i]!;
+              if (x1 !== x2 || y1 === y2) continue;
+              expect(x1).toBe(graph.busX);
+              expect(ends.has(y1) && ends.has(y2)).toBe(true);
+            }
+          for (const node of graph.nodes) if (node.kind === 'contact' || node.kind === 'connector') expect(node.x + node.width).toBeLessThan(graph.busX);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+
+  it('wraps contact labels onto more lines but never cuts them', () => {
+    const long = [{ header: 'Light curtain muting lamp healthy and not bypassed', identifier: 'Light_curtain_muting_lamp_ok' }];
+    const graph = ladderGraph(cubes('1'), long, 320, { header: 'Spindle run permit granted', identifier: 'Spindle_run_permit_granted' });
+    const contact = graph.nodes.find((node) => node.kind === 'contact')!;
+    const coil = graph.nodes.find((node) => node.kind === 'coil')!;
+    expect(contact.above!.join(' ')).toBe(long[0]!.header);
+    expect(contact.below!.join('')).toBe(long[0]!.identifier);
+    expect(coil.above!.join('')).toBe('Spindle_run_permit_granted');
+    expect(graph.heading.join(' ')).toBe('Spindle run permit granted (Spindle_run_permit_granted)');
+    for (const text of [...contact.above!, ...contact.below!]) expect(text.length * LADDER.charPx).toBeLessThanOrEqual(LADDER.slot);
+  });
+
   it('every wire starts where its source ends and ends where its target begins', () => {
-    const graph = ladderGraph(cubes('1-0-1', '01---', '---11'), signals(5), 320);
+    const graph = ladderGraph(cubes('1-0-1', '01---', '---11', '11111'), signals(5), 320);
     const byId = new Map(graph.nodes.map((node) => [node.id, node]));
     for (const w of graph.wires) {
       const from = byId.get(w.from)!;
       const to = byId.get(w.to)!;
+      if (w.points.length === 0) continue; // a connector's jump to its continuation
       const [sx, sy] = w.points[0]!;
       const [ex, ey] = w.points[w.points.length - 1]!;
       if (from.kind === 'left-rail') expect(sx).toBe(LADDER.railX);

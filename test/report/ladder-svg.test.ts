@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { localName, parseXml, textContent, type XmlElement } from '../../src/impl/xml.js';
 import { CAUTION } from '../../src/report/caution.js';
-import { ladderGraph, ladderSvg } from '../../src/report/ladder-svg.js';
+import { drawnWires, ladderGraph, ladderSvg } from '../../src/report/ladder-svg.js';
 import { analysisOf, GUARD, VOTE } from './fixtures.js';
 
 function svgOf(text: string): XmlElement {
@@ -34,12 +34,13 @@ describe('ladder picture', () => {
     expect(textContent(svg.children[1]!)).toBe(CAUTION);
   });
 
-  it('is 320 px wide by default, and everything drawn stays inside it', () => {
+  it('is at most 320 px wide by default, and everything drawn stays inside its width', () => {
     const svg = svgOf(ladderSvg(long.outputs[0]!, long.inputs));
-    expect(svg.attrs['width']).toBe('320');
+    const width = Number(svg.attrs['width']);
+    expect(width).toBeLessThanOrEqual(320);
     for (const el of all(svg)) {
-      for (const a of ['x', 'x1', 'x2']) if (el.attrs[a] !== undefined) expect(Number(el.attrs[a])).toBeLessThanOrEqual(320);
-      for (const p of (el.attrs['points'] ?? '').split(' ').filter(Boolean)) expect(Number(p.split(',')[0])).toBeLessThanOrEqual(320);
+      for (const a of ['x', 'x1', 'x2']) if (el.attrs[a] !== undefined) expect(Number(el.attrs[a])).toBeLessThanOrEqual(width);
+      for (const p of (el.attrs['points'] ?? '').split(' ').filter(Boolean)) expect(Number(p.split(',')[0])).toBeLessThanOrEqual(width);
     }
   });
 
@@ -63,10 +64,10 @@ describe('ladder picture', () => {
 
   it('draws every wire of the graph it is made from', () => {
     const output = long.outputs[0]!;
-    const graph = ladderGraph(output.andOr.cubes, long.inputs, 320);
+    const graph = ladderGraph(output.andOr.cubes, long.inputs, 320, output.signal);
     const svg = svgOf(ladderSvg(output, long.inputs));
     const polylines = all(svg).filter((e) => localName(e.name) === 'polyline').map((e) => e.attrs['points']);
-    expect(polylines).toEqual(graph.wires.map((w) => w.points.map(([x, y]) => `${x},${y}`).join(' ')));
+    expect(polylines).toEqual(drawnWires(graph).map((w) => w.points.map(([x, y]) => `${x},${y}`).join(' ')));
   });
 
   it('labels each contact with its header text and, when different, its identifier', () => {
@@ -77,20 +78,27 @@ describe('ladder picture', () => {
     expect(labels).toEqual(expect.arrayContaining(['Guard closed', 'Guard_closed', 'Two-hand OK', 'Two_hand_OK']));
   });
 
-  it('wraps a long product term onto continuation rows at task-pane width, and spreads out when wider', () => {
+  it('continues a long branch through numbered connectors at task-pane width, and keeps it on one line when wider', () => {
     const output = long.outputs[0]!;
-    const narrow = ladderGraph(output.andOr.cubes, long.inputs, 320);
-    const wide = ladderGraph(output.andOr.cubes, long.inputs, 900);
-    expect(narrow.perRow).toBeLessThan(wide.perRow);
-    expect(narrow.height).toBeGreaterThan(wide.height);
-    expect(svgOf(ladderSvg(output, long.inputs, { width: 900 })).attrs['width']).toBe('900');
+    const narrow = ladderSvg(output, long.inputs);
+    const wide = ladderSvg(output, long.inputs, { width: 1200 });
+    expect(narrow.match(/<polygon/g)!.length).toBeGreaterThan(0);
+    expect(shownText(narrow)).toContain('continues, in series, at the continuation of the same number');
+    expect(wide).not.toContain('<polygon');
+    expect(Number(svgOf(wide).attrs['width'])).toBeGreaterThan(Number(svgOf(narrow).attrs['width']));
+  });
+
+  it('shows the whole coil name and every contact label, however long', () => {
+    const texts = all(svgOf(ladderSvg(long.outputs[0]!, long.inputs))).filter((e) => localName(e.name) === 'text').map((e) => e.text);
+    expect(texts.join('')).not.toContain('…');
+    expect(texts.join(' ')).toContain('Spindle run permit');
   });
 
   it('a FALSE form is drawn as an open rung with a note, a TRUE form as a plain wire with a note', () => {
     const never = ladderSvg(long.outputs[1]!, long.inputs);
     const always = ladderSvg(long.outputs[2]!, long.inputs);
-    expect(never).toContain('Open rung, never energised: the form is FALSE.');
-    expect(always).toContain('Always energised: the form is TRUE, no input');
+    expect(shownText(never)).toContain('Open rung, never energised: the form is FALSE.');
+    expect(shownText(always)).toContain('Always energised: the form is TRUE, no input');
     for (const svg of [never, always]) {
       expect(svg.match(/<path/g)).toHaveLength(2);
       expect(svg).not.toMatch(/<g><line[^>]*\/><line[^>]*\/><line[^>]*\/><line/);
@@ -102,6 +110,11 @@ describe('ladder picture', () => {
     expect(labels).toContain('CAUTION: derived logic is a design aid');
   });
 });
+
+/** The visible text of a picture, its lines joined by blanks. */
+function shownText(svg: string): string {
+  return all(svgOf(svg)).filter((e) => localName(e.name) === 'text').map((e) => e.text).join(' ');
+}
 
 function countBits(x: number): number {
   let c = 0;

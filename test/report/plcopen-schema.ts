@@ -45,6 +45,9 @@ export const CONTENT: Readonly<Record<string, readonly string[]>> = {
   rightPowerRail: ['position', 'connectionPointIn*', 'addData?', 'documentation?'],
   contact: CONTACT,
   coil: CONTACT,
+  // connector and continuation: from memory of the same schema (commonObjects).
+  connector: ['position', 'connectionPointIn?', 'addData?', 'documentation?'],
+  continuation: ['position', 'connectionPointOut?', 'addData?', 'documentation?'],
   'contact/variable': [],
   'coil/variable': [],
   comment: ['position', 'content', 'addData?', 'documentation?'],
@@ -70,6 +73,8 @@ export const REQUIRED: Readonly<Record<string, readonly string[]>> = {
   rightPowerRail: ['localId'],
   contact: ['localId'],
   coil: ['localId'],
+  connector: ['name', 'localId'],
+  continuation: ['name', 'localId'],
   comment: ['localId', 'height', 'width'],
   position: ['x', 'y'],
   relPosition: ['x', 'y'],

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { has } from '../../src/logic/bits.js';
 import { CAUTION, CAUTION_LINES } from '../../src/report/caution.js';
-import { csvField, FULL_TABLE_MAX_INPUTS, stepsCsv, stepsSheet, stepTable } from '../../src/report/test-steps.js';
+import { csvField, FILL_IN_COLUMNS, FULL_TABLE_MAX_INPUTS, RECORD_TITLE, stepsCsv, stepTable, testRecordSheet } from '../../src/report/test-steps.js';
 import { analysisOf, GUARD, VOTE } from './fixtures.js';
 
 /** RFC 4180 reading: fields split at commas, quoted fields may hold commas, quotes ("") and line breaks. */
@@ -30,11 +30,34 @@ function parseCsv(text: string): string[][] {
 describe('commissioning test steps', () => {
   const guard = analysisOf(GUARD);
 
-  it('the CSV starts with the caution as its only field, then a title, then the column titles', () => {
-    const rows = parseCsv(stepsCsv(guard));
+  it('the CSV starts with the caution, then the title, source, revision stamp, settings, tool and date, then the columns', () => {
+    const rows = parseCsv(stepsCsv(guard, { source: 'guards.xlsx', date: '2026-12-01' }));
     expect(rows[0]).toEqual([CAUTION]);
-    expect(rows[1]).toEqual(["Interlock Algebra test steps for sheet 'Guard logic', range A1:E6"]);
-    expect(rows[2]).toEqual(['Step', 'Guard closed', 'Two-hand OK', 'Mode (setup)', 'Expect Motor permit', 'Expect Lamp', 'Why this step', 'Result', 'Checked by']);
+    expect(rows[1]).toEqual([`${RECORD_TITLE}: 'Guard logic'!A1:E6`]);
+    expect(rows.slice(2, 7).map((r) => r[0])).toEqual(['Source', 'Revision stamp', 'Settings', 'Tool', 'Made']);
+    expect(rows[2]![1]).toBe("guards.xlsx, 'Guard logic'!A1:E6");
+    expect(rows[3]![1]).toMatch(/^sha256:[0-9a-f]{64}$/);
+    expect(rows[6]![1]).toBe('2026-12-01');
+    expect(rows[7]).toEqual([
+      'Step', 'Test ID', 'Output', 'Preconditions', 'Action', 'Expected Motor permit', 'Expected Lamp', 'Actual Motor permit', 'Actual Lamp',
+      'Pass/Fail', 'Punch item', 'Performed by', 'Witnessed by', 'Date', 'Why this step',
+    ]);
+  });
+
+  it('each step names the inputs to change from the previous step and leaves the others as preconditions', () => {
+    const rows = stepTable(guard).rows;
+    let before = [0, 0, 0];
+    for (const r of rows) {
+      const headers = guard.inputs.map((s) => s.header);
+      const changed = headers.filter((_, i) => r.inputs[i] !== before[i]);
+      for (const h of changed) expect(r.action).toContain(`set ${h} to ${r.inputs[headers.indexOf(h)]}`);
+      for (const h of headers.filter((x) => !changed.includes(x))) expect(r.preconditions).toContain(`${h} = ${r.inputs[headers.indexOf(h)]}`);
+      before = [...r.inputs];
+    }
+  });
+
+  it('a test ID is the pattern of the step\'s inputs, the same in every revision that keeps the step', () => {
+    for (const r of stepTable(guard).rows) expect(r.testId).toBe(`T-${r.inputs.join('')}`);
   });
 
   it('by default gives the unique-cause steps of every output, each combination once, numbered from 1', () => {
@@ -44,12 +67,13 @@ describe('commissioning test steps', () => {
     expect(table.rows.map((r) => r.step)).toEqual(table.rows.map((_, i) => i + 1));
   });
 
-  it('each step sets the inputs of its combination and expects what the spec asks, "-" for a don\'t-care', () => {
+  it('each step sets the inputs of its combination and expects the resolved function: the spec, a don\'t-care as resolved', () => {
     for (const r of stepTable(guard).rows) {
       expect(r.inputs.join('')).toBe(r.combination.toString(2).padStart(3, '0'));
-      guard.table.outputs.forEach((spec, j) => {
-        const fn = spec.built.fn;
-        expect(r.expected[j]).toBe(has(fn.dc, r.combination) ? '-' : has(fn.on, r.combination) ? 1 : 0);
+      guard.outputs.forEach((o, j) => {
+        const fn = guard.table.outputs[j]!.built.fn;
+        expect(r.expected[j]).toBe(has(o.resolved.on, r.combination) ? 1 : 0);
+        if (!has(fn.dc, r.combination)) expect(r.expected[j]).toBe(has(fn.on, r.combination) ? 1 : 0);
       });
     }
   });
@@ -68,13 +92,14 @@ describe('commissioning test steps', () => {
     expect(rows[0]!.why).toContain('Motor_permit: term 1 alone: Guard_closed AND Two_hand_OK');
   });
 
-  it('the result and checked-by columns are left empty', () => {
-    const rows = parseCsv(stepsCsv(guard)).slice(3);
-    for (const r of rows) expect(r.slice(-2)).toEqual(['', '']);
-    const sheet = stepsSheet(guard);
+  it('the columns a commissioning engineer fills in are left empty', () => {
+    const m = guard.outputs.length;
+    const rows = parseCsv(stepsCsv(guard)).slice(8);
+    for (const r of rows) expect(r.slice(5 + m, 5 + 2 * m + FILL_IN_COLUMNS.length)).toEqual(Array.from({ length: m + FILL_IN_COLUMNS.length }, () => ''));
+    const sheet = testRecordSheet(guard);
     const data = sheet.rows.slice(sheet.rows.findIndex((r) => r[0]?.value === 'Step') + 1);
     expect(data.length).toBe(stepTable(guard).rows.length);
-    for (const r of data) expect(r.slice(-2)).toEqual([null, null]);
+    for (const r of data) expect(r.slice(5 + m, 5 + 2 * m + FILL_IN_COLUMNS.length)).toEqual(Array.from({ length: m + FILL_IN_COLUMNS.length }, () => null));
   });
 
   it('the full table, on request, is every combination in order', () => {
@@ -90,7 +115,7 @@ describe('commissioning test steps', () => {
     const table = stepTable(wide, { full: true });
     expect(table.note).toMatch(/^Full table left out: 17 inputs/);
     expect(table.rows.length).toBe(wide.outputs[0]!.steps.length);
-    expect(parseCsv(stepsCsv(wide, { full: true }))[2]![0]).toBe(table.note);
+    expect(parseCsv(stepsCsv(wide, { full: true }))[7]![0]).toBe(table.note);
   });
 
   it('CSV fields read back as written, whatever they hold (property)', () => {
@@ -122,9 +147,9 @@ describe('commissioning test steps', () => {
   });
 
   it('the sheet carries a title, the caution line by line, and a name of at most 31 characters', () => {
-    const sheet = stepsSheet(analysisOf({ ...VOTE, sheet: 'A sheet name that is rather long' }));
+    const sheet = testRecordSheet(analysisOf({ ...VOTE, sheet: 'A sheet name that is rather long' }));
     expect(sheet.name.length).toBeLessThanOrEqual(31);
-    expect(sheet.name.endsWith(' steps')).toBe(true);
+    expect(sheet.name.endsWith(' record')).toBe(true);
     expect(sheet.rows.slice(1, 1 + CAUTION_LINES.length).map((r) => r[0]!.value)).toEqual(CAUTION_LINES);
   });
 });

@@ -5,25 +5,31 @@ import fc from 'fast-check';
 import { analyseTable } from '../../src/spec/analyse.js';
 import { SYMBOLIC_FROM_INPUTS } from '../../src/spec/analyse-symbolic.js';
 import { readSpecTables } from '../../src/spec/read-tables.js';
-import type { CellValue, SpecTable } from '../../src/spec/types.js';
+import { equals } from '../../src/logic/bits.js';
+import type { CellValue, DontCarePolicy, SpecTable } from '../../src/spec/types.js';
 
-function read(n: number, rows: CellValue[][]): SpecTable {
+function read(n: number, rows: CellValue[][], dontCares: DontCarePolicy = 'minimal'): SpecTable {
   const inputs = Array.from({ length: n }, (_, i) => `In ${i + 1}`);
-  const r = readSpecTables({ sheet: 'Cell', origin: 'A1', cells: [[...inputs.map(() => 'input'), 'output', 'output'], [...inputs, 'Run', 'Stop'], ...rows] });
+  const r = readSpecTables({ sheet: 'Cell', origin: 'A1', cells: [[...inputs.map(() => 'input'), 'output', 'output'], [...inputs, 'Run', 'Stop'], ...rows] }, { dontCares });
   return r.tables[0]!;
 }
 
-const tables = fc.integer({ min: 4, max: 10 }).chain((n) =>
-  fc
-    .array(fc.tuple(fc.array(fc.constantFrom<CellValue>(1, 0, '-', '-'), { minLength: n, maxLength: n }), fc.constantFrom<CellValue>(1, 0, '-'), fc.constantFrom<CellValue>(1, 0)), {
-      minLength: 1,
-      maxLength: 8,
-    })
-    .map((rows) => read(n, rows.map(([cells, run, stop]) => [...cells, run, stop]))),
-);
+/** Random tables of `min` to `max` inputs, a few rows of few literals, read with the policy. */
+function tablesOf(min: number, max: number, maxRows: number, dontCares: DontCarePolicy, literal: fc.Arbitrary<CellValue>): fc.Arbitrary<SpecTable> {
+  return fc.integer({ min, max }).chain((n) =>
+    fc
+      .array(fc.tuple(fc.array(literal, { minLength: n, maxLength: n }), fc.constantFrom<CellValue>(1, 0, '-'), fc.constantFrom<CellValue>(1, 0)), {
+        minLength: 1,
+        maxLength: maxRows,
+      })
+      .map((rows) => read(n, rows.map(([cells, run, stop]) => [...cells, run, stop]), dontCares)),
+  );
+}
+
+const tables = tablesOf(4, 10, 8, 'safe', fc.constantFrom<CellValue>(1, 0, '-', '-'));
 
 describe('the symbolic engine in the bit-set types', () => {
-  it('agrees with the bit-set engine on gaps, conflicts, XOR terms and degree, proofs and proven costs (property)', () => {
+  it('agrees with the bit-set engine on gaps, conflicts, XOR terms and degree, proofs and proven costs, don\'t-cares at the safe value (property)', () => {
     fc.assert(
       fc.property(tables, (t) => {
         const ours = analyseTable(t, { engine: 'symbolic' });
@@ -40,6 +46,44 @@ describe('the symbolic engine in the bit-set types', () => {
         });
       }),
       { numRuns: 60 },
+    );
+  });
+
+  // 20 to 24 inputs, where the symbolic engine is the default: both paths give one resolved function.
+  const sparse = fc.constantFrom<CellValue>(1, 0, ...Array.from({ length: 14 }, () => '-' as const));
+  it("resolves the don't-cares at the safe value into the function the bit-set path resolves, at 20 to 24 inputs (property)", () => {
+    fc.assert(
+      fc.property(tablesOf(SYMBOLIC_FROM_INPUTS, 24, 4, 'safe', sparse), (t) => {
+        const ours = analyseTable(t);
+        const theirs = analyseTable(t, { engine: 'bit-set' });
+        ours.outputs.forEach((o, j) => {
+          const b = theirs.outputs[j]!;
+          expect(o.dontCares).toBe('safe');
+          expect(equals(o.resolved.on, b.resolved.on)).toBe(true);
+          expect([o.permitsAlsoCount, o.xor.terms, o.bestXor.terms]).toEqual([b.permitsAlsoCount, b.xor.terms, b.bestXor.terms]);
+        });
+      }),
+      { numRuns: 6 },
+    );
+  });
+
+  it("resolves the don't-cares as the minimal AND/OR form uses them into the bit-set path's function when both take the same form, at 20 to 24 inputs (property)", () => {
+    fc.assert(
+      fc.property(tablesOf(SYMBOLIC_FROM_INPUTS, 24, 4, 'minimal', sparse), (t) => {
+        const ours = analyseTable(t);
+        const theirs = analyseTable(t, { engine: 'bit-set' });
+        ours.outputs.forEach((o, j) => {
+          const b = theirs.outputs[j]!;
+          expect(o.dontCares).toBe('minimal');
+          for (const f of [o.andOr, o.xor, o.bestXor]) expect(f.proof.mismatchCount).toBe(0);
+          // Equally cheap minimal forms may use different don't-cares; the same form, the same function.
+          if (o.andOr.text === b.andOr.text) {
+            expect(equals(o.resolved.on, b.resolved.on)).toBe(true);
+            expect([o.permitsAlsoCount, o.xor.text]).toEqual([b.permitsAlsoCount, b.xor.text]);
+          } else if (o.andOr.proven && b.andOr.proven) expect([o.andOr.terms, o.andOr.literals]).toEqual([b.andOr.terms, b.andOr.literals]);
+        });
+      }),
+      { numRuns: 6 },
     );
   });
 

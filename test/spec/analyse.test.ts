@@ -68,9 +68,24 @@ describe("don't-cares", () => {
     expect(y!.dontCareCount).toBe(1);
   });
 
-  it('take the safe value in the XOR form', () => {
-    expect(y!.xor.text).toBe('A AND B');
-    expect(y!.xor.permitsAlso).toEqual([]);
+  it('are resolved once: the XOR forms are of the same function as the AND/OR form', () => {
+    expect(y!.dontCares).toBe('minimal');
+    expect(y!.xor.text).toBe('A');
+    expect(y!.bestXor.permitsAlso).toEqual([2]);
+    expect(members(y!.resolved.on)).toEqual([2, 3]);
+  });
+
+  it('turned ON are a warning at the output header, with one column per input', () => {
+    const p = analyseTable(t).problems.find((q) => q.code === 'permits-also');
+    expect(p).toMatchObject({ severity: 'warning', cell: 'D4', patterns: { headers: ['A', 'B'], rows: [['1', '0']] } });
+    expect(p!.message).toMatch(/^Y permits also 1 don't-care combination .*ON with A=1, B=0/);
+  });
+
+  it("under the policy 'safe' all take the safe value, in every form, and nothing is permitted also", () => {
+    const safe = table(['A', 'B'], ['Y'], [[1, 1, 1], [1, 0, '-'], [0, '-', 0]], { dontCares: 'safe' });
+    const [s] = analyseTable(safe).outputs;
+    expect([s!.andOr.text, s!.xor.text, s!.permitsAlsoCount]).toEqual(['A AND B', 'A AND B', 0]);
+    expect(analyseTable(safe).problems.some((q) => q.code === 'permits-also')).toBe(false);
   });
 });
 
@@ -108,7 +123,7 @@ describe('what an output depends on', () => {
   it('an input that appears in no XOR term is unused, and the problems say so at the output header', () => {
     const analysis = analyseTable(table(['A', 'B'], ['Y'], fullTable(2, ([a]) => a!)));
     expect(analysis.outputs[0]!.unusedInputs).toEqual([1]);
-    expect(analysis.problems).toContainEqual({ severity: 'info', sheet: 'Capper', cell: 'D4', message: 'Y does not depend on B' });
+    expect(analysis.problems).toContainEqual({ severity: 'info', code: 'unused-inputs', sheet: 'Capper', cell: 'D4', message: 'Y does not depend on B' });
   });
 });
 
@@ -147,14 +162,14 @@ describe('the JSON of an analysis', () => {
       name: 'Motor permit',
       identifier: 'Motor_permit',
       andOr: 'Guard_A',
-      xor: 'Guard_A AND Guard_B',
+      xor: 'Guard_A',
       proven: true,
       terms: 1,
       literals: 1,
       xorTerms: 1,
       check: { combinations: 4, mismatchCount: 0, mismatches: [] },
     });
-    expect(json.problems).toContainEqual({ severity: 'warning', cell: 'B3:D7', message: expect.stringMatching(/^1 input combination/) });
+    expect(json.problems).toContainEqual({ severity: 'warning', code: 'gaps', cell: 'B3:D7', message: expect.stringMatching(/^1 input combination/) });
   });
 
   it('writes combinations as patterns over the inputs, leftmost first', () => {

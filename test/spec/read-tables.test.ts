@@ -119,7 +119,8 @@ describe('reading data cells', () => {
     const [p] = errors(allProblems(read));
     expect(p).toMatchObject({ cell: 'A3' });
     expect(p!.message).toMatch(/ambiguous/);
-    expect(p!.message).toMatch(/setting that reads X as don't-care/);
+    expect(p!.message).toMatch(/tick 'X means don't-care' \(command line: --x-means-dont-care\)/);
+    expect(p!.setting).toBe('x-means-dont-care');
     expect(read.tables[0]!.xReading).toBe('none');
   });
 
@@ -139,7 +140,7 @@ describe('reading data cells', () => {
     ['the number 0.5', 0.5, /number 0.5/],
     ['a date', { date: 45000 }, /date/],
     ['an error value', { error: '#N/A' }, /error value #N\/A/],
-    ['other text', 'on', /"on" is not a truth value/],
+    ['other text', 'maybe', /"maybe" is not a truth value/],
   ];
   for (const [what, value, reason] of badCells) {
     it(`${what} in a data row is an error naming its cell`, () => {
@@ -152,7 +153,7 @@ describe('reading data cells', () => {
   }
 
   it('leaves a row with an unreadable cell out of the functions, so its combinations are gaps', () => {
-    const t = onlyTable([ROLES, HEADERS, [1, 1, 1], [0, 'on', 0]]);
+    const t = onlyTable([ROLES, HEADERS, [1, 1, 1], [0, 'maybe', 0]]);
     expect(t.rows).toHaveLength(1);
     expect(members(t.outputs[0]!.built.gaps)).toEqual([0, 1, 2]);
   });
@@ -254,7 +255,7 @@ describe('the shape of a table', () => {
   it('a header with no data rows below is an error', () => {
     const t = onlyTable([ROLES, HEADERS]);
     expect(errors(t.problems)).toEqual([
-      { severity: 'error', sheet: 'Capper', cell: 'A2:C2', message: 'no data rows below the header row' },
+      { severity: 'error', code: 'no-data-rows', sheet: 'Capper', cell: 'A2:C2', message: 'no data rows below the header row' },
     ]);
   });
 
@@ -336,5 +337,33 @@ describe('finding tables on a sheet', () => {
     const read = readSpecTables(grid([['A', 'B', null, 'Y'], [1, 1, null, 1], [0, 0, null, null]]));
     expect(read.tables).toHaveLength(1);
     expect(errors(read.tables[0]!.problems).map((p) => p.cell)).toEqual(['D3']);
+  });
+});
+
+describe("the host's reading problems", () => {
+  const cells = [ROLES, HEADERS, ...AND_ROWS];
+  const hostProblem = (cell: string): Problem => ({
+    severity: 'error',
+    code: 'formula-cell',
+    sheet: 'Capper',
+    cell,
+    message: 'test problem from the host',
+  });
+
+  it('a problem at a cell inside a table belongs to that table', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('B4')] });
+    expect(read.tables[0]!.problems).toContainEqual(hostProblem('B4'));
+    expect(read.problems).toEqual([]);
+  });
+
+  it('a problem outside every table stays beside the tables', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('H40')] });
+    expect(read.tables[0]!.problems).not.toContainEqual(hostProblem('H40'));
+    expect(read.problems).toContainEqual(hostProblem('H40'));
+  });
+
+  it('a problem over a range that overlaps a table belongs to it', () => {
+    const read = readSpecTables({ ...grid(cells), readProblems: [hostProblem('A5:Z9')] });
+    expect(read.tables[0]!.problems).toContainEqual(hostProblem('A5:Z9'));
   });
 });

@@ -1,0 +1,38 @@
+// How each cell style of a SheetBlock looks, and how a results sheet prints: one description
+// that the Excel host (Office.js formats) and the file host (styles in the .xlsx package) both
+// follow, so a results sheet looks the same whichever host wrote it. Our own plain colours.
+import type { CellStyle, PrintSetup } from './sheet-block.js';
+
+export interface Look {
+  readonly bold?: boolean;
+  readonly italic?: boolean;
+  /** Colours as #RRGGBB. */
+  readonly color?: string;
+  readonly fill?: string;
+  readonly fontName?: string;
+  readonly size?: number;
+  readonly wrap?: boolean;
+  readonly align?: 'left' | 'center' | 'right';
+}
+
+export const LOOKS: Readonly<Record<CellStyle, Look>> = {
+  title: { bold: true, size: 14 },
+  heading: { bold: true, fill: '#DCE6F0' },
+  label: { bold: true },
+  code: { fontName: 'Consolas', wrap: true },
+  caution: { italic: true, color: '#7A2E00' },
+  status: { bold: true, align: 'center' },
+  input: { align: 'center' },
+  number: { align: 'right' },
+};
+
+/** Conditional formats on status cells: a cell containing DIFFERS red, OK green (DIFFERS first: it also contains no OK). */
+export const STATUS_LOOKS = [
+  { text: 'DIFFERS', fill: '#F4C7C3', font: '#8B0000' },
+  { text: 'OK', fill: '#CDE8C5', font: '#1E5B1E' },
+] as const;
+
+/** How our sheets print: landscape, one page wide (as many pages down as needed), the title row on every page. */
+export function printSetup(footer: string): PrintSetup {
+  return { landscape: true, fitToWidth: true, titleRows: 1, footer };
+}

@@ -1,0 +1,62 @@
+// The `--json` document of a run (DESIGN.md section 4) with each table's and output's verdict.
+// A table that was not analysed carries its signals, gaps, conflicts and problems, and no form.
+import { count } from '../logic/bits.js';
+import { cube, cubeToPattern } from '../logic/cube.js';
+import { analysisJson } from '../spec/analysis-json.js';
+import type { Problem } from '../spec/types.js';
+import { gapCubes } from '../spec/uncovered.js';
+import type { TableResult, Workbook } from './examine.js';
+import { verdictWords, type Verdict } from './verdict.js';
+
+interface VerdictJson {
+  readonly kind: Verdict['kind'];
+  readonly text: string;
+}
+
+function verdictJson(v: Verdict): VerdictJson {
+  return { kind: v.kind, text: verdictWords(v) };
+}
+
+function problemJson(p: Problem): { severity: string; code: string; sheet: string; cell: string; message: string } {
+  return { severity: p.severity, code: p.code, sheet: p.sheet, cell: p.cell, message: p.message };
+}
+
+function tableJson(t: TableResult): Record<string, unknown> {
+  if (t.analysis) {
+    const doc = analysisJson(t.analysis);
+    return { ...doc, verdict: verdictJson(t.verdict), outputs: doc.outputs.map((o, j) => ({ ...o, verdict: verdictJson(t.outputs[j]!) })) };
+  }
+  const { table } = t;
+  const n = table.inputs.length;
+  const identifiers: Record<string, string> = {};
+  for (const s of [...table.inputs, ...table.outputs.map((o) => o.signal)]) identifiers[s.header] = s.identifier;
+  const combination = (k: number): string => cubeToPattern(n, cube(n === 0 ? 0 : 2 ** n - 1, k));
+  const gaps = table.outputs[0] ? gapCubes(n, table.outputs[0].built.gaps) : undefined;
+  return {
+    sheet: table.sheet,
+    range: table.range,
+    inputs: table.inputs.map((s) => s.header),
+    verdict: verdictJson(t.verdict),
+    outputs: table.outputs.map((o, j) => ({
+      name: o.signal.header,
+      identifier: o.signal.identifier,
+      verdict: verdictJson(t.outputs[j]!),
+      safeValue: o.safe,
+      gaps: (gaps?.cubes ?? []).map((c) => cubeToPattern(n, c)),
+      gapCount: table.outputs[0] ? count(table.outputs[0].built.gaps) : 0,
+      conflicts: o.built.conflicts.map((c) => ({
+        rows: [table.rows[c.rowA]!.cells, table.rows[c.rowB]!.cells],
+        example: combination(c.example),
+        combinations: c.combinations,
+      })),
+    })),
+    problems: table.problems.map((p) => ({ severity: p.severity, code: p.code, cell: p.cell, message: p.message })),
+    roleRule: table.roleRule,
+    xReading: table.xReading,
+    identifiers,
+  };
+}
+
+export function workbookJson(wb: Workbook): { tables: Record<string, unknown>[]; problems: ReturnType<typeof problemJson>[] } {
+  return { tables: wb.tables.map(tableJson), problems: wb.problems.map(problemJson) };
+}
