@@ -29,11 +29,21 @@ describe('a 40-input trip table through the command line', () => {
     expect(run.out).toMatch(/Every form \(3\) was proven/);
   });
 
+  it('refuses to export it, saying that Structured Text takes at most 24 inputs', async () => {
+    const run = await runCli('export', file, '--st', join(scratch(), 'trip.st'));
+    expect(run.code).not.toBe(0);
+    expect(run.err + run.out).toMatch(/has 40 inputs: .*take at most 24 inputs/);
+  });
+
   it('writes the JSON document with the symbolic engine named', async () => {
     const run = await runCli('analyze', file, '--json');
     expect(run.code).toBe(0);
     const [table] = JSON.parse(run.out).tables;
     expect(table.engine).toBe('symbolic');
-    expect(table.outputs[0]).toMatchObject({ name: 'Trip', terms: 40, proven: true, xorTerms: 2 ** 40 - 1, bestXor: { terms: 2 } });
+    expect(table.outputs[0]).toMatchObject({ name: 'Trip', terms: 40, proven: true, xorTerms: 2 ** 40 - 1, bestXor: { terms: 2 }, dontCares: 'minimal' });
+    expect(table.outputs[0].check).toEqual({ combinations: 2 ** 40, mismatchCount: 0, mismatches: [] });
+    expect(table.outputs[0].verdict).toEqual({ kind: 'proven', text: 'proven minimum' });
+    expect(table.verdict.kind).toBe('proven');
+    expect(table.problems.map((p: { code: string }) => p.code)).toContain('symbolic-engine');
   });
 });
