@@ -5,21 +5,14 @@ import { combinationPattern, countJson, inputBit, widePattern } from '../logic/w
 import type { WideXor } from '../logic/wide-analysis.js';
 import type { TableAnalysis } from './analysis-types.js';
 import type { DontCarePolicy } from './types.js';
-import type { MismatchJson, TableJson } from './analysis-json.js';
+import { formHead, namedForms, type MismatchJson, type OutputJson, type TableJson } from './analysis-json.js';
 import type { WideOutputAnalysis, WideTableAnalysis } from './wide-types.js';
 
 /** A count: a number while exact, else decimal digits. */
 type Count = number | string;
 
-export interface WideOutputJson {
-  readonly name: string;
-  readonly identifier: string;
-  readonly andOr: string;
-  /** Structured Text, or "N terms: not printed (more than 64)". */
-  readonly xor: string;
-  readonly proven: boolean;
-  readonly terms: number;
-  readonly literals: number;
+/** `xor` is Structured Text, or "N terms: not printed (more than 64)". */
+export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
   readonly xorTerms: Count;
   /** Terms are printed up to this many. */
   readonly xorPrintLimit: number;
@@ -50,19 +43,9 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
   const { n } = wide;
   const headers = analysis.inputs.map((s) => s.header);
   const output = (o: WideOutputAnalysis): WideOutputJson => {
-    const forms: [MismatchJson['form'], { proof: WideXor['proof'] }][] = [
-      ['andOr', o.andOr],
-      ['xor', o.xor],
-      ['bestXor', o.bestXor],
-    ];
+    const forms = namedForms<{ proof: WideXor['proof'] }>(o);
     return {
-      name: o.signal.header,
-      identifier: o.signal.identifier,
-      andOr: o.andOr.text,
-      xor: o.xor.text,
-      proven: o.andOr.proven,
-      terms: o.andOr.terms,
-      literals: o.andOr.literals,
+      ...formHead(o),
       xorTerms: countJson(o.xor.terms),
       xorPrintLimit: XOR_PRINT_LIMIT,
       xorProofOf: o.xor.proofOf,

@@ -80,6 +80,32 @@ export interface TableJson {
   readonly identifiers: Record<string, string>;
 }
 
+/** The three forms by their JSON names, for the mismatch list (both engines' outputs). */
+export function namedForms<F>(o: { andOr: F; xor: F; bestXor: F }): [MismatchJson['form'], F][] {
+  return [
+    ['andOr', o.andOr],
+    ['xor', o.xor],
+    ['bestXor', o.bestXor],
+  ];
+}
+
+/** The fields every output's JSON opens with (both engines' outputs). */
+export function formHead(o: {
+  signal: { header: string; identifier: string };
+  andOr: { text: string; proven: boolean; terms: number; literals: number };
+  xor: { text: string };
+}): Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
+  return {
+    name: o.signal.header,
+    identifier: o.signal.identifier,
+    andOr: o.andOr.text,
+    xor: o.xor.text,
+    proven: o.andOr.proven,
+    terms: o.andOr.terms,
+    literals: o.andOr.literals,
+  };
+}
+
 export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson {
   const { table } = analysis;
   const n = analysis.inputs.length;
@@ -112,19 +138,9 @@ export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson
   function outputJson(o: OutputAnalysis, a: TableAnalysis): OutputJson {
     const combination = (k: Combination): string => cubeToPattern(n, cube((1 << n) - 1, k));
     const pattern = (c: Cube): string => cubeToPattern(n, c);
-    const forms: [MismatchJson['form'], { proof: XorForm['proof'] }][] = [
-      ['andOr', o.andOr],
-      ['xor', o.xor],
-      ['bestXor', o.bestXor],
-    ];
+    const forms = namedForms<{ proof: XorForm['proof'] }>(o);
     return {
-      name: o.signal.header,
-      identifier: o.signal.identifier,
-      andOr: o.andOr.text,
-      xor: o.xor.text,
-      proven: o.andOr.proven,
-      terms: o.andOr.terms,
-      literals: o.andOr.literals,
+      ...formHead(o),
       xorTerms: o.xor.terms,
       check: {
         combinations: o.andOr.proof.combinations,
