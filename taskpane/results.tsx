@@ -310,7 +310,12 @@ export function SpecTableView({ table, handOver, selectCell }: { table: TableVie
           outputs told apart by {ROLE_RULE[table.roleRule]}.
           {table.xReading === 'dont-care' && ' X cells were read as any / don\'t-care.'}
         </p>
-        {!table.analysed && (
+        {table.limit && (
+          <p class="verdict" role="status">
+            {table.limit}.
+          </p>
+        )}
+        {!table.analysed && !table.limit && (
           <p class="verdict not-analysed" role="status">
             No form was derived or proven and nothing of this table is handed over: fix the cells below and read it again.
           </p>

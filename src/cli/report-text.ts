@@ -1,5 +1,6 @@
 // The readable report of `analyze`: per table its signals, per output its forms, proof,
 // gaps, conflicts and don't-cares turned on, then the problems with sheet!cell, then the caution.
+import { wideOutputLines } from './report-text-wide.js';
 import type { Signal } from '../logic/signals.js';
 import { CAUTION_LINES } from '../report/caution.js';
 import { combinationTableLines, cubeTableLines } from './pattern-table.js';
@@ -81,7 +82,7 @@ export function tableReport(analysis: TableAnalysis): string[] {
   const t = analysis.table;
   const inputs = analysis.inputs;
   const lines: string[] = [];
-  const title = `Table ${qualifiedAddress(t.sheet, t.range)}: ${plural(inputs.length, 'input')}, ${plural(analysis.outputs.length, 'output')}, ${plural(t.rows.length, 'row')}`;
+  const title = `Table ${qualifiedAddress(t.sheet, t.range)}: ${plural(inputs.length, 'input')}, ${plural(analysis.outputs.length + (analysis.wide?.outputs.length ?? 0), 'output')}, ${plural(t.rows.length, 'row')}`;
   lines.push(title, '='.repeat(Math.min(title.length, 100)));
   lines.push(`Inputs and outputs told apart by ${ROLE_RULE[t.roleRule]}.${t.xReading === 'dont-care' ? " X cells read as '-' (any / don't-care)." : ''}`);
   lines.push('Signals (header -> identifier):');
@@ -89,6 +90,7 @@ export function tableReport(analysis: TableAnalysis): string[] {
   for (const s of inputs) lines.push(`  in   ${s.header.padEnd(width)} -> ${s.identifier}`);
   for (const o of analysis.outputs) lines.push(`  out  ${o.signal.header.padEnd(width)} -> ${o.signal.identifier}`);
   for (const o of analysis.outputs) appendAll(lines, outputLines(o, inputs));
+  for (const o of analysis.wide?.outputs ?? []) appendAll(lines, wideOutputLines(o, inputs, analysis.wide!));
   if (analysis.problems.length > 0) {
     lines.push('', 'Problems:');
     for (const p of analysis.problems) lines.push(problemLine(p));

@@ -19,18 +19,26 @@ import { describeCube } from './read-tables.js';
 import { settingName } from './settings.js';
 import { gapCubes } from './uncovered.js';
 import { appendAll } from '../logic/arrays.js';
+import { analyseWide, conflictReports } from './analyse-wide.js';
+import { SYMBOLIC_FROM_INPUTS, analyseSymbolically } from './analyse-symbolic.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */
   readonly budgetMs?: number;
   /** Called after each step: `what` says which ("Motor_Permit: XOR form"). */
   readonly onProgress?: (done: number, total: number, what: string) => void;
+  /** Up to 24 inputs, which engine: by default the symbolic one from SYMBOLIC_FROM_INPUTS on (benches and tests compare). */
+  readonly engine?: 'bit-set' | 'symbolic';
 }
 
 /** Steps per output reported to onProgress; one more for the gaps of the table. */
 const STEPS_PER_OUTPUT = 4;
 
 export function analyseTable(table: SpecTable, options: AnalyseOptions = {}): TableAnalysis {
+  if (table.wide) return analyseWide(table, table.wide, options);
+  const engine = options.engine ?? (table.inputs.length >= SYMBOLIC_FROM_INPUTS ? 'symbolic' : 'bit-set');
+  const symbolic = engine === 'symbolic' ? analyseSymbolically(table, options) : null;
+  if (symbolic) return symbolic;
   const n = table.inputs.length;
   const total = table.outputs.length * STEPS_PER_OUTPUT + 1;
   let done = 0;
@@ -110,16 +118,7 @@ function analyseOutput(
     unusedInputs: support.flatMap((used, i) => (used ? [] : [i])),
     gaps,
     gapCount,
-    conflicts: output.built.conflicts.map((c) => {
-      const [a, b] = [table.rows[c.rowA]!, table.rows[c.rowB]!];
-      return {
-        rowCellsA: a.cells,
-        rowCellsB: b.cells,
-        ...(a.note !== undefined || b.note !== undefined ? { notes: [a.note, b.note] as const } : {}),
-        example: c.example,
-        combinations: c.combinations,
-      };
-    }),
+    conflicts: conflictReports(table, output.built.conflicts),
     dontCareCount: count(spec.dc),
     steps,
   };
@@ -156,7 +155,7 @@ function formProof(p: FormProof): FormProof {
 }
 
 /** What the analysis adds to the table's problems for one output, pinned to its header cell. */
-function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
+export function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Problem[] {
   const at = (severity: Problem['severity'], code: ProblemCode, message: string): Problem => ({ severity, code, sheet: table.sheet, cell, message });
   const out: Problem[] = [];
   const forms: [string, { proof: FormProof }][] = [
@@ -179,7 +178,7 @@ function outputProblems(table: SpecTable, o: OutputAnalysis, cell: string): Prob
   return out;
 }
 
-const POLICY_WORDS = { minimal: 'as the minimal AND/OR form uses them', safe: 'at the safe value' } as const;
+export const POLICY_WORDS = { minimal: 'as the minimal AND/OR form uses them', safe: 'at the safe value' } as const;
 
 /** How many cubes of a permits-also warning its message spells out (its pattern table has up to LISTED). */
 const PERMITS_SHOWN = 8;

@@ -6,6 +6,7 @@ import type { Combination } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import type { OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import type { AnnotationColumn, DontCarePolicy, PatternTable, ProblemCode, RoleRule, Setting, Severity, ValueReading, XReading } from './types.js';
+import { wideAnalysisJson, type WideTableJson } from './analysis-json-wide.js';
 
 export interface MismatchJson {
   readonly form: 'andOr' | 'xor' | 'bestXor';
@@ -82,16 +83,42 @@ export interface TableJson {
   readonly identifiers: Record<string, string>;
 }
 
-export function analysisJson(analysis: TableAnalysis): TableJson {
+/** The three forms by their JSON names, for the mismatch list (both engines' outputs). */
+export function namedForms<F>(o: { andOr: F; xor: F; bestXor: F }): [MismatchJson['form'], F][] {
+  return [
+    ['andOr', o.andOr],
+    ['xor', o.xor],
+    ['bestXor', o.bestXor],
+  ];
+}
+
+/** The fields every output's JSON opens with (both engines' outputs). */
+export function formHead(o: {
+  signal: { header: string; identifier: string };
+  andOr: { text: string; proven: boolean; terms: number; literals: number };
+  xor: { text: string };
+}): Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
+  return {
+    name: o.signal.header,
+    identifier: o.signal.identifier,
+    andOr: o.andOr.text,
+    xor: o.xor.text,
+    proven: o.andOr.proven,
+    terms: o.andOr.terms,
+    literals: o.andOr.literals,
+  };
+}
+
+export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson {
   const { table } = analysis;
   const n = analysis.inputs.length;
   const identifiers: Record<string, string> = {};
-  for (const s of [...analysis.inputs, ...analysis.outputs.map((o) => o.signal)]) identifiers[s.header] = s.identifier;
-  return {
+  for (const s of [...analysis.inputs, ...analysis.outputs.map((o) => o.signal), ...(analysis.wide?.outputs ?? []).map((o) => o.signal)])
+    identifiers[s.header] = s.identifier;
+  const tableFields = {
     sheet: table.sheet,
     range: table.range,
     inputs: analysis.inputs.map((s) => s.header),
-    outputs: analysis.outputs.map((o) => outputJson(o, analysis)),
     problems: analysis.problems.map(problemJson),
     roleRule: table.roleRule,
     xReading: table.xReading,
@@ -100,23 +127,15 @@ export function analysisJson(analysis: TableAnalysis): TableJson {
     ...(table.tagRow === undefined ? {} : { tagRow: table.tagRow }),
     identifiers,
   };
+  if (analysis.wide) return wideAnalysisJson(analysis, analysis.wide, tableFields);
+  return { ...tableFields, outputs: analysis.outputs.map((o) => outputJson(o, analysis)) };
 
   function outputJson(o: OutputAnalysis, a: TableAnalysis): OutputJson {
     const combination = (k: Combination): string => cubeToPattern(n, cube((1 << n) - 1, k));
     const pattern = (c: Cube): string => cubeToPattern(n, c);
-    const forms: [MismatchJson['form'], { proof: XorForm['proof'] }][] = [
-      ['andOr', o.andOr],
-      ['xor', o.xor],
-      ['bestXor', o.bestXor],
-    ];
+    const forms = namedForms<{ proof: XorForm['proof'] }>(o);
     return {
-      name: o.signal.header,
-      identifier: o.signal.identifier,
-      andOr: o.andOr.text,
-      xor: o.xor.text,
-      proven: o.andOr.proven,
-      terms: o.andOr.terms,
-      literals: o.andOr.literals,
+      ...formHead(o),
       lowerBound: o.andOr.lowerBound,
       xorTerms: o.xor.terms,
       check: {

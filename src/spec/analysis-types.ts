@@ -8,6 +8,7 @@ import type { TestStep } from '../logic/steps.js';
 import type { Expr } from '../logic/expr/ast.js';
 import type { BoolFunction } from '../logic/boolfn.js';
 import type { DontCarePolicy, Problem, SpecTable } from './types.js';
+import type { WideTableAnalysis } from './wide-types.js';
 
 /** A form checked on every combination against the output's resolved function. */
 export interface FormProof {
@@ -88,6 +89,9 @@ export interface OutputAnalysis {
 export interface TableAnalysis {
   readonly table: SpecTable;
   readonly inputs: readonly Signal[];
+  /** Empty for a table of more than 24 inputs: its outputs are in `wide`. */
   readonly outputs: readonly OutputAnalysis[];
   readonly problems: readonly Problem[];
+  /** Only for a table of more than 24 inputs: the symbolic engine's results. */
+  readonly wide?: WideTableAnalysis;
 }

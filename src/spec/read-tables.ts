@@ -1,6 +1,8 @@
 // A grid of cells -> the spec tables on it, with every problem pinned to an A1 cell.
 import { buildFunction, type OutputValue, type SafeValue, type TableRow } from '../logic/boolfn.js';
 import { MAX_INPUTS, count } from '../logic/bits.js';
+import { WIDE_MAX_INPUTS, type WideCube } from '../logic/wide-cube.js';
+import { readWide, wideRowCube } from './read-wide.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
 import { fullIdentifier, toIdentifiers } from '../logic/identifiers.js';
 import type { Signal } from '../logic/signals.js';
@@ -305,11 +307,15 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
 
   const xReading = options.xReading ?? 'none';
   const rows: SpecRow[] = [];
+  const wideCubes: WideCube[] = [];
   const bad = new BadCells();
   const readings = new Set<ValueReading>();
   for (const r of dataRows) {
     const row = readRow(sheet, r, layout, roles.inputs, roles.outputs, noteCols, xReading, bad, readings);
-    if (row) rows.push(row);
+    if (row) {
+      rows.push(row.row);
+      if (row.wideCube) wideCubes.push(row.wideCube);
+    }
   }
   problems.push(...bad.problems(sheet, host));
   if (dataRows.length === 0) problems.push(sheet.problem('error', 'no-data-rows', headerRange, 'no data rows below the header row'));
@@ -327,8 +333,12 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
   });
   if (annotationList.length > 0) problems.push(annotationProblem(sheet, annotationList));
 
-  const outputs = outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
-  if (rows.length > 0) reportGaps(sheet, tableRange, inputs, outputs, problems);
+  // Over 24 inputs the symbolic engine takes the table (read-wide.ts): no bit-set outputs.
+  const wide = inputs.length > MAX_INPUTS;
+  const outputs = wide ? [] : outputSignals.map((signal, j) => buildOutput(sheet, signal, j, rows, inputs, options, problems));
+  if (rows.length > 0 && !wide) reportGaps(sheet, tableRange, inputs, outputs, problems);
+  const safeOf = (signal: Signal): { signal: Signal; safe: SafeValue } => ({ signal, safe: safeValueOf(signal, options) });
+  const wideSpec = wide && readWide(rows, wideCubes, inputs, outputSignals.map(safeOf), tableRange, (...p) => sheet.problem(...p), problems);
 
   const table: SpecTable = {
     sheet: sheet.grid.sheet,
@@ -345,6 +355,7 @@ function readTable(sheet: SheetCells, layout: BlockLayout, options: SpecOptions,
     ...(layout.tagRow === undefined ? {} : { tagRow: sheet.range({ top: layout.tagRow, left: block.left, bottom: layout.tagRow, right: block.right }) }),
     headerCells: signalCols.map((c) => sheet.address(headerRow, c)),
     problems,
+    ...(wideSpec ? { wide: wideSpec } : {}),
   };
   return { table, problems };
 }
@@ -478,14 +489,9 @@ function shapeProblem(
 ): Problem | undefined {
   if (inputs.length === 0) return sheet.problem('error', 'no-inputs', headerRange, 'no input column: mark at least one column as an input');
   if (outputs.length === 0) return sheet.problem('error', 'no-outputs', headerRange, 'no output column: mark at least one column as an output');
-  if (inputs.length > MAX_INPUTS) {
+  if (inputs.length > WIDE_MAX_INPUTS) {
     const cells = sheet.range({ top: row, left: inputs[0]!, bottom: row, right: inputs[inputs.length - 1]! });
-    return sheet.problem(
-      'error',
-      'too-many-inputs',
-      cells,
-      `${inputs.length} inputs: at most ${MAX_INPUTS} are handled (2^${MAX_INPUTS} combinations); split the table`,
-    );
+    return sheet.problem('error', 'too-many-inputs', cells, `${inputs.length} inputs: at most ${WIDE_MAX_INPUTS} are handled; split the table`);
   }
   return undefined;
 }
@@ -501,7 +507,7 @@ function readRow(
   xReading: XReading,
   bad: BadCells,
   readings: Set<ValueReading>,
-): SpecRow | undefined {
+): { row: SpecRow; wideCube?: WideCube } | undefined {
   const n = inputCols.length;
   let good = true;
   const read = (col: number): OutputValue | undefined => {
@@ -517,8 +523,8 @@ function readRow(
   };
   let mask = 0;
   let bits = 0;
-  inputCols.forEach((col, i) => {
-    const v = read(col);
+  const inputValues = inputCols.map(read);
+  inputValues.forEach((v, i) => {
     const bit = 1 << (n - 1 - i);
     if (v === 1 || v === 0) mask |= bit;
     if (v === 1) bits |= bit;
@@ -529,14 +535,16 @@ function readRow(
     const v = sheet.cellAt(r, c);
     return isBlank(v) ? [] : [typeof v === 'object' && v !== null ? ('error' in v ? v.error : String(v.date)) : String(v).trim()];
   });
-  return {
+  const wide = n > MAX_INPUTS;
+  const row: SpecRow = {
     cells: sheet.range({ top: r, left: layout.block.left, bottom: r, right: layout.block.right }),
     inputCells: inputCols.map((c) => sheet.address(r, c)),
     outputCells: outputCols.map((c) => sheet.address(r, c)),
-    cube: cube(mask, bits),
+    cube: wide ? cube(0, 0) : cube(mask, bits),
     values: values as OutputValue[],
     ...(notes.length > 0 ? { note: notes.join('; ') } : {}),
   };
+  return { row, ...(wide ? { wideCube: wideRowCube(inputValues) } : {}) };
 }
 
 /** What the bad cells of one kind say together, after "N cells in B4:F9". */

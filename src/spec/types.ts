@@ -2,6 +2,7 @@
 import type { BuiltFunction, OutputValue, SafeValue } from '../logic/boolfn.js';
 import type { Cube } from '../logic/cube.js';
 import type { Signal } from '../logic/signals.js';
+import type { WideSpec } from './wide-types.js';
 
 /** One cell as a host reads it. Dates keep their serial number; errors keep their text (#N/A). */
 export type CellValue = null | number | boolean | string | { readonly error: string } | { readonly date: number };
@@ -92,6 +93,7 @@ export interface SpecRow {
   /** A1 address of each input cell, leftmost first, then each output cell. */
   readonly inputCells: readonly string[];
   readonly outputCells: readonly string[];
+  /** The row's input cube; in a table of more than 24 inputs the cube with no literal (see `SpecTable.wide`). */
   readonly cube: Cube;
   readonly values: readonly OutputValue[];
   /** The row's annotation cells (notes, comments), joined with "; ": shown beside the row in messages. */
@@ -144,4 +146,6 @@ export interface SpecTable {
   readonly headerCells: readonly string[];
   /** Problems of this table (those of the whole grid are returned beside the tables). */
   readonly problems: readonly Problem[];
+  /** Only in a table of more than 24 inputs: its rows' cubes and outputs, for the symbolic engine (`outputs` is empty). */
+  readonly wide?: WideSpec;
 }

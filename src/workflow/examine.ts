@@ -1,5 +1,7 @@
 // Read -> analyse -> verdicts -> what may be written and handed over: the one path every host
 // takes. Tables with errors are not analysed; their verdict says so, with the first error.
+import { MAX_INPUTS } from '../logic/bits.js';
+import type { Signal } from '../logic/signals.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
 import { analyseTable } from '../spec/analyse.js';
 import { qualifiedAddress } from '../spec/grid.js';
@@ -44,12 +46,36 @@ export interface ExamineOptions {
   readonly onProgress?: (step: { table: SpecTable; index: number; count: number; done: number; total: number; what: string }) => void;
 }
 
+/** The output signals of a table, in order, whichever engine takes it. */
+export function outputSignals(table: SpecTable): readonly Signal[] {
+  return (table.wide?.outputs ?? table.outputs).map((o) => o.signal);
+}
+
 export function examineTable(table: SpecTable, id: number, analyse: (t: SpecTable) => TableAnalysis): TableResult {
   const stopped = notAnalysed(table.problems);
-  if (stopped) return { id, table, verdict: stopped, outputs: table.outputs.map(() => stopped), problems: table.problems };
+  if (stopped) return { id, table, verdict: stopped, outputs: outputSignals(table).map(() => stopped), problems: table.problems };
   const analysis = analyse(table);
-  const outputs = analysis.outputs.map(outputVerdict);
-  return { id, table, verdict: weakest(outputs), outputs, analysis, problems: analysis.problems };
+  const wide = analysis.wide;
+  // An output the symbolic engine could not take (too large) has an error and no forms.
+  const outputs = wide
+    ? outputSignals(table).map((s) => {
+        const o = wide.outputs.find((w) => w.signal.header === s.header);
+        return o ? outputVerdict(o) : notAnalysed(analysis.problems)!;
+      })
+    : analysis.outputs.map(outputVerdict);
+  return { id, table, verdict: outputs.length > 0 ? weakest(outputs) : notAnalysed(analysis.problems)!, outputs, analysis, problems: analysis.problems };
+}
+
+/**
+ * Why a table's forms cannot go where 24 inputs is the most (results sheet and its live check,
+ * test record, Structured Text and PLCopen export, ladder, verify); undefined when they can.
+ */
+export function wideLimit(table: SpecTable): string | undefined {
+  if (!table.wide) return undefined;
+  return (
+    `${qualifiedAddress(table.sheet, table.range)} has ${table.inputs.length} inputs: its forms and proofs are in the report and the JSON ` +
+    `document only; the results sheet, test record, Structured Text and PLCopen export, ladder and verify take at most ${MAX_INPUTS} inputs`
+  );
 }
 
 export function examine(read: TablesRead, options: ExamineOptions): Workbook {
@@ -73,23 +99,31 @@ function permissions(tables: readonly TableResult[], problems: readonly Problem[
   for (const t of tables) if (!cleared(t.verdict)) why.push(`${qualifiedAddress(t.table.sheet, t.table.range)} ${t.verdict.kind === 'not-analysed' ? 'is ' : ''}${verdictWords(t.verdict)}`);
   const outside = errorsOf(problems);
   if (outside.length > 0) why.push(`${plural(outside.length, 'error')} outside the tables, the first at ${qualifiedAddress(outside[0]!.sheet, outside[0]!.cell)}`);
+  const limits = tables.flatMap((t) => wideLimit(t.table) ?? []);
   const handOver: Permission =
-    why.length === 0 ? { allowed: true } : { allowed: false, reason: `nothing is handed over until every table is cleared: ${why.join('; ')}` };
+    why.length > 0
+      ? { allowed: false, reason: `nothing is handed over until every table is cleared: ${why.join('; ')}` }
+      : limits.length > 0
+        ? { allowed: false, reason: `nothing is handed over: ${limits.join('; ')}` }
+        : { allowed: true };
   return { handOver, resultsWrite: { allowed: true } };
 }
 
-/** Every table cleared, none left out: what exit status 0 of the command line means. */
+/** Every table cleared, none left out, no error outside them: what exit status 0 of the command line means. */
 export function allCleared(wb: Workbook): boolean {
-  return wb.handOver.allowed;
+  return wb.tables.length > 0 && wb.tables.every((t) => cleared(t.verdict)) && errorsOf(wb.problems).length === 0;
 }
 
 /** The verdict line of a whole run. */
 export function workbookVerdictText(wb: Workbook): string {
   if (wb.tables.length === 0) return 'No spec table was found: nothing was proven.';
   const forms = wb.tables.reduce((n, t) => n + t.outputs.length * 3, 0);
-  if (wb.handOver.allowed) return `Every form (${forms}) was proven against its spec table, every input combination checked.`;
+  if (allCleared(wb)) return `Every form (${forms}) was proven against its spec table, every input combination checked.`;
   const errors = errorsOf([...wb.problems, ...wb.tables.flatMap((t) => t.problems)]).length;
-  const differing = wb.tables.flatMap((t) => t.analysis?.outputs ?? []).flatMap((o) => [o.andOr, o.xor, o.bestXor]).filter((f) => f.proof.mismatchCount > 0).length;
+  const differing = wb.tables
+    .flatMap((t) => [...(t.analysis?.outputs ?? []), ...(t.analysis?.wide?.outputs ?? [])])
+    .flatMap((o) => [o.andOr, o.xor, o.bestXor])
+    .filter((f) => Number(f.proof.mismatchCount) > 0).length;
   const why: string[] = [];
   if (errors > 0) why.push(`${plural(errors, 'error')} in the spec`);
   if (differing > 0) why.push(`${plural(differing, 'form')} differ from the spec`);

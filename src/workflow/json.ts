@@ -5,7 +5,7 @@ import { cube, cubeToPattern } from '../logic/cube.js';
 import { analysisJson, problemJson, type ProblemJson } from '../spec/analysis-json.js';
 import type { Problem } from '../spec/types.js';
 import { gapCubes } from '../spec/uncovered.js';
-import type { TableResult, Workbook } from './examine.js';
+import { outputSignals, type TableResult, type Workbook } from './examine.js';
 import { verdictWords, type Verdict } from './verdict.js';
 
 interface VerdictJson {
@@ -25,12 +25,15 @@ function problemWithSheet(p: Problem): ProblemJson & { readonly sheet: string } 
 function tableJson(t: TableResult): Record<string, unknown> {
   if (t.analysis) {
     const doc = analysisJson(t.analysis);
-    return { ...doc, verdict: verdictJson(t.verdict), outputs: doc.outputs.map((o, j) => ({ ...o, verdict: verdictJson(t.outputs[j]!) })) };
+    // By name: over 24 inputs an output too large for the symbolic engine has no entry in `doc`.
+    const signals = outputSignals(t.table);
+    const verdictOf = (name: string): VerdictJson => verdictJson(t.outputs[signals.findIndex((s) => s.header === name)]!);
+    return { ...doc, verdict: verdictJson(t.verdict), outputs: doc.outputs.map((o) => ({ ...o, verdict: verdictOf(o.name) })) };
   }
   const { table } = t;
   const n = table.inputs.length;
   const identifiers: Record<string, string> = {};
-  for (const s of [...table.inputs, ...table.outputs.map((o) => o.signal)]) identifiers[s.header] = s.identifier;
+  for (const s of [...table.inputs, ...outputSignals(table)]) identifiers[s.header] = s.identifier;
   const combination = (k: number): string => cubeToPattern(n, cube(n === 0 ? 0 : 2 ** n - 1, k));
   const gaps = table.outputs[0] ? gapCubes(n, table.outputs[0].built.gaps) : undefined;
   return {
@@ -51,6 +54,8 @@ function tableJson(t: TableResult): Record<string, unknown> {
         combinations: c.combinations,
       })),
     })),
+    // Over 24 inputs the outputs' functions are not built when the table has errors: names and verdicts only.
+    ...(table.wide ? { outputs: table.wide.outputs.map((o, j) => ({ name: o.signal.header, identifier: o.signal.identifier, verdict: verdictJson(t.outputs[j]!), safeValue: o.safe })) } : {}),
     problems: table.problems.map(problemJson),
     roleRule: table.roleRule,
     xReading: table.xReading,

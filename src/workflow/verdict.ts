@@ -2,6 +2,7 @@
 // what was read. A table with an error is not analysed at all, so no form of it can be shown
 // as proven and no proof line can be printed for it.
 import type { OutputAnalysis } from '../spec/analysis-types.js';
+import type { WideOutputAnalysis } from '../spec/wide-types.js';
 import { qualifiedAddress } from '../spec/grid.js';
 import type { Problem } from '../spec/types.js';
 import { plural } from '../report/text.js';
@@ -27,8 +28,9 @@ export function notAnalysed(problems: readonly Problem[]): Verdict | undefined {
   return first ? { kind: 'not-analysed', errors: errors.length, first: qualifiedAddress(first.sheet, first.cell) } : undefined;
 }
 
-export function outputVerdict(o: OutputAnalysis): Verdict {
-  const differing = Math.max(o.andOr.proof.mismatchCount, o.xor.proof.mismatchCount, o.bestXor.proof.mismatchCount);
+/** Either engine's output: proven needs every proof without a mismatch and a finished minimum search. */
+export function outputVerdict(o: OutputAnalysis | WideOutputAnalysis): Verdict {
+  const differing = Math.max(...[o.andOr, o.xor, o.bestXor].map((f) => Number(f.proof.mismatchCount)));
   if (differing > 0) return { kind: 'differs', combinations: differing };
   return o.andOr.proven ? { kind: 'proven' } : { kind: 'heuristic' };
 }

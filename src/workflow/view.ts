@@ -3,7 +3,7 @@
 import type { Signal } from '../logic/signals.js';
 import type { OutputAnalysis } from '../spec/analysis-types.js';
 import type { Problem, RoleRule, XReading } from '../spec/types.js';
-import type { TableResult, Workbook } from './examine.js';
+import { wideLimit, type TableResult, type Workbook } from './examine.js';
 import type { Verdict } from './verdict.js';
 
 export interface TableView {
@@ -17,8 +17,10 @@ export interface TableView {
   readonly xReading: XReading;
   readonly verdict: Verdict;
   readonly problems: readonly Problem[];
-  /** The outputs' forms and findings, only for a table that was analysed. */
+  /** The outputs' forms and findings, only for a table of at most 24 inputs that was analysed. */
   readonly analysed?: readonly OutputAnalysis[];
+  /** Over 24 inputs: what the host cannot show or check of the table, and where its forms are. */
+  readonly limit?: string;
 }
 
 /** The workbook's verdicts and permissions as they are, its tables as views. */
@@ -28,18 +30,20 @@ export interface WorkbookView extends Omit<Workbook, 'tables'> {
 
 function tableView(t: TableResult): TableView {
   const { table } = t;
+  const limit = wideLimit(table);
   return {
     id: t.id,
     sheet: table.sheet,
     range: table.range,
     inputs: table.inputs,
-    outputs: table.outputs.map((o, j) => ({ signal: o.signal, safe: o.safe, verdict: t.outputs[j]! })),
+    outputs: (table.wide?.outputs ?? table.outputs).map((o, j) => ({ signal: o.signal, safe: o.safe, verdict: t.outputs[j]! })),
     rows: table.rows.length,
     roleRule: table.roleRule,
     xReading: table.xReading,
     verdict: t.verdict,
     problems: t.problems,
-    ...(t.analysis ? { analysed: t.analysis.outputs } : {}),
+    ...(t.analysis && !limit ? { analysed: t.analysis.outputs } : {}),
+    ...(limit ? { limit } : {}),
   };
 }
 
