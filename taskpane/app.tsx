@@ -222,7 +222,9 @@ function FileSource({
 
 /** What was written and where, as the pane reports it. */
 function wroteText(reports: WriteReport[], where: string): string {
-  return `Wrote ${reports.map((r) => `sheet "${r.sheet}" (${r.range}, ${r.cells} cells)`).join(' and ')} ${where}. No existing cell was changed.`;
+  const notApplied = reports.flatMap((r) => (r.notApplied ?? []).map((what) => `sheet "${r.sheet}": ${what}`));
+  const note = notApplied.length > 0 ? ` Not applied: ${notApplied.join('; ')}.` : '';
+  return `Wrote ${reports.map((r) => `sheet "${r.sheet}" (${r.range}, ${r.cells} cells)`).join(' and ')} ${where}. No existing cell was changed.${note}`;
 }
 
 /** Where the pane writes new sheets: the workbook in Excel, the results workbook on the standalone page. */

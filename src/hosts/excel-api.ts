@@ -58,8 +58,23 @@ export interface XlRange extends XlLoadable {
   select(): void; // [1.1]
 }
 
+/** Header/footer text with Excel's codes (&P page, &N pages, && a literal &). */
+export interface XlHeaderFooter {
+  leftFooter: string; // [1.9]
+  rightFooter: string; // [1.9]
+}
+
+export interface XlPageLayout {
+  orientation: 'Portrait' | 'Landscape'; // [1.9]
+  zoom: { horizontalFitToPages?: number; verticalFitToPages?: number; scale?: number }; // set as a whole [1.9]
+  readonly headersFooters: { readonly defaultForAllPages: XlHeaderFooter }; // [1.9]
+  setPrintTitleRows(printTitleRows: string): void; // whole rows, "$1:$3" [1.9]
+}
+
 export interface XlWorksheet extends XlLoadable {
   readonly name: string; // [1.1]
+  readonly pageLayout: XlPageLayout; // [1.9]
+  readonly freezePanes: { freezeRows(count?: number): void }; // [1.7]
   getRange(address?: string): XlRange; // [1.1]
   getUsedRangeOrNullObject(valuesOnly?: boolean): XlRange; // [1.4]
   activate(): void; // [1.1]
@@ -90,6 +105,9 @@ export interface XlContext {
   readonly workbook: XlWorkbook;
   sync(): Promise<unknown>;
 }
+
+/** `Office.context.requirements.isSetSupported('ExcelApi', version)`: does this Excel have the requirement set? */
+export type XlSupports = (excelApiVersion: string) => boolean;
 
 /** `Excel.run` narrowed to what the host does: one batch function, one result. */
 export type XlRun = <T>(batch: (context: XlContext) => Promise<T>) => Promise<T>;

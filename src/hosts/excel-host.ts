@@ -2,11 +2,11 @@
 // keep each request under Excel on the web's 5 MB limit; values and formulas are written
 // before any format; results always go to a new sheet, checked empty before writing.
 import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
-import { LOOKS, STATUS_LOOKS, type Look } from '../report/sheet-looks.js';
+import { LOOKS, PAGE_FOOTER, STATUS_LOOKS, footerText, type Look } from '../report/sheet-looks.js';
 import { cellAddress, columnLetters } from '../spec/grid.js';
 import type { CellValue, Grid } from '../spec/types.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
-import { XL_ERROR, xlErrorCode, type XlContext, type XlRange, type XlRun, type XlWorksheet } from './excel-api.js';
+import { XL_ERROR, xlErrorCode, type XlContext, type XlRange, type XlRun, type XlSupports, type XlWorksheet } from './excel-api.js';
 import {
   PAYLOAD_BUDGET,
   cellFromExcel,
@@ -129,7 +129,32 @@ function styleRuns(rows: SheetBlock['rows']): { row: number; from: number; to: n
   return runs;
 }
 
-async function writeBlock(context: XlContext, sheet: XlWorksheet, block: SheetBlock, name: string): Promise<number> {
+/**
+ * Frozen rows (ExcelApi 1.7) and print setup (ExcelApi 1.9), where this Excel has them; the
+ * manifest asks for 1.6 only, so an older Excel gets the sheet without them and is told so.
+ */
+function layout(sheet: XlWorksheet, block: SheetBlock, supports: XlSupports): string[] {
+  const notApplied: string[] = [];
+  if (block.freezeRows) {
+    if (supports('1.7')) sheet.freezePanes.freezeRows(block.freezeRows);
+    else notApplied.push(`the top ${block.freezeRows} rows are not frozen (this Excel lacks ExcelApi 1.7)`);
+  }
+  const print = block.print;
+  if (print) {
+    if (supports('1.9')) {
+      const page = sheet.pageLayout;
+      page.orientation = print.landscape ? 'Landscape' : 'Portrait';
+      // Zero pages tall: as many pages down as needed, as fitToHeight="0" in the file (from memory).
+      if (print.fitToWidth) page.zoom = { horizontalFitToPages: 1, verticalFitToPages: 0 };
+      if (print.titleRows > 0) page.setPrintTitleRows(`$1:$${print.titleRows}`);
+      page.headersFooters.defaultForAllPages.leftFooter = footerText(print.footer);
+      page.headersFooters.defaultForAllPages.rightFooter = PAGE_FOOTER;
+    } else notApplied.push('the print setup (landscape, one page wide, title rows, footer) is not applied (this Excel lacks ExcelApi 1.9)');
+  }
+  return notApplied;
+}
+
+async function writeBlock(context: XlContext, sheet: XlWorksheet, block: SheetBlock, name: string, supports: XlSupports): Promise<string[]> {
   const width = maxOf(block.rows.map((r) => r.length), 1);
   const inputs = block.rows.map((row) => Array.from({ length: width }, (_, c) => formulaInput((row[c] ?? null) as BlockCell | null)));
   // 1. Values and formulas, in blocks of rows that fit a request.
@@ -166,14 +191,18 @@ async function writeBlock(context: XlContext, sheet: XlWorksheet, block: SheetBl
       pending += FORMAT_COMMAND_BYTES;
     }
   }
+  const notApplied = layout(sheet, block, supports);
   sheet.activate();
   pending += FORMAT_COMMAND_BYTES;
   await flush(true);
-  return width;
+  return notApplied;
 }
 
-/** The Excel host over a batch runner: `Excel.run` in the pane, the test double in tests. */
-export function createExcelHost(run: XlRun): ExcelHost {
+/**
+ * The Excel host over a batch runner and the requirement sets this Excel has: `Excel.run` and
+ * `Office.context.requirements` in the pane, the test double in tests.
+ */
+export function createExcelHost(run: XlRun, supports: XlSupports): ExcelHost {
   return {
     listSheets: () =>
       run(async (context) => {
@@ -204,9 +233,9 @@ export function createExcelHost(run: XlRun): ExcelHost {
         used.load('isNullObject,address');
         await syncOrExplain(context, `adding sheet ${name}`);
         if (!used.isNullObject) throw new ExcelHostError(`sheet ${name} already has values in ${localAddress(used.address)}; nothing was written`);
-        await writeBlock(context, sheet, block, name);
+        const notApplied = await writeBlock(context, sheet, block, name, supports);
         const cells = block.rows.reduce((n, row) => n + row.filter((c) => c !== null && (c.value !== null || c.formula !== undefined)).length, 0);
-        return { sheet: name, range: `A1:${cellAddress(rows - 1, width - 1)}`, cells };
+        return { sheet: name, range: `A1:${cellAddress(rows - 1, width - 1)}`, cells, ...(notApplied.length > 0 ? { notApplied } : {}) };
       }),
 
     selection: () =>
@@ -245,5 +274,8 @@ export function createExcelHost(run: XlRun): ExcelHost {
 
 /** The host over the real Office.js `Excel.run`, for the task pane inside Excel. */
 export function officeExcelHost(): ExcelHost {
-  return createExcelHost((batch) => Excel.run((context) => batch(context)));
+  return createExcelHost(
+    (batch) => Excel.run((context) => batch(context)),
+    (version) => Office.context.requirements.isSetSupported('ExcelApi', version),
+  );
 }

@@ -8,6 +8,8 @@ export interface WriteReport {
   /** A1 range written. */
   readonly range: string;
   readonly cells: number;
+  /** What of the block's layout the host could not apply (print setup, frozen rows), in words. */
+  readonly notApplied?: readonly string[];
 }
 
 export interface WorkbookHost {

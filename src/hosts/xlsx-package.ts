@@ -8,7 +8,7 @@ import { fail, ok, type Result } from '../logic/result.js';
 import { cellAddress, parseA1 } from '../spec/grid.js';
 import type { CellValue } from '../spec/types.js';
 import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
-import { LOOKS, STATUS_LOOKS, type Look } from '../report/sheet-looks.js';
+import { LOOKS, PAGE_FOOTER, STATUS_LOOKS, footerText, type Look } from '../report/sheet-looks.js';
 import { readZip, storedEntry, writeZip, type ZipEntry } from './zip-package.mjs';
 import { maxOf } from '../logic/arrays.js';
 
@@ -355,7 +355,9 @@ function worksheetXml(block: SheetBlock, styles: StyleAppender): string {
   const parts: string[] = [`<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n<worksheet xmlns="${MAIN_NS}" xmlns:r="${REL_NS}">`];
   if (block.print?.fitToWidth) parts.push('<sheetPr><pageSetUpPr fitToPage="1"/></sheetPr>');
   parts.push(`<dimension ref="A1:${cellAddress(height - 1, width - 1)}"/>`);
-  parts.push('<sheetViews><sheetView workbookViewId="0"/></sheetViews><sheetFormatPr defaultRowHeight="15"/>');
+  const frozen = block.freezeRows ?? 0;
+  const pane = frozen > 0 ? `<pane ySplit="${frozen}" topLeftCell="A${frozen + 1}" activePane="bottomLeft" state="frozen"/>` : '';
+  parts.push(`<sheetViews><sheetView workbookViewId="0">${pane}</sheetView></sheetViews><sheetFormatPr defaultRowHeight="15"/>`);
   if (block.columnWidths && block.columnWidths.length > 0)
     parts.push(`<cols>${block.columnWidths.map((w, i) => `<col min="${i + 1}" max="${i + 1}" width="${Math.max(1, Math.min(255, w + 1))}" customWidth="1"/>`).join('')}</cols>`);
   parts.push('<sheetData>');
@@ -376,7 +378,7 @@ function worksheetXml(block: SheetBlock, styles: StyleAppender): string {
   parts.push('<pageMargins left="0.5" right="0.5" top="0.6" bottom="0.6" header="0.3" footer="0.3"/>');
   if (block.print) {
     parts.push(`<pageSetup orientation="${block.print.landscape ? 'landscape' : 'portrait'}"${block.print.fitToWidth ? ' fitToWidth="1" fitToHeight="0"' : ''}/>`);
-    parts.push(`<headerFooter><oddFooter>${escapeXmlText(`&L${block.print.footer.replace(/&/g, '&&')}&RPage &P of &N`)}</oddFooter></headerFooter>`);
+    parts.push(`<headerFooter><oddFooter>${escapeXmlText(`&L${footerText(block.print.footer)}&R${PAGE_FOOTER}`)}</oddFooter></headerFooter>`);
   }
   parts.push('</worksheet>');
   return parts.join('');

@@ -24,6 +24,8 @@ export interface SheetBlock {
   readonly statusRanges?: readonly string[];
   /** How the sheet prints: landscape, one page wide, the first `titleRows` rows on every page, a footer. */
   readonly print?: PrintSetup;
+  /** Rows from row 1 kept in view while the rest scrolls (frozen panes). */
+  readonly freezeRows?: number;
 }
 
 export interface PrintSetup {

@@ -32,6 +32,14 @@ export const STATUS_LOOKS = [
   { text: 'OK', fill: '#CDE8C5', font: '#1E5B1E' },
 ] as const;
 
+/** The right part of every printed footer: page number and page count (header/footer codes &P, &N). */
+export const PAGE_FOOTER = 'Page &P of &N';
+
+/** Footer text as header/footer codes read it: a literal '&' is written '&&'. */
+export function footerText(text: string): string {
+  return text.replace(/&/g, '&&');
+}
+
 /** How our sheets print: landscape, one page wide (as many pages down as needed), the title row on every page. */
 export function printSetup(footer: string): PrintSetup {
   return { landscape: true, fitToWidth: true, titleRows: 1, footer };

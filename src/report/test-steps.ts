@@ -167,6 +167,9 @@ export function csvField(value: string | number): string {
   return /[",\r\n]|^\s|\s$/.test(guarded) ? `"${guarded.replace(/"/g, '""')}"` : guarded;
 }
 
+/** At most this many rows are frozen above the steps, so the steps keep most of the window. */
+const MAX_FROZEN_ROWS = 12;
+
 /** The commissioning test record as a sheet: title, caution, source and revision stamp, then the steps to fill in. */
 export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions = {}): SheetBlock {
   const table = stepTable(analysis, options);
@@ -178,9 +181,12 @@ export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions 
     [],
     ...stepBlockRows(table, m),
   ];
+  // Everything above the first step stays in view while scrolling, unless it would fill a screen.
+  const above = rows.length - table.rows.length;
   return {
     name: sheetName(analysis.table.sheet, ' record'),
     rows,
+    ...(above <= MAX_FROZEN_ROWS ? { freezeRows: above } : {}),
     columnWidths: [6, 14, 18, 40, 30, ...Array.from({ length: 2 * m }, () => 12), 10, 24, 16, 16, 12, 60],
     print: printSetup(`Test record of ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}, ${revisionStamp(analysis.table).slice(0, 19)}`),
   };

@@ -5,9 +5,10 @@
 // - `values`/`formulas` must match the range's rows x columns (InvalidArgument);
 // - a sync whose request or response is over 5 MB fails (Request/ResponsePayloadSizeLimitExceeded),
 //   with the request measured as the JSON of its commands.
+// - members of a requirement set above `excelApi` (pageLayout 1.9, freezePanes 1.7) throw ApiNotFound.
 // Formulas are stored, not calculated. Error codes and messages follow office-js dist (excel-web-16.00.js).
 import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/spec/grid.js';
-import type { XlContext, XlRangeFormat, XlRun, XlValue } from '../../src/hosts/excel-api.js';
+import type { XlContext, XlPageLayout, XlRangeFormat, XlRun, XlSupports, XlValue } from '../../src/hosts/excel-api.js';
 
 export const LIMIT = 5 * 1024 * 1024;
 const MAX_ROWS = 1048576;
@@ -38,6 +39,8 @@ export interface SheetModel {
   cells: Map<string, CellModel>;
   conditionalFormats: { range: string; text?: string; fill?: string; font?: string }[];
   columnWidths: Map<number, number>;
+  frozenRows: number;
+  print: { orientation?: string; zoom?: Record<string, unknown>; titleRows?: string; leftFooter?: string; rightFooter?: string };
 }
 
 export interface SyncRecord {
@@ -79,7 +82,7 @@ export class ExcelDouble {
   readonly tables: { name: string; sheet: string; range: string }[] = [];
 
   addSheet(name: string, rows: readonly (readonly SeedCell[])[] = [], origin = 'A1'): SheetModel {
-    const sheet: SheetModel = { name, cells: new Map(), conditionalFormats: [], columnWidths: new Map() };
+    const sheet: SheetModel = { name, cells: new Map(), conditionalFormats: [], columnWidths: new Map(), frozenRows: 0, print: {} };
     this.sheets.push(sheet);
     const at = parseRange(origin)!;
     rows.forEach((row, r) =>
@@ -120,6 +123,12 @@ export class ExcelDouble {
     const r = parseRange(address)!;
     return this.sheet(sheetName)!.cells.get(key(r.top, r.left))?.format ?? {};
   }
+
+  /** The highest ExcelApi requirement set this Excel has (the manifest asks for 1.6). */
+  excelApi = '1.9';
+
+  /** `Office.context.requirements.isSetSupported('ExcelApi', version)` for this Excel. */
+  readonly supports: XlSupports = (version) => minorOf(version) <= minorOf(this.excelApi);
 
   /** `Excel.run` over this workbook. */
   readonly run: XlRun = async (batch) => batch(new DoubleContext(this));
@@ -179,6 +188,12 @@ class DoubleContext implements XlContext {
     };
     this.pending.push(command);
   }
+}
+
+function minorOf(version: string): number {
+  const m = /^1\.(\d+)$/.exec(version);
+  if (!m) throw new Error(`not an ExcelApi version: ${version}`);
+  return Number(m[1]);
 }
 
 function props(names: string): string[] {
@@ -261,11 +276,73 @@ class DoubleWorksheet {
   getUsedRangeOrNullObject(valuesOnly?: boolean): DoubleRange {
     return new DoubleRange(this.ctx, this, () => usedRect(this.resolve(), undefined, valuesOnly));
   }
+  /** Office.js has no such member in an Excel below the member's requirement set. */
+  private needs(version: string, member: string): void {
+    if (!this.ctx.model.supports(version)) {
+      throw new DoubleError('ApiNotFound', `The API you are trying to use could not be found (${member}, ExcelApi ${version}).`);
+    }
+  }
+  get freezePanes(): { freezeRows(count?: number): void } {
+    this.needs('1.7', 'freezePanes');
+    return {
+      freezeRows: (count = 1) =>
+        this.ctx.queue(`freezeRows ${this.nameOf()}`, 20, () => {
+          if (!Number.isInteger(count) || count < 0 || count > MAX_ROWS) throw new DoubleError('InvalidArgument', `The argument ${count} is not valid.`);
+          this.resolve().frozenRows = count;
+        }),
+    };
+  }
+  get pageLayout(): XlPageLayout {
+    this.needs('1.9', 'pageLayout');
+    return pageLayout(this.ctx, this);
+  }
   activate(): void {
     this.ctx.queue('activate', 10, () => {
       this.ctx.model.activeSheet = this.resolve().name;
     });
   }
+}
+
+/** A write-only page layout: each set is a command; reading a property before load throws. */
+function pageLayout(ctx: DoubleContext, sheet: DoubleWorksheet): XlPageLayout {
+  const set = (what: string, value: unknown, check: () => boolean, apply: (p: SheetModel['print']) => void) =>
+    ctx.queue(`pageLayout ${what} ${sheet.nameOf()}`, JSON.stringify(value).length, () => {
+      if (!check()) throw new DoubleError('InvalidArgument', `The argument ${JSON.stringify(value)} for ${what} is not valid.`);
+      apply(sheet.resolve().print);
+    });
+  const pages = (n: unknown) => n === undefined || (Number.isInteger(n) && (n as number) >= 0);
+  const footer: { leftFooter: string; rightFooter: string } = {
+    get leftFooter(): string {
+      return notLoaded('leftFooter');
+    },
+    set leftFooter(text: string) {
+      set('leftFooter', text, () => typeof text === 'string', (p) => (p.leftFooter = text));
+    },
+    get rightFooter(): string {
+      return notLoaded('rightFooter');
+    },
+    set rightFooter(text: string) {
+      set('rightFooter', text, () => typeof text === 'string', (p) => (p.rightFooter = text));
+    },
+  };
+  return {
+    get orientation(): 'Portrait' | 'Landscape' {
+      return notLoaded('orientation');
+    },
+    set orientation(o: 'Portrait' | 'Landscape') {
+      set('orientation', o, () => o === 'Portrait' || o === 'Landscape', (p) => (p.orientation = o));
+    },
+    get zoom(): XlPageLayout['zoom'] {
+      return notLoaded('zoom');
+    },
+    set zoom(z: XlPageLayout['zoom']) {
+      set('zoom', z, () => pages(z.horizontalFitToPages) && pages(z.verticalFitToPages), (p) => (p.zoom = { ...z }));
+    },
+    headersFooters: { defaultForAllPages: footer },
+    setPrintTitleRows(rows: string) {
+      set('printTitleRows', rows, () => /^\$?[1-9]\d*:\$?[1-9]\d*$/.test(rows), (p) => (p.titleRows = rows));
+    },
+  };
 }
 
 function usedRect(sheet: SheetModel, within: RangeRef | undefined, _valuesOnly?: boolean): RangeRef | null {

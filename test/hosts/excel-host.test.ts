@@ -10,7 +10,7 @@ import { column, DoubleError, ExcelDouble, LIMIT, type SeedCell } from './excel-
 function setup(sheets: Record<string, { rows: SeedCell[][]; origin?: string }> = {}) {
   const double = new ExcelDouble();
   for (const [name, { rows, origin }] of Object.entries(sheets)) double.addSheet(name, rows, origin);
-  return { double, host: createExcelHost(double.run) };
+  return { double, host: createExcelHost(double.run, double.supports) };
 }
 
 const cell = (value: BlockCell['value'], extra: Partial<BlockCell> = {}): BlockCell => ({ value, ...extra });
@@ -25,6 +25,26 @@ describe('the double is as strict as Office.js', () => {
       expect(() => range.values).toThrow(expect.objectContaining({ code: 'PropertyNotLoaded' }));
       await context.sync();
       expect(range.values).toEqual([[1]]);
+    });
+  });
+
+  test('page layout and frozen panes throw ApiNotFound in an Excel below their requirement set', async () => {
+    const { double } = setup({ S: { rows: [] } });
+    double.excelApi = '1.6';
+    await double.run(async (context) => {
+      const sheet = context.workbook.worksheets.getItem('S');
+      expect(() => sheet.pageLayout).toThrow(expect.objectContaining({ code: 'ApiNotFound' }));
+      expect(() => sheet.freezePanes).toThrow(expect.objectContaining({ code: 'ApiNotFound' }));
+    });
+  });
+
+  test('print title rows must be whole rows, and a page layout property reads only after load', async () => {
+    const { double } = setup({ S: { rows: [] } });
+    await double.run(async (context) => {
+      const page = context.workbook.worksheets.getItem('S').pageLayout;
+      expect(() => page.orientation).toThrow(expect.objectContaining({ code: 'PropertyNotLoaded' }));
+      page.setPrintTitleRows('A1:C1');
+      await expect(context.sync()).rejects.toMatchObject({ code: 'InvalidArgument' });
     });
   });
 
@@ -147,6 +167,43 @@ describe('writing', () => {
     expect(report).toEqual({ sheet: 'Results', range: 'A1:C4', cells: 9 });
     expect(double.read('Results', 'A3:C3')).toEqual([[1, '=AND(A3=1,NOT(B3))', '=IF(B3,"OK","DIFFERS")']]);
     expect(double.activeSheet).toBe('Results');
+  });
+
+  const laidOut: SheetBlock = { ...block, freezeRows: 2, print: { landscape: true, fitToWidth: true, titleRows: 2, footer: 'Results of Purge!A2:C5 & more' } };
+
+  test('where Excel has ExcelApi 1.9, the sheet prints as the block says and its heading rows are frozen', async () => {
+    const { double, host } = setup();
+    const report = await host.writeSheet(laidOut);
+    expect(report.notApplied).toBeUndefined();
+    const sheet = double.sheet('Results')!;
+    expect(sheet.frozenRows).toBe(2);
+    expect(sheet.print).toEqual({
+      orientation: 'Landscape',
+      zoom: { horizontalFitToPages: 1, verticalFitToPages: 0 },
+      titleRows: '$1:$2',
+      leftFooter: 'Results of Purge!A2:C5 && more',
+      rightFooter: 'Page &P of &N',
+    });
+  });
+
+  test('where Excel has only ExcelApi 1.6, the sheet is written without print setup and frozen rows, and the report says so', async () => {
+    const { double, host } = setup();
+    double.excelApi = '1.6';
+    const report = await host.writeSheet(laidOut);
+    expect(report.notApplied).toEqual([
+      'the top 2 rows are not frozen (this Excel lacks ExcelApi 1.7)',
+      'the print setup (landscape, one page wide, title rows, footer) is not applied (this Excel lacks ExcelApi 1.9)',
+    ]);
+    expect(double.sheet('Results')).toMatchObject({ frozenRows: 0, print: {} });
+    expect(double.read('Results', 'A3:C3')).toEqual([[1, '=AND(A3=1,NOT(B3))', '=IF(B3,"OK","DIFFERS")']]);
+  });
+
+  test('with ExcelApi 1.7 the heading rows are frozen and only the print setup is left out', async () => {
+    const { double, host } = setup();
+    double.excelApi = '1.7';
+    const report = await host.writeSheet(laidOut);
+    expect(report.notApplied).toEqual(['the print setup (landscape, one page wide, title rows, footer) is not applied (this Excel lacks ExcelApi 1.9)']);
+    expect(double.sheet('Results')).toMatchObject({ frozenRows: 2, print: {} });
   });
 
   test('text that Excel would take for a number or a formula stays text', async () => {

@@ -87,6 +87,15 @@ describe('adding results sheets to a copy of the user workbook', () => {
     expect(xml).toContain('<col min="2" max="2" width="41" customWidth="1"/>');
   });
 
+  it('freezes the rows above the steps as a frozen pane below them, and none when the block asks for none', async () => {
+    const out = await addSheets(userWorkbook(), [{ name: 'Results', block: { ...RESULTS, freezeRows: 3 } }, { name: 'Plain', block: RESULTS }], nodeInflate);
+    const parts = partsOf(out.ok ? out.value : new Uint8Array());
+    expect(decode(parts.get('xl/worksheets/sheet2.xml'))).toContain(
+      '<sheetViews><sheetView workbookViewId="0"><pane ySplit="3" topLeftCell="A4" activePane="bottomLeft" state="frozen"/></sheetView></sheetViews>',
+    );
+    expect(decode(parts.get('xl/worksheets/sheet3.xml'))).toContain('<sheetViews><sheetView workbookViewId="0"></sheetView></sheetViews>');
+  });
+
   it('refuses what is not a workbook package, with a reason', async () => {
     const out = await addSheets(new TextEncoder().encode('Air flow OK;Purge permit\n1;1\n'), [{ name: 'Results', block: RESULTS }], nodeInflate);
     expect(out.ok).toBe(false);

@@ -102,6 +102,12 @@ describe('commissioning test steps', () => {
     for (const r of data) expect(r.slice(5 + m, 5 + 2 * m + FILL_IN_COLUMNS.length)).toEqual(Array.from({ length: m + FILL_IN_COLUMNS.length }, () => null));
   });
 
+  it('the rows above the first step are not frozen when they are more than 12 (title, six caution lines, five facts, blank, headings: 14)', () => {
+    const sheet = testRecordSheet(guard);
+    expect(sheet.rows.findIndex((r) => r[0]?.value === 'Step') + 1).toBe(14);
+    expect(sheet.freezeRows).toBeUndefined();
+  });
+
   it('the full table, on request, is every combination in order', () => {
     const vote = analysisOf(VOTE);
     const table = stepTable(vote, { full: true });

@@ -13,7 +13,7 @@ import { cliOutcome, trim, WORKBOOKS, type Outcome, type TestWorkbook } from './
 async function throughExcelPane(book: TestWorkbook, sheet: string): Promise<Outcome> {
   const double = new ExcelDouble();
   for (const [name, rows] of Object.entries(book.sheets)) double.addSheet(name, rows.map((r) => [...r]));
-  const host = createExcelHost(double.run);
+  const host = createExcelHost(double.run, double.supports);
   const core = new EngineCore();
   // As app.tsx: the cells are read in the pane, the request crosses to the worker as a copy.
   const choice = { sheet, xReading: 'none' as const };

@@ -12,7 +12,7 @@ import { GOOD } from './workbooks.js';
 async function withRecords(): Promise<{ double: ExcelDouble; records: string[] }> {
   const double = new ExcelDouble();
   for (const [name, rows] of Object.entries(GOOD.sheets)) double.addSheet(name, rows.map((r) => [...r]));
-  const host = createExcelHost(double.run);
+  const host = createExcelHost(double.run, double.supports);
   const grids = await readGrids(host, {}, GOOD.file);
   if (!grids.ok) throw new Error(grids.error.message);
   const tables = readTables(grids.value, {});
@@ -33,7 +33,7 @@ function fill(double: ExcelDouble, sheet: string, word: (i: number) => string): 
 }
 
 async function bothWays(double: ExcelDouble): Promise<{ cli: RecordVerdict[]; pane: RecordVerdict[] }> {
-  const host = createExcelHost(double.run);
+  const host = createExcelHost(double.run, double.supports);
   const cli = await checkRecords(host);
   const answer = new EngineCore().answer(structuredClone({ kind: 'records', grids: await readRecordGrids(host) }));
   if (answer.kind !== 'records') throw new Error(`a ${answer.kind} answer`);
@@ -77,7 +77,7 @@ describe('checking filled-in test records through the workflow', () => {
   it('a workbook without a record gives no verdict, and is not cleared', async () => {
     const double = new ExcelDouble();
     for (const [name, rows] of Object.entries(GOOD.sheets)) double.addSheet(name, rows.map((r) => [...r]));
-    const verdicts = await checkRecords(createExcelHost(double.run));
+    const verdicts = await checkRecords(createExcelHost(double.run, double.supports));
     expect(verdicts).toEqual([]);
     expect(recordsCleared(verdicts)).toBe(false);
   });
