@@ -12,6 +12,8 @@ import {
   selectRetest,
   type Rename,
   type Retest,
+  comparisonJson,
+  problemJson,
   type TableComparison,
 } from '../compare/index.js';
 import type { FilledRecord } from '../report/record-read.js';
@@ -81,4 +83,21 @@ export function compareWorkbooks(oldRead: TablesRead, newRead: TablesRead, optio
     retestRecordSheet(comparison, retest, { source: options.newSource }),
   ]);
   return { compared, problems, specProblems, cleared, sheets };
+}
+
+/** What a pane shows and writes: per pair the comparison as JSON data (patterns over the joint inputs), as plain data. */
+export interface CompareView {
+  readonly tables: readonly ReturnType<typeof comparisonJson>[];
+  readonly problems: readonly ReturnType<typeof problemJson>[];
+  readonly cleared: boolean;
+  readonly sheets: readonly SheetBlock[];
+}
+
+export function compareView(c: WorkbooksCompared): CompareView {
+  return {
+    tables: c.compared.map((t) => comparisonJson(t.comparison, t.retest)),
+    problems: [...c.problems, ...c.specProblems].map(problemJson),
+    cleared: c.cleared,
+    sheets: c.sheets,
+  };
 }
