@@ -9,6 +9,7 @@ import type { Result } from '../src/logic/result.js';
 import { readGrids, writeSheets, type CompareView, type WorkbookChoice } from '../src/workflow/index.js';
 import { Outcome } from './check.js';
 import { Cancelled, type Engine } from './engine.js';
+import { SignalHeads } from './results.js';
 
 type TableJson = CompareView['tables'][number];
 type OutputJson = TableJson['outputs'][number];
@@ -27,15 +28,7 @@ function PatternTable({ inputs, patterns }: { inputs: readonly string[]; pattern
   return (
     <div class="scroll">
       <table class="combos">
-        <thead>
-          <tr>
-            {inputs.map((s) => (
-              <th key={s} class="side" title={s}>
-                <span>{s}</span>
-              </th>
-            ))}
-          </tr>
-        </thead>
+        <SignalHeads signals={inputs.map((h) => ({ identifier: h, header: h }))} />
         <tbody>
           {patterns.map((p, r) => (
             <tr key={r}>
