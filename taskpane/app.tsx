@@ -10,6 +10,7 @@ import { CAUTION_LINES } from '../src/report/caution.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
 import { readGrids, writeSheets, type HandOverKind, type WorkbookChoice, type WorkbookView } from '../src/workflow/index.js';
+import { CompareCard } from './compare.js';
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
 import { Cancelled, Engine } from './engine.js';
 import { download } from './files.js';
@@ -19,9 +20,12 @@ import { SettingsCard } from './settings.js';
 import { DEFAULT_SETTINGS, pageValues, settingsFrom, specOptions, type TableSettings } from './table-settings.js';
 
 export type PaneMode =
-  | { readonly kind: 'excel'; readonly host: ExcelHost; readonly remembered?: RememberedValues | undefined }
-  | { readonly kind: 'file'; readonly open: (file: File) => Promise<{ ok: true; value: BrowserFileHost } | { ok: false; error: { message: string } }> }
+  | { readonly kind: 'excel'; readonly host: ExcelHost; readonly remembered?: RememberedValues | undefined; readonly open: OpenFile }
+  | { readonly kind: 'file'; readonly open: OpenFile }
   | { readonly kind: 'outside' };
+
+/** A workbook file opened in the page (the page's own workbook, or the old revision to compare with). */
+type OpenFile = (file: File) => Promise<{ ok: true; value: BrowserFileHost } | { ok: false; error: { message: string } }>;
 
 type Busy = { what: string; done?: number; total?: number; cancellable: boolean };
 
@@ -479,6 +483,17 @@ export function App({ mode }: { mode: PaneMode }) {
                 {tables[current].analysed && <ExpressionCheck key={current} table={tables[current]} engine={engine} write={sheetWriter(mode, file)} />}
                 {mode.kind === 'file' && <FileCheck engine={engine} write={sheetWriter(mode, file)} />}
                 <HandOver view={analysed} engine={engine} mode={mode} file={file} />
+                {host && reading && (
+                  <CompareCard
+                    key={settingsKey(reading)}
+                    host={host}
+                    open={mode.open}
+                    engine={engine}
+                    choice={{ ...reading.choice, ...specOptions(settings, mode.kind === 'excel' ? 'pane' : 'page') }}
+                    newSource={sourceName}
+                    where={sheetTarget(mode, file)?.where ?? ''}
+                  />
+                )}
               </>
             )}
           </>

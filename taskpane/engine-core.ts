@@ -5,7 +5,7 @@
 import { readImplementation } from '../src/impl/read.js';
 import { fail, ok } from '../src/logic/result.js';
 import { checkSheet } from '../src/report/check-sheet.js';
-import { checkExpression, examine, handOverFiles, judgeRecords, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
+import { checkExpression, compareView, compareWorkbooks, examine, handOverFiles, judgeRecords, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
 import type { EngineAnswer, EngineRequest } from './engine-protocol.js';
 
 export type ProgressReport = (done: number, total: number, what: string) => void;
@@ -50,6 +50,14 @@ export class EngineCore {
         return { kind: 'handOver', value: workbook ? handOverFiles(workbook, request.files) : fail(NOTHING_READ) };
       case 'records':
         return { kind: 'records', value: judgeRecords(request.grids) };
+      case 'compare': {
+        const old = readTables(request.old, request.choice);
+        if (!old.ok) return { kind: 'compare', value: old };
+        const next = readTables(request.new, request.choice);
+        if (!next.ok) return { kind: 'compare', value: next };
+        const compared = compareWorkbooks(old.value, next.value, { oldSource: request.oldSource, newSource: request.newSource, onProgress: (what, done, total) => progress(done ?? 0, total ?? 0, what) });
+        return { kind: 'compare', value: ok(compareView(compared)) };
+      }
     }
   }
 }

@@ -6,7 +6,7 @@ import type { ImplCheck } from '../src/logic/implcheck.js';
 import type { Result } from '../src/logic/result.js';
 import type { VerifyReport } from '../src/impl/verify.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
-import type { GridsRead, HandOverFile, HandOverRequest, ReadFailure, RecordGrids, RecordVerdict, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
+import type { CompareView, GridsRead, HandOverFile, HandOverRequest, ReadFailure, RecordGrids, RecordVerdict, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
 
 export interface Requests {
   /** Find the spec tables in the grids the host read, analyse them, keep the result. */
@@ -21,6 +21,8 @@ export interface Requests {
   readonly handOver: { readonly files: HandOverRequest };
   /** Filled-in test records against their tables as the workbook has them now (independent of examine). */
   readonly records: { readonly grids: RecordGrids };
+  /** Two revisions read by the host (the picked file is the old one), compared by behaviour (independent of examine). */
+  readonly compare: { readonly old: GridsRead; readonly new: GridsRead; readonly choice: WorkbookChoice; readonly oldSource: string; readonly newSource: string };
 }
 
 export interface Answers {
@@ -33,6 +35,7 @@ export interface Answers {
   /** Refused (with the reason) when the workflow allows no hand-over. */
   readonly handOver: Result<HandOverFile[], string>;
   readonly records: RecordVerdict[];
+  readonly compare: Result<CompareView, ReadFailure>;
 }
 
 export type RequestKind = keyof Requests;

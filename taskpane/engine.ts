@@ -92,6 +92,10 @@ export class Engine {
     return this.send({ kind: 'records', ...body }, (a) => (a.kind === 'records' ? a.value : undefined));
   }
 
+  compare(body: Requests['compare'], progress?: Progress): Promise<Answers['compare']> {
+    return this.send({ kind: 'compare', ...body }, (a) => (a.kind === 'compare' ? a.value : undefined), progress);
+  }
+
   get busy(): boolean {
     return this.pending !== undefined;
   }

@@ -95,22 +95,29 @@ function FormView({ title, form, meta, verdict }: { title: string; form: AndOrFo
   );
 }
 
+/** One column head per signal, written sideways to fit a narrow pane, then any further titles. */
+export function SignalHeads({ signals, extra }: { signals: readonly Pick<Signal, 'identifier' | 'header'>[]; extra?: readonly string[] | undefined }) {
+  return (
+    <thead>
+      <tr>
+        {signals.map((s) => (
+          <th key={s.identifier} class="side" title={s.header}>
+            <span>{s.identifier}</span>
+          </th>
+        ))}
+        {extra?.map((t) => <th key={t}>{t}</th>)}
+      </tr>
+    </thead>
+  );
+}
+
 /** Rows of input values, one column per input (headers written sideways to fit a narrow pane). */
 export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Signal[]; rows: readonly Combination[]; extra?: { titles: string[]; cells: (k: number) => (string | number)[] } }) {
   const n = inputs.length;
   return (
     <div class="scroll">
       <table class="combos">
-        <thead>
-          <tr>
-            {inputs.map((s) => (
-              <th key={s.identifier} class="side" title={s.header}>
-                <span>{s.identifier}</span>
-              </th>
-            ))}
-            {extra?.titles.map((t) => <th key={t}>{t}</th>)}
-          </tr>
-        </thead>
+        <SignalHeads signals={inputs} extra={extra?.titles} />
         <tbody>
           {rows.map((k, r) => (
             <tr key={r}>

@@ -11,3 +11,4 @@ export { checkExpression, implementationWord, programCleared, verifyProgram, typ
 export { workbookJson } from './json.js';
 export { workbookView, type TableView, type WorkbookView } from './view.js';
 export { checkRecords, judgeRecords, readRecordGrids, recordsCleared, type RecordGrids, type RecordVerdict } from './records.js';
+export { compareView, compareWorkbooks, type CompareView, type CompareWorkbooksOptions, type TableCompared, type WorkbooksCompared } from './compare.js';
