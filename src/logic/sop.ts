@@ -9,6 +9,13 @@ import { comparePrinted, cubesDisjoint, primesWithin, setToCubes } from './prime
 
 export { primeImplicants } from './primes.js';
 
+/** A proven lower bound on a form's cost: every form has at least `terms` terms, and one with
+ * that many at least `literals` literals. */
+export interface FormBound {
+  readonly terms: number;
+  readonly literals: number;
+}
+
 export interface SopForm {
   /** Product terms in printed order (see `comparePrinted` in primes.ts). */
   readonly cubes: Cube[];
@@ -23,7 +30,7 @@ export interface SopForm {
    * What was proven: every sum of products of the function has at least `terms` product
    * terms, and every one with the fewest terms at least `literals` literals.
    */
-  readonly lowerBound: { readonly terms: number; readonly literals: number };
+  readonly lowerBound: FormBound;
 }
 
 export interface SopOptions {
@@ -66,7 +73,7 @@ export function minimiseSop(fn: BoolFunction, options: SopOptions = {}): SopForm
   return form(n, result.columns.map((c) => primes[c]!), { terms: columns, literals: cost }, result.proven);
 }
 
-function form(n: number, cubes: Cube[], lowerBound: SopForm['lowerBound'], proven: boolean): SopForm {
+function form(n: number, cubes: Cube[], lowerBound: FormBound, proven: boolean): SopForm {
   const sorted = [...cubes].sort(comparePrinted(n));
   return { cubes: sorted, proven, terms: sorted.length, literals: sorted.reduce((k, c) => k + popcount(c.mask), 0), lowerBound };
 }

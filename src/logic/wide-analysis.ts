@@ -1,5 +1,6 @@
 // One output of a wide spec (up to 64 inputs) analysed symbolically: the AND/OR form, the XOR
 // form and the best-polarity XOR form, each proven against the spec on every combination.
+import type { FormBound } from './sop.js';
 import { FALSE, type Node } from './bdd.js';
 import { FALSE as FALSE_EXPR, TRUE as TRUE_EXPR, and, not, or, variable, xor, type Expr } from './expr/ast.js';
 import { printSt } from './expr/print-st.js';
@@ -19,7 +20,7 @@ export interface WideAndOr {
   readonly proven: boolean;
   readonly terms: number;
   readonly literals: number;
-  readonly lowerBound: { readonly terms: number; readonly literals: number };
+  readonly lowerBound: FormBound;
   readonly proof: WideProof;
 }
 

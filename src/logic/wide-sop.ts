@@ -4,7 +4,7 @@ import { DdTooLarge, FALSE, TRUE, type Dd, type Node } from './bdd.js';
 import { exactCover, type CoverProblem } from './cover.js';
 import { heuristicCover } from './heuristic.js';
 import { deadlineAt, now } from './deadline.js';
-import { DEFAULT_BUDGET_MS } from './sop.js';
+import { DEFAULT_BUDGET_MS, type FormBound } from './sop.js';
 import type { WideFunction } from './wide-fn.js';
 import { compareWidePrinted, inputBit, wideContains, wideCube, wideLiterals, wideWithin, type WideCube } from './wide-cube.js';
 
@@ -20,7 +20,7 @@ export interface WideSopForm {
   readonly terms: number;
   readonly literals: number;
   /** Proven lower bound: every form has at least `terms` terms; one with that many at least `literals` literals. */
-  readonly lowerBound: { readonly terms: number; readonly literals: number };
+  readonly lowerBound: FormBound;
 }
 
 /**
@@ -77,7 +77,7 @@ export function minimiseWide(fn: WideFunction, options: { budgetMs?: number } = 
   return form(dd.n, cover.columns.map((c) => primes[c]!), cover.lowerBound, cover.proven);
 }
 
-function form(n: number, cubes: WideCube[], lowerBound: WideSopForm['lowerBound'], proven: boolean): WideSopForm {
+function form(n: number, cubes: WideCube[], lowerBound: FormBound, proven: boolean): WideSopForm {
   const sorted = [...cubes].sort(compareWidePrinted(n));
   return { cubes: sorted, proven, terms: sorted.length, literals: sorted.reduce((k, c) => k + wideLiterals(c), 0), lowerBound };
 }
@@ -94,7 +94,7 @@ export function wideCover(
   fn: WideFunction,
   primes: readonly WideCube[],
   deadline: number,
-): { columns: number[]; proven: boolean; lowerBound: WideSopForm['lowerBound'] } {
+): { columns: number[]; proven: boolean; lowerBound: FormBound } {
   const stop = deadlineAt(deadline);
   const { dd } = fn;
   const primeNodes = primes.map((p) => dd.cube(p));

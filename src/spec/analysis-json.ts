@@ -1,6 +1,7 @@
 // One element of the `tables` array of `analyze --json` (DESIGN.md section 4), plus more.
 // Input combinations are written as patterns over the table's inputs, in the order of
 // `inputs`: "101" is first input 1, second 0, third 1; in a cube, '-' is "any".
+import type { FormBound } from '../logic/sop.js';
 import type { Problem } from './types.js';
 import type { Combination } from '../logic/bits.js';
 import { cube, cubeToPattern, type Cube } from '../logic/cube.js';
@@ -25,7 +26,7 @@ export interface OutputJson {
   readonly terms: number;
   readonly literals: number;
   /** What was proven of the AND/OR form: at least this many terms, then literals. */
-  readonly lowerBound: { readonly terms: number; readonly literals: number };
+  readonly lowerBound: FormBound;
   readonly xorTerms: number;
   /** Every form checked on every combination; mismatches of any form, first 50 each. */
   readonly check: { readonly combinations: number; readonly mismatchCount: number; readonly mismatches: MismatchJson[] };

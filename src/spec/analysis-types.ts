@@ -1,5 +1,6 @@
 // The result of analysing one spec table: what the CLI prints, the pane shows and the
 // report writes. Built by analyse.ts; plain data, so that it crosses a worker boundary.
+import type { FormBound } from '../logic/sop.js';
 import type { Combination } from '../logic/bits.js';
 import type { Monomial } from '../logic/anf.js';
 import type { Cube } from '../logic/cube.js';
@@ -27,7 +28,7 @@ export interface AndOrForm {
   readonly terms: number;
   readonly literals: number;
   /** Proven: no form has fewer terms, none with the fewest terms fewer literals (= cost when proven). */
-  readonly lowerBound: { readonly terms: number; readonly literals: number };
+  readonly lowerBound: FormBound;
   readonly proof: FormProof;
   /** Don't-care combinations this form turns ON: the first 50 of them. */
   readonly permitsAlso: readonly Combination[];
