@@ -169,6 +169,8 @@ export function retestRecordSheet(c: TableComparison, retest: Retest, options: R
     ...sheet,
     name: sheet.name.replace(/ record$/, ' retest').slice(0, 31),
     rows: [...rows.slice(0, head), [{ value: note, style: 'label' }], ...rows.slice(head)],
+    // The note row goes above the column titles, which stay frozen.
+    ...(sheet.freezeRows !== undefined ? { freezeRows: sheet.freezeRows + 1 } : {}),
     columnWidths: [...(sheet.columnWidths ?? []), 44],
   };
 }

@@ -21,6 +21,8 @@ export interface WorkbookHost {
    * damaged parts, sheets not read and why, as errors where something is lost).
    */
   fileProblems?(): Problem[];
+  /** Sheets written but not yet among `listSheets` (a file host keeps them until saved). */
+  queuedSheets?(): string[];
   /** Add a new sheet with the block; never writes into a non-empty cell of an existing sheet. */
   writeSheet(block: SheetBlock): Promise<WriteReport>;
 }

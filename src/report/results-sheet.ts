@@ -1,7 +1,8 @@
 // The results sheet of one spec table: caution, per output its forms with cost and proof,
 // inputs that do not matter, gaps, conflicts and don't-cares turned on; the signal names; the
-// test steps; and, for up to 12 inputs, a live check that recomputes every form with Excel
-// formulas from the input cells, one row per combination, with a status that reads OK/DIFFERS.
+// test steps. For up to 12 inputs a live check sheet of its own recomputes every form with
+// Excel formulas from the input cells, one row per combination, with a status that reads
+// OK/DIFFERS under frozen column titles; the results sheet counts its DIFFERS near the top.
 import { has, type Combination } from '../logic/bits.js';
 import { cubeToPattern } from '../logic/cube.js';
 import { printExcel } from '../logic/expr/print-excel.js';
@@ -11,10 +12,10 @@ import { ok, type Result } from '../logic/result.js';
 import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
 import { cellAddress, qualifiedAddress } from '../spec/grid.js';
 import { CAUTION_LINES } from './caution.js';
-import type { BlockCell, SheetBlock } from './sheet-block.js';
+import { quotedSheet, type BlockCell, type SheetBlock } from './sheet-block.js';
 import { printSetup } from './sheet-looks.js';
 import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
-import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
+import { cautionRows, sheetName, stepBlockRows, stepTable } from './test-steps.js';
 import { plural } from './text.js';
 import { appendAll } from '../logic/arrays.js';
 
@@ -30,7 +31,33 @@ const SHORT: Readonly<Record<FormChoice, string>> = { andOr: 'AND/OR', xor: 'XOR
 
 type Row = (BlockCell | null)[];
 
+/** The sheets of one table's results: the results sheet, then its live check (up to 12 inputs), which the first one's summary names. */
+export function resultsSheets(analysis: TableAnalysis, options: { source?: string } = {}): SheetBlock[] {
+  const live = liveCheckOf(analysis);
+  const results = resultsBlock(analysis, options, live);
+  return live ? [{ ...results, refersTo: [1] }, liveCheckBlock(analysis, live)] : [results];
+}
+
+/** The results sheet alone; its summary names the live check sheet of `liveCheckSheet`. */
 export function resultsSheet(analysis: TableAnalysis, options: { source?: string } = {}): SheetBlock {
+  return resultsBlock(analysis, options, liveCheckOf(analysis));
+}
+
+/**
+ * The live check of a table of up to 12 inputs as a sheet of its own: title, caution, what it
+ * does, then the column titles, frozen, and one row per combination. Undefined above 12 inputs.
+ */
+export function liveCheckSheet(analysis: TableAnalysis): SheetBlock | undefined {
+  const live = liveCheckOf(analysis);
+  return live && liveCheckBlock(analysis, live);
+}
+
+/** The sheet name a table's live check asks for. */
+export function liveCheckSheetName(analysis: TableAnalysis): string {
+  return sheetName(analysis.table.sheet, ' live check');
+}
+
+function resultsBlock(analysis: TableAnalysis, options: { source?: string }, live: LiveCheck | undefined): SheetBlock {
   const { table } = analysis;
   const n = analysis.inputs.length;
   const rows: Row[] = [];
@@ -38,8 +65,16 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
   if (options.source) rows.push([label('Source'), { value: options.source }]);
   for (const line of CAUTION_LINES) rows.push([{ value: line, style: 'caution' }]);
   rows.push([]);
-  const summaryRow = rows.length;
-  rows.push([]); // filled in once the live check's place is known
+  if (live) {
+    const where = liveCheckSheetName(analysis);
+    rows.push(
+      [label('Combinations that differ (live check)'), { value: live.differs, formula: `COUNTIF(${quotedSheet(where)}!${live.statusRange},"DIFFERS")`, style: 'status' }],
+      [label('Live check'), { value: `on its own sheet, ${where}: one row per combination, every form recomputed from the input cells` }],
+    );
+  } else {
+    const reason = `Live check left out: ${n} inputs give ${2 ** n} combinations; the live check is written for tables of up to ${LIVE_CHECK_MAX_INPUTS} inputs (${2 ** LIVE_CHECK_MAX_INPUTS} rows).`;
+    rows.push([label('Live check'), { value: reason }]);
+  }
   rows.push([]);
 
   if (analysis.problems.length > 0) {
@@ -55,27 +90,33 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
   rows.push([]);
 
   rows.push([heading('Test steps (unique cause)')]);
-  appendAll(rows, stepBlockRows(stepTable(analysis), analysis.outputs.length)).push([]);
-
-  const statusRanges: string[] = [];
-  if (n <= LIVE_CHECK_MAX_INPUTS) {
-    const live = liveCheck(analysis, rows.length);
-    appendAll(rows, live.rows);
-    statusRanges.push(live.statusRange);
-    rows[summaryRow] = [
-      label('Combinations that differ (live check)'),
-      { value: live.differs, formula: `COUNTIF(${live.statusRange},"DIFFERS")`, style: 'status' },
-    ];
-  } else {
-    const reason = `Live check left out: ${n} inputs give ${2 ** n} combinations; the live check is written for tables of up to ${LIVE_CHECK_MAX_INPUTS} inputs (${2 ** LIVE_CHECK_MAX_INPUTS} rows).`;
-    rows[summaryRow] = [label('Live check'), { value: reason }];
-  }
+  appendAll(rows, stepBlockRows(stepTable(analysis), analysis.outputs.length));
   return {
     name: sheetName(table.sheet, ' results'),
     rows,
-    columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: n + 4 * analysis.outputs.length }, () => 12)],
-    statusRanges,
+    columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: 2 * analysis.outputs.length + 6 }, () => 12)],
     print: printSetup(`Results of ${qualifiedAddress(table.sheet, table.range)}`),
+  };
+}
+
+/** Rows of the live check sheet above its column titles. */
+function liveCheckTop(analysis: TableAnalysis): Row[] {
+  return [[{ value: `Live check: ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}`, style: 'title' }], ...cautionRows()];
+}
+
+function liveCheckOf(analysis: TableAnalysis): LiveCheck | undefined {
+  return analysis.inputs.length <= LIVE_CHECK_MAX_INPUTS ? liveCheck(analysis, liveCheckTop(analysis).length) : undefined;
+}
+
+function liveCheckBlock(analysis: TableAnalysis, live: LiveCheck): SheetBlock {
+  const where = qualifiedAddress(analysis.table.sheet, analysis.table.range);
+  return {
+    name: liveCheckSheetName(analysis),
+    rows: [...liveCheckTop(analysis), ...live.rows],
+    freezeRows: live.titleRow + 1,
+    columnWidths: [8, ...Array.from({ length: analysis.inputs.length + 4 * analysis.outputs.length }, () => 12), 10, 30],
+    statusRanges: [live.statusRange],
+    print: printSetup(`Live check of ${where}`),
   };
 }
 
@@ -127,12 +168,14 @@ function proofCell(p: { combinations: number; mismatchCount: number }): string {
 
 interface LiveCheck {
   readonly rows: Row[];
+  /** 0-based sheet row of the column titles. */
+  readonly titleRow: number;
   readonly statusRange: string;
   readonly differs: number;
 }
 
 /**
- * The live check, starting at 0-based sheet row `top`: a heading, an explanation, column
+ * The live check, starting at 0-based sheet row `top`: an explanation, column
  * titles, then one row per combination: its number, the inputs (0/1), and per output the
  * spec value and one formula per form; then a status formula and a note on gaps.
  */
@@ -141,7 +184,6 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
   const outputs = analysis.outputs;
   const specs = analysis.table.outputs;
   const rows: Row[] = [
-    [heading('Live check')],
     [{ value: "Each row recomputes every form from its input cells. Status reads OK when every form equals the spec value ('-' = don't-care: any value is OK); the spec column shows the safe value where the spec leaves a gap or conflict." }],
   ];
   const titles: Row = [heading('#'), ...analysis.inputs.map((s) => heading(s.identifier))];
@@ -149,6 +191,7 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
     titles.push(heading(`${o.signal.identifier} spec`), ...FORMS.map((f) => heading(`${o.signal.identifier} ${SHORT[f]}`)));
   }
   titles.push(heading('Status'), heading('Note'));
+  const titleRow = top + rows.length;
   rows.push(titles);
 
   const values = outputs.map((o) => FORMS.map((f) => truthTable(chosenForm(o, f).expr, n)));
@@ -191,7 +234,7 @@ function liveCheck(analysis: TableAnalysis, top: number): LiveCheck {
     rows.push(row);
   }
   const statusRange = `${cellAddress(firstRow, statusCol)}:${cellAddress(firstRow + 2 ** n - 1, statusCol)}`;
-  return { rows, statusRange, differs };
+  return { rows, titleRow, statusRange, differs };
 }
 
 /**

@@ -26,6 +26,25 @@ export interface SheetBlock {
   readonly print?: PrintSetup;
   /** Rows from row 1 kept in view while the rest scrolls (frozen panes). */
   readonly freezeRows?: number;
+  /**
+   * Blocks of the same list whose sheets this block's formulas name (`'Name'!A1`, by the name
+   * they want), as the distance from this block (1 = the next block). The sheets' final names
+   * are known only when written (a name may be taken): `writeSheets` puts them in.
+   */
+  readonly refersTo?: readonly number[];
+}
+
+/** A sheet name as a formula writes it: always quoted, a quote inside doubled ('It''s'!A1). */
+export function quotedSheet(name: string): string {
+  return `'${name.replace(/'/g, "''")}'`;
+}
+
+/** The block with every formula reference to sheet `from` made one to sheet `to`. */
+export function renameSheetRefs(block: SheetBlock, from: string, to: string): SheetBlock {
+  const was = `${quotedSheet(from)}!`;
+  const now = `${quotedSheet(to)}!`;
+  const rows = block.rows.map((row) => row.map((c) => (c?.formula?.includes(was) ? { ...c, formula: c.formula.split(was).join(now) } : c)));
+  return { ...block, rows };
 }
 
 export interface PrintSetup {

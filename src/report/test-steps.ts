@@ -168,26 +168,38 @@ export function csvField(value: string | number): string {
 }
 
 /** At most this many rows are frozen above the steps, so the steps keep most of the window. */
-const MAX_FROZEN_ROWS = 12;
+export const MAX_FROZEN_ROWS = 12;
 
-/** The commissioning test record as a sheet: title, caution, source and revision stamp, then the steps to fill in. */
+/**
+ * The caution in three rows of two lines each, for sheets whose column titles stay in view
+ * (frozen) below it: fewer rows over the steps, the same words as `CAUTION_LINES`.
+ */
+export function cautionRows(): BlockCell[][] {
+  const rows: BlockCell[][] = [];
+  for (let i = 0; i < CAUTION_LINES.length; i += 2) rows.push([{ value: CAUTION_LINES.slice(i, i + 2).join(' '), style: 'caution' }]);
+  return rows;
+}
+
+/**
+ * The commissioning test record as a sheet: title, caution, source, revision stamp, settings,
+ * tool and date, then the steps to fill in under column titles that stay in view (frozen).
+ */
 export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions = {}): SheetBlock {
   const table = stepTable(analysis, options);
   const m = analysis.outputs.length;
   const rows: (BlockCell | null)[][] = [
     [{ value: recordTitle(analysis), style: 'title' }],
-    ...CAUTION_LINES.map((line) => [{ value: line, style: 'caution' as const }]),
+    ...cautionRows(),
     ...recordFacts(analysis, options).map(([what, value]): BlockCell[] => [{ value: what, style: 'label' }, { value }]),
-    [],
     ...stepBlockRows(table, m),
   ];
-  // Everything above the first step stays in view while scrolling, unless it would fill a screen.
+  // The column titles stay in view while scrolling the steps, unless that would fill a screen.
   const above = rows.length - table.rows.length;
   return {
     name: sheetName(analysis.table.sheet, ' record'),
     rows,
     ...(above <= MAX_FROZEN_ROWS ? { freezeRows: above } : {}),
-    columnWidths: [6, 14, 18, 40, 30, ...Array.from({ length: 2 * m }, () => 12), 10, 24, 16, 16, 12, 60],
+    columnWidths: [15, 14, 18, 40, 30, ...Array.from({ length: 2 * m }, () => 12), 10, 24, 16, 16, 12, 60],
     print: printSetup(`Test record of ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}, ${revisionStamp(analysis.table).slice(0, 19)}`),
   };
 }

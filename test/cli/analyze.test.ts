@@ -256,7 +256,7 @@ describe('analyze -o', () => {
     const values = (s: XLSX.WorkSheet): unknown[][] => XLSX.utils.sheet_to_json(s, { header: 1, raw: true });
     for (const name of source.SheetNames) expect(values(written.Sheets[name]!), name).toEqual(values(source.Sheets[name]!));
     const added = written.SheetNames.slice(3);
-    expect(added.length).toBe(8); // a results sheet and a steps sheet per table
+    expect(added.length).toBe(12); // a results sheet, a live check and a test record per table
     const formulas = added.flatMap((name) =>
       Object.entries(written.Sheets[name]!)
         .filter(([k]) => !k.startsWith('!'))

@@ -62,6 +62,11 @@ describe('retest after one row of the sample workbook changed', () => {
     expect(retest.newRecord.some((s) => s.status === 'new')).toBe(true);
   });
 
+  it('the new record keeps its column titles in view: the frozen rows end at the Step row, below the retest note', () => {
+    const sheet = retestRecordSheet(c, selectRetest(c, oldStepsOf(c), 'old table'), { date: '2026-12-02' });
+    expect(sheet.rows[sheet.freezeRows! - 1]![0]!.value).toBe('Step');
+  });
+
   describe('from a filled-in record', () => {
     const results = join(dir, 'results.xlsx');
     const filled = join(dir, 'filled.xlsx');

@@ -3,22 +3,37 @@
 // references, over the cells of a SheetBlock. Excel's rules followed (Microsoft support pages
 // of each function, from memory): `=` between a number and text or a logical value is FALSE;
 // AND/OR/XOR take logical values, numbers (0 = FALSE) and ignore text in referenced cells;
-// `--` turns TRUE/FALSE and numeric text into numbers; a blank cell is 0.
+// `--` turns TRUE/FALSE and numeric text into numbers; a blank cell is 0. A reference may name
+// another sheet ('Sheet name'!A1:A9), found among the blocks of `book` by name.
 import { parseA1, parseRange } from '../../src/spec/grid.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
 
 export type Value = number | string | boolean;
 
-export function evaluateCell(block: SheetBlock, address: string): Value {
+/** Sheets by name, for references to another sheet. */
+export type Book = readonly SheetBlock[];
+
+export function evaluateCell(block: SheetBlock, address: string, book: Book = [block]): Value {
   const at = parseA1(address);
   if (!at) throw new Error(`not a cell: ${address}`);
   const cell = block.rows[at.row]?.[at.col] ?? null;
   if (cell === null || cell.value === null) return 0;
-  return cell.formula === undefined ? cell.value : evaluateFormula(block, cell.formula);
+  return cell.formula === undefined ? cell.value : evaluateFormula(block, cell.formula, book);
 }
 
-export function evaluateFormula(block: SheetBlock, formula: string): Value {
-  const tokens = formula.match(/"[^"]*"|[A-Za-z_][A-Za-z0-9_.]*(?::[A-Z]+[0-9]+)?|[0-9]+(?:\.[0-9]+)?|--|[-=(),]/g) ?? [];
+/** The block a reference's sheet part names; `block` itself without one. */
+function sheetOf(block: SheetBlock, book: Book, token: string): { sheet: SheetBlock; ref: string } {
+  const m = /^(?:'((?:[^']|'')+)'|([A-Za-z_][A-Za-z0-9_.]*))!(.*)$/.exec(token);
+  if (!m) return { sheet: block, ref: token };
+  const name = m[1] !== undefined ? m[1].replace(/''/g, "'") : m[2]!;
+  const sheet = book.find((b) => b.name.toLowerCase() === name.toLowerCase());
+  if (!sheet) throw new Error(`#REF!: no sheet ${name}`);
+  return { sheet, ref: m[3]! };
+}
+
+export function evaluateFormula(block: SheetBlock, formula: string, book: Book = [block]): Value {
+  const tokens =
+    formula.match(/(?:'(?:[^']|'')+'!|[A-Za-z_][A-Za-z0-9_.]*!)?[A-Z]+[0-9]+(?::[A-Z]+[0-9]+)?|"[^"]*"|[A-Za-z_][A-Za-z0-9_.]*|[0-9]+(?:\.[0-9]+)?|--|[-=(),]/g) ?? [];
   let pos = 0;
   const peek = () => tokens[pos];
   const next = () => {
@@ -69,18 +84,20 @@ export function evaluateFormula(block: SheetBlock, formula: string): Value {
     }
     if (upper === 'TRUE') return true;
     if (upper === 'FALSE') return false;
-    return evaluateCell(block, t);
+    const { sheet, ref } = sheetOf(block, book, t);
+    return evaluateCell(sheet, ref, book);
   };
   /** An argument: a single value, or the values of a range (for COUNTIF). */
   const argument = (): Value[] => {
     const t = peek()!;
-    if (/:/.test(t)) {
+    if (/:[A-Z]+[0-9]+$/.test(t)) {
       next();
-      const r = parseRange(t)!;
+      const { sheet, ref } = sheetOf(block, book, t);
+      const r = parseRange(ref)!;
       const out: Value[] = [];
       for (let row = r.top; row <= r.bottom; row++) for (let col = r.left; col <= r.right; col++) {
-        const cell = block.rows[row]?.[col] ?? null;
-        out.push(cell === null || cell.value === null ? '' : cell.formula === undefined ? cell.value : evaluateFormula(block, cell.formula));
+        const cell = sheet.rows[row]?.[col] ?? null;
+        out.push(cell === null || cell.value === null ? '' : cell.formula === undefined ? cell.value : evaluateFormula(sheet, cell.formula, book));
       }
       return out;
     }

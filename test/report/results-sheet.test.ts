@@ -4,7 +4,7 @@ import { truthTable } from '../../src/logic/expr/evaluate.js';
 import { printExcel } from '../../src/logic/expr/print-excel.js';
 import { cellAddress, parseRange } from '../../src/spec/grid.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
-import { LIVE_CHECK_MAX_INPUTS, resultsSheet } from '../../src/report/results-sheet.js';
+import { LIVE_CHECK_MAX_INPUTS, liveCheckSheet, resultsSheet, resultsSheets } from '../../src/report/results-sheet.js';
 import type { BlockCell, SheetBlock } from '../../src/report/sheet-block.js';
 import { evaluateCell, evaluateFormula } from './excel-eval.js';
 import { analysisOf, GUARD, VOTE, type TinySpec } from './fixtures.js';
@@ -69,7 +69,7 @@ describe('results sheet', () => {
   });
 
   it('the live check has one row per combination: its number, the inputs as 0/1, the spec value', () => {
-    const block = resultsSheet(guard);
+    const block = liveCheckSheet(guard)!;
     const { rows } = liveRows(block);
     expect(rows).toHaveLength(8);
     rows.forEach((row, k) => {
@@ -82,7 +82,7 @@ describe('results sheet', () => {
   });
 
   it('each form\'s formula, evaluated, gives its cached value and the form\'s value on that row', () => {
-    const block = resultsSheet(guard);
+    const block = liveCheckSheet(guard)!;
     const { top, rows } = liveRows(block);
     const forms = guard.outputs.flatMap((o) => [o.andOr, o.xor, o.bestXor]);
     rows.forEach((row, k) => {
@@ -99,35 +99,47 @@ describe('results sheet', () => {
     });
   });
 
-  it('the status formulas read OK on every row, and the summary counts no DIFFERS', () => {
-    const block = resultsSheet(guard);
-    const { top, rows } = liveRows(block);
+  it('the status formulas read OK on every row, and the summary on the results sheet counts no DIFFERS', () => {
+    const [results, live] = resultsSheets(guard);
+    const { top, rows } = liveRows(live!);
     const statusCol = 1 + 3 + 4 * 2;
     rows.forEach((row, k) => {
       expect(row[statusCol]!.value).toBe('OK');
-      expect(evaluateCell(block, cellAddress(top + k, statusCol))).toBe('OK');
+      expect(evaluateCell(live!, cellAddress(top + k, statusCol))).toBe('OK');
     });
-    const summary = rowOf(block, 'Combinations that differ (live check)')![1]!;
-    expect(summary.formula).toBe(`COUNTIF(${block.statusRanges![0]},"DIFFERS")`);
+    const summary = rowOf(results!, 'Combinations that differ (live check)')![1]!;
+    expect(summary.formula).toBe(`COUNTIF('Guard logic live check'!${live!.statusRanges![0]},"DIFFERS")`);
     expect(summary.value).toBe(0);
-    expect(evaluateFormula(block, summary.formula!)).toBe(0);
+    expect(evaluateFormula(results!, summary.formula!, [results!, live!])).toBe(0);
   });
 
   it('a row whose spec value no longer matches the forms reads DIFFERS, and the summary counts it', () => {
-    const block = resultsSheet(analysisOf(VOTE));
-    const { top, rows } = liveRows(block);
+    const [results, live] = resultsSheets(analysisOf(VOTE));
+    const { top, rows } = liveRows(live!);
     const spoilt: SheetBlock = {
-      ...block,
-      rows: block.rows.map((r, i) => (i === top + 3 ? r.map((c, col) => (col === 4 ? { value: 0 } : c)) : r)),
+      ...live!,
+      rows: live!.rows.map((r, i) => (i === top + 3 ? r.map((c, col) => (col === 4 ? { value: 0 } : c)) : r)),
     };
     expect(rows[3]![4]!.value).toBe(1);
     expect(evaluateCell(spoilt, cellAddress(top + 3, 8))).toBe('DIFFERS');
-    const summary = rowOf(spoilt, 'Combinations that differ (live check)')![1]!;
-    expect(evaluateFormula(spoilt, summary.formula!)).toBe(1);
+    const summary = rowOf(results!, 'Combinations that differ (live check)')![1]!;
+    expect(evaluateFormula(results!, summary.formula!, [results!, spoilt])).toBe(1);
+  });
+
+  it('the results sheet and its live check go together; the live check sheet is named for the table and keeps its column titles in view', () => {
+    const sheets = resultsSheets(guard);
+    expect(sheets.map((b) => b.name)).toEqual(['Guard logic results', 'Guard logic live check']);
+    expect(sheets[0]!.refersTo).toEqual([1]);
+    const live = sheets[1]!;
+    expect(live.rows[live.freezeRows! - 1]![0]!.value).toBe('#');
+    expect(live.freezeRows).toBeLessThanOrEqual(6);
+    expect(live.rows[0]![0]!.value).toBe("Live check: 'Guard logic'!A1:E6");
+    expect(live.rows.flat().filter((c) => c?.style === 'caution').map((c) => c!.value).join(' ')).toBe(CAUTION_LINES.join(' '));
+    expect(liveCheckSheet(analysisOf({ ...GUARD, sheet: 'A sheet name that is rather long indeed' }))!.name).toBe('A sheet name that is live check');
   });
 
   it('on a don\'t-care row any value of a form is OK', () => {
-    const block = resultsSheet(guard);
+    const block = liveCheckSheet(guard)!;
     const { top, rows } = liveRows(block);
     const k = rows.findIndex((r) => r[4]!.value === '-');
     expect(k).toBeGreaterThanOrEqual(0);
@@ -138,7 +150,7 @@ describe('results sheet', () => {
   });
 
   it('the status column is the range given for the conditional format', () => {
-    const block = resultsSheet(guard);
+    const block = liveCheckSheet(guard)!;
     const { top } = liveRows(block);
     expect(block.statusRanges).toEqual([`M${top + 1}:M${top + 8}`]);
     const range = parseRange(block.statusRanges![0]!)!;
@@ -146,7 +158,7 @@ describe('results sheet', () => {
   });
 
   it('formulas are written as typed: XOR, never _xlfn.XOR', () => {
-    const formulas = resultsSheet(guard).rows.flat().flatMap((c) => (c?.formula ? [c.formula] : []));
+    const formulas = resultsSheets(guard).flatMap((b) => b.rows.flat()).flatMap((c) => (c?.formula ? [c.formula] : []));
     expect(formulas.some((f) => f.includes('XOR('))).toBe(true);
     expect(formulas.some((f) => f.includes('_xlfn'))).toBe(false);
   });
@@ -156,7 +168,8 @@ describe('results sheet', () => {
     const inputs = Array.from({ length: n }, (_, i) => `In ${i + 1}`);
     const wide = analysisOf({ sheet: 'Wide', inputs, outputs: ['Y'], rows: [`${'1 '.repeat(n)}| 1`, `0 ${'- '.repeat(n - 1)}| 0`] });
     const block = resultsSheet(wide);
-    expect(block.statusRanges).toEqual([]);
+    expect(liveCheckSheet(wide)).toBeUndefined();
+    expect(resultsSheets(wide)).toEqual([block]);
     expect(block.rows.some((r) => r[0]?.value === '#')).toBe(false);
     expect(rowOf(block, 'Live check')![1]!.value).toBe(
       `Live check left out: ${n} inputs give ${2 ** n} combinations; the live check is written for tables of up to 12 inputs (4096 rows).`,
@@ -170,7 +183,7 @@ describe('results sheet', () => {
       return `${bits.join(' ')} | ${bits.filter((b) => b === '1').length % 2}`;
     });
     const parity = analysisOf({ sheet: 'Parity', inputs: Array.from({ length: n }, (_, i) => `P${i + 1}`), outputs: ['Odd'], rows });
-    const block = resultsSheet(parity);
+    const block = liveCheckSheet(parity)!;
     const { top, rows: live } = liveRows(block);
     const andOrCell = live[0]![n + 2]!;
     expect(andOrCell.formula).toBeUndefined();

@@ -102,10 +102,20 @@ describe('commissioning test steps', () => {
     for (const r of data) expect(r.slice(5 + m, 5 + 2 * m + FILL_IN_COLUMNS.length)).toEqual(Array.from({ length: m + FILL_IN_COLUMNS.length }, () => null));
   });
 
-  it('the rows above the first step are not frozen when they are more than 12 (title, six caution lines, five facts, blank, headings: 14)', () => {
+  it('the column titles stay in view: title, caution in three rows, five facts, then the titles at row 10, frozen', () => {
     const sheet = testRecordSheet(guard);
-    expect(sheet.rows.findIndex((r) => r[0]?.value === 'Step') + 1).toBe(14);
-    expect(sheet.freezeRows).toBeUndefined();
+    expect(sheet.rows.findIndex((r) => r[0]?.value === 'Step') + 1).toBe(10);
+    expect(sheet.freezeRows).toBe(10);
+    expect(sheet.rows.slice(4, 9).map((r) => r[0]!.value)).toEqual(['Source', 'Revision stamp', 'Settings', 'Tool', 'Made']);
+  });
+
+  it('with the note on a full table left out, the titles are at row 11 and still frozen', () => {
+    const n = FULL_TABLE_MAX_INPUTS + 1;
+    const wide = analysisOf({ sheet: 'Wide', inputs: Array.from({ length: n }, (_, i) => `In ${i + 1}`), outputs: ['Y'], rows: [`${'1 '.repeat(n)}| 1`] });
+    const sheet = testRecordSheet(wide, { full: true });
+    expect(sheet.rows[9]![0]!.value).toMatch(/^Full table left out/);
+    expect(sheet.freezeRows).toBe(11);
+    expect(sheet.rows[10]![0]!.value).toBe('Step');
   });
 
   it('the full table, on request, is every combination in order', () => {
@@ -152,10 +162,12 @@ describe('commissioning test steps', () => {
     expect(csvField('-')).toBe('-');
   });
 
-  it('the sheet carries a title, the caution line by line, and a name of at most 31 characters', () => {
+  it('the sheet carries a title, the whole caution two lines to a row, and a name of at most 31 characters', () => {
     const sheet = testRecordSheet(analysisOf({ ...VOTE, sheet: 'A sheet name that is rather long' }));
     expect(sheet.name.length).toBeLessThanOrEqual(31);
     expect(sheet.name.endsWith(' record')).toBe(true);
-    expect(sheet.rows.slice(1, 1 + CAUTION_LINES.length).map((r) => r[0]!.value)).toEqual(CAUTION_LINES);
+    const caution = sheet.rows.slice(1, 4).map((r) => r[0]!);
+    expect(caution.every((c) => c.style === 'caution')).toBe(true);
+    expect(caution.map((c) => c.value).join(' ')).toBe(CAUTION_LINES.join(' '));
   });
 });

@@ -71,12 +71,14 @@ describe('what the hosts agree on', () => {
     expect(b.sheets.map((s) => s.name)).toEqual(['Cell results']);
   });
 
-  it('the good sample is proven and handed over, with a results sheet and a test record per table', async () => {
+  it('the good sample is proven and handed over, with a results sheet, its live check and a test record per table', async () => {
     const good = await cliOutcome(WORKBOOKS[0], 'Vote');
     expect(good.verdicts).toEqual([['proven minimum', 'proven minimum']]);
     expect(good.handedOver).toBe(true);
-    expect(good.sheets.map((s) => s.name)).toEqual(['Vote results', 'Vote record']);
+    expect(good.sheets.map((s) => s.name)).toEqual(['Vote results', 'Vote live check', 'Vote record']);
     // The live check's formulas are among the cells compared.
-    expect(good.sheets[0]!.rows.flat().filter((v) => v.startsWith('=IF(')).length).toBeGreaterThan(8);
+    expect(good.sheets[1]!.rows.flat().filter((v) => v.startsWith('=IF(')).length).toBeGreaterThan(8);
+    // The results sheet's summary counts the live check's DIFFERS on its sheet, by name.
+    expect(good.sheets[0]!.rows.flat().some((v) => v.startsWith("=COUNTIF('Vote live check'!"))).toBe(true);
   });
 });

@@ -111,13 +111,13 @@ describe('hand-over', () => {
 });
 
 describe('the sheets to write', () => {
-  it('are a results sheet and a test record per cleared table', async () => {
-    expect(sheetsToWrite(await run(GOOD)).map((b) => b.name)).toEqual(['Cell results', 'Cell record', 'Vote results', 'Vote record']);
+  it('are a results sheet, its live check and a test record per cleared table', async () => {
+    expect(sheetsToWrite(await run(GOOD)).map((b) => b.name)).toEqual(['Cell results', 'Cell live check', 'Cell record', 'Vote results', 'Vote live check', 'Vote record']);
   });
 
   it('are a not-analysed results sheet, without forms or steps, for a table with errors', async () => {
     const blocks = sheetsToWrite(await run(ERROR_CELL));
-    expect(blocks.map((b) => b.name)).toEqual(['Cell results', 'Vote results', 'Vote record']);
+    expect(blocks.map((b) => b.name)).toEqual(['Cell results', 'Vote results', 'Vote live check', 'Vote record']);
     const text = blocks[0]!.rows.flatMap((r) => r.map((c) => String(c?.value ?? '')));
     expect(text.some((v) => v.startsWith('not analysed: 1 error, the first at Cell!B4'))).toBe(true);
     expect(text.some((v) => /proven minimum|heuristic|combinations checked|:=/.test(v))).toBe(false);
