@@ -9,7 +9,7 @@ import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
 import { CAUTION_LINES } from '../src/report/caution.js';
 import type { SheetBlock } from '../src/report/sheet-block.js';
 import { qualifiedAddress } from '../src/spec/grid.js';
-import { readGrids, writeSheets, type HandOverKind, type WorkbookChoice, type WorkbookView } from '../src/workflow/index.js';
+import { readGrids, writeSheets, type HandOverKind, type TableView, type WorkbookChoice, type WorkbookView } from '../src/workflow/index.js';
 import { CompareCard } from './compare.js';
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';
 import { Cancelled, Engine } from './engine.js';
@@ -17,7 +17,7 @@ import { download } from './files.js';
 import { RecordCheck } from './records.js';
 import { ProblemList, SpecTableView, type SelectCell } from './results.js';
 import { SettingsCard } from './settings.js';
-import { DEFAULT_SETTINGS, pageValues, settingsFrom, specOptions, type TableSettings } from './table-settings.js';
+import { DEFAULT_SETTINGS, pageValues, rememberTable, settingsFrom, specOptions, tableChoices, tableKey, tableSettings, type TablePlace, type TableSettings } from './table-settings.js';
 
 export type PaneMode =
   | { readonly kind: 'excel'; readonly host: ExcelHost; readonly remembered?: RememberedValues | undefined; readonly open: OpenFile }
@@ -33,6 +33,8 @@ type Busy = { what: string; done?: number; total?: number; cancellable: boolean 
 interface Reading {
   readonly choice: Pick<WorkbookChoice, 'sheet' | 'range'>;
   readonly label: string;
+  /** The Excel table read, by name: its settings are remembered by that name. */
+  readonly excelTable?: string;
 }
 
 /** What the settings of a reading are remembered under: the sheet, or the range of it read. */
@@ -128,7 +130,7 @@ function ExcelSource({ host, read, busy }: { host: ExcelHost; read: (r: () => Pr
             disabled={busy}
             onClick={() => {
               const t = tables[table]!;
-              read(async () => ({ choice: { sheet: t.sheet, range: t.range }, label: `table ${t.name}` }));
+              read(async () => ({ choice: { sheet: t.sheet, range: t.range }, label: `table ${t.name}`, excelTable: t.name }));
             }}
           >
             Read table
@@ -363,10 +365,23 @@ export function App({ mode }: { mode: PaneMode }) {
   const host: WorkbookHost | undefined = mode.kind === 'excel' ? mode.host : file;
   const sourceName = mode.kind === 'file' ? (file?.fileName ?? 'workbook') : 'the Excel workbook';
 
+  const hostKind = mode.kind === 'excel' ? 'pane' : 'page';
+  /** The Excel table a reading is, as a place; undefined for a sheet, selection or range. */
+  const namedTable = (r: Reading): TablePlace | undefined =>
+    r.excelTable !== undefined && r.choice.sheet !== undefined && r.choice.range !== undefined ? { sheet: r.choice.sheet, range: r.choice.range, excelTable: r.excelTable } : undefined;
+  /** The reader's choice: the reading's settings, and the tables that have settings of their own. */
+  const choiceOf = (r: Reading, s: TableSettings): WorkbookChoice => ({
+    ...r.choice,
+    ...specOptions(s, hostKind),
+    tables: tableChoices(remembered, r.choice.sheet, hostKind, namedTable(r)),
+  });
+  /** A table of the reading as the settings remember it (by name when the reading is an Excel table). */
+  const placeOf = (r: Reading, t: TableView): TablePlace => namedTable(r) ?? { sheet: t.sheet, range: t.range };
+
   /** The workflow: the cells are read here, where the workbook is; the worker examines them. */
   const analyse = async (r: Reading, s: TableSettings) => {
     if (!host) return;
-    const choice: WorkbookChoice = { ...r.choice, ...specOptions(s, mode.kind === 'excel' ? 'pane' : 'page') };
+    const choice = choiceOf(r, s);
     setBusy({ what: `Reading ${r.label}`, cancellable: false });
     try {
       const grids = await readGrids(host, choice, sourceName);
@@ -412,6 +427,15 @@ export function App({ mode }: { mode: PaneMode }) {
     void analyse(r, s);
   };
 
+  /** A setting of one table changed: remember it with that table, and read again at once. */
+  const changeTable = (r: Reading, place: TablePlace, s: TableSettings) => {
+    setError(undefined);
+    // Remembered before reading again: the read takes the tables' settings from the store.
+    void rememberTable(remembered, place, s)
+      .catch((e: Error) => setError(e.message))
+      .then(() => analyse(r, settings));
+  };
+
   const open = (f: File) => {
     if (mode.kind !== 'file') return;
     setError(undefined);
@@ -433,9 +457,10 @@ export function App({ mode }: { mode: PaneMode }) {
         ) : (
           <FileSource file={file} open={open} read={read} busy={busy !== undefined} />
         )}
-        {reading && (
+        {reading && tables.length === 0 && (
           <SettingsCard
             key={settingsKey(reading)}
+            id="settings-reading"
             label={reading.label}
             settings={settings}
             tables={tables}
@@ -445,6 +470,24 @@ export function App({ mode }: { mode: PaneMode }) {
             again={() => void analyse(reading, settings)}
           />
         )}
+        {reading &&
+          tables.map((t, i) => {
+            // Each table its own card, remembered by where it starts; until changed it shows the reading's settings.
+            const place = placeOf(reading, t);
+            return (
+              <SettingsCard
+                key={tableKey(place)}
+                id={`settings-${i}`}
+                label={place.excelTable !== undefined ? `table ${place.excelTable}` : `the table at ${qualifiedAddress(t.sheet, t.range)}`}
+                settings={tableSettings(remembered, place) ?? settings}
+                tables={[t]}
+                where={`for this table ${mode.kind === 'excel' ? 'with this workbook' : 'while this page stays open'}`}
+                busy={busy !== undefined}
+                change={(s) => changeTable(reading, place, s)}
+                again={() => void analyse(reading, settings)}
+              />
+            );
+          })}
         {busy && (
           <section class="card busy" role="status" aria-live="polite">
             <p>{busy.what}</p>
@@ -489,7 +532,7 @@ export function App({ mode }: { mode: PaneMode }) {
                     host={host}
                     open={mode.open}
                     engine={engine}
-                    choice={{ ...reading.choice, ...specOptions(settings, mode.kind === 'excel' ? 'pane' : 'page') }}
+                    choice={choiceOf(reading, settings)}
                     newSource={sourceName}
                     where={sheetTarget(mode, file)?.where ?? ''}
                   />

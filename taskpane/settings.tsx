@@ -1,18 +1,20 @@
 // How a table is read, set where the user works: the number of input columns (when no role row
 // or separator column decides), the safe value of each output, the X reading and the don't-care
-// policy. Remembered per reading target (the sheet, selection, Excel table or range read): with
-// the workbook in Excel (its document settings), while the page stays open on the standalone
-// page. The labels are the words src/spec/settings.ts quotes in problems: keep them together.
+// policy. One card per table read, remembered per table (its sheet and top-left cell, or the
+// Excel table's name); before any table is found, one card for the reading target (the sheet,
+// selection or range read). Remembered with the workbook in Excel (its document settings),
+// while the page stays open on the standalone page. The labels are the words src/spec/settings.ts quotes in problems: keep them together.
 import { useState } from 'preact/hooks';
 import type { DontCarePolicy } from '../src/spec/types.js';
 import type { TableView } from '../src/workflow/index.js';
 import { DEFAULT_SETTINGS, type TableSettings } from './table-settings.js';
 
 /**
- * The settings card of the table(s) read. Each change is remembered and read again at once.
- * `tables` gives the outputs whose safe value can be set (those read so far).
+ * The settings card of a table (or of a reading before any table is found). Each change is
+ * remembered and read again at once. `tables` gives the outputs whose safe value can be set.
  */
 export function SettingsCard({
+  id,
   label,
   settings,
   tables,
@@ -21,6 +23,8 @@ export function SettingsCard({
   change,
   again,
 }: {
+  /** Unique on the page: names the card's heading. */
+  id: string;
   label: string;
   settings: TableSettings;
   tables: readonly TableView[];
@@ -40,8 +44,8 @@ export function SettingsCard({
     change(n === undefined ? rest : { ...rest, inputCount: n });
   };
   return (
-    <section class="card settings" aria-labelledby="settings-title">
-      <h2 id="settings-title">Settings for {label}</h2>
+    <section class="card settings" aria-labelledby={`${id}-title`}>
+      <h2 id={`${id}-title`}>Settings for {label}</h2>
       <form
         class="inputs-count"
         onSubmit={(e) => {

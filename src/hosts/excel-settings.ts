@@ -6,6 +6,8 @@ import type { XlDocumentSettings } from './excel-api.js';
 export interface RememberedValues {
   /** What was stored under `key` (unknown: the document may hold anything). */
   get(key: string): unknown;
+  /** Every key something is stored under. */
+  keys(): string[];
   /** Store `value` under `key` and save it into the document. */
   set(key: string, value: unknown): Promise<void>;
 }
@@ -18,6 +20,7 @@ export function documentValues(settings: XlDocumentSettings, name: string, faile
   };
   return {
     get: (key) => (Object.hasOwn(all(), key) ? all()[key] : undefined),
+    keys: () => Object.keys(all()),
     set: (key, value) =>
       new Promise((done, refuse) => {
         settings.set(name, { ...all(), [key]: value });

@@ -7,11 +7,22 @@ import { fail, ok, type Result } from '../logic/result.js';
 import { signalIndex } from '../logic/signals.js';
 import type { WorkbookHost } from '../hosts/workbook-host.js';
 import { readSpecTables } from '../spec/read-tables.js';
+import { parseRange, cellAddress } from '../spec/grid.js';
 import type { Grid, Problem, SpecOptions, SpecTable } from '../spec/types.js';
 
 /** The user's settings: which sheet (all when absent), and how to read it. */
 export interface WorkbookChoice extends SpecOptions {
   readonly sheet?: string;
+  /** Tables read with settings of their own instead of these (two tables side by side, each its own safe values). */
+  readonly tables?: readonly TableChoice[];
+}
+
+/** The settings of one table, found by its sheet and the top-left cell of its range as first read. */
+export interface TableChoice {
+  readonly sheet: string;
+  /** A1 address of the table's top-left cell. */
+  readonly cell: string;
+  readonly options: Omit<SpecOptions, 'range' | 'host'>;
 }
 
 /** The cells read, and the sheets that could not be (warnings outside any table). */
@@ -60,14 +71,37 @@ export async function readGrids(host: WorkbookHost, choice: WorkbookChoice, sour
   return ok({ grids, problems });
 }
 
+/** The top-left cell of a table's range. */
+export function tableCell(range: string): string {
+  const r = parseRange(range);
+  return r ? cellAddress(r.top, r.left) : range;
+}
+
+/**
+ * The table read again over its own range with the settings the user gave it, when there are
+ * some; what that reading finds outside a table joins `problems` (a table its settings cannot
+ * read, e.g. with too many inputs, is left out and its problem says why).
+ */
+function withOwnSettings(grid: Grid, table: SpecTable, own: readonly TableChoice[], options: SpecOptions, problems: Problem[]): SpecTable | undefined {
+  const cell = tableCell(table.range);
+  const choice = own.find((c) => c.sheet === table.sheet && c.cell === cell);
+  if (!choice) return table;
+  const again = readSpecTables(grid, { ...choice.options, ...(options.host ? { host: options.host } : {}), range: table.range });
+  appendAll(problems, again.problems);
+  return again.tables.find((t) => tableCell(t.range) === cell);
+}
+
 /** The spec tables of the grids; a safe value for an output no table has is refused. */
 export function readTables(read: GridsRead, choice: WorkbookChoice): Result<TablesRead, ReadFailure> {
   const tables: SpecTable[] = [];
   const problems: Problem[] = [...read.problems];
-  const { sheet: _sheet, ...options } = choice;
+  const { sheet: _sheet, tables: own = [], ...options } = choice;
   for (const grid of read.grids) {
     const found = readSpecTables(grid, options);
-    appendAll(tables, found.tables);
+    for (const table of found.tables) {
+      const read = withOwnSettings(grid, table, own, options, problems);
+      if (read) tables.push(read);
+    }
     appendAll(problems, found.problems);
   }
   for (const name of Object.keys(choice.safeValues ?? {})) {

@@ -258,7 +258,7 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const source = XLSX.read(readFileSync(SAMPLE), { type: 'buffer' });
     same(book.SheetNames.slice(0, source.SheetNames.length), source.SheetNames, 'the user’s sheets first, unchanged in order');
     const added = book.SheetNames.slice(source.SheetNames.length).filter((name) => name !== checkBlock?.name);
-    same(added.length, 2 * spindle.length, 'a results sheet and a test record per table');
+    same(added.length, 3 * spindle.length, 'a results sheet, its live check and a test record per table');
     const text = (name: string) =>
       Object.entries(book.Sheets[name]!)
         .filter(([k]) => !k.startsWith('!'))
@@ -266,8 +266,10 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     const first = text(added[0]!);
     expect(first.includes(CAUTION_LINES[0]!), 'the caution is on the results sheet');
     expect(first.some((v) => v.includes(spindle[0]!.outputs[0]!.andOr.text)), 'the AND/OR form is on the results sheet');
-    const formulas = Object.values(book.Sheets[added[0]!]!).filter((c) => typeof c === 'object' && c !== null && 'f' in c).length;
-    expect(formulas > 0, 'the results sheet has live formulas');
+    const formulas = Object.values(book.Sheets[added[1]!]!).filter((c) => typeof c === 'object' && c !== null && 'f' in c).length;
+    expect(formulas > 0, 'the live check sheet has live formulas');
+    const summary = Object.values(book.Sheets[added[0]!]!).find((c) => typeof c === 'object' && c !== null && String((c as XLSX.CellObject).f ?? '').startsWith('COUNTIF('));
+    expect(String((summary as XLSX.CellObject | undefined)?.f).startsWith(`COUNTIF('${added[1]!.replace(/'/g, "''")}'!`), `the results sheet's summary counts on ${added[1]}`);
     const userCells = (s: XLSX.WorkSheet) => XLSX.utils.sheet_to_json(s, { header: 1, raw: true, defval: null });
     same(userCells(book.Sheets['Spindle']!), userCells(source.Sheets['Spindle']!), 'the Spindle sheet is unchanged');
     // The check sheet written earlier, cell for cell as the engine builds it in Node.

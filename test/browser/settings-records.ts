@@ -111,6 +111,70 @@ export async function settingsChecks(page: Page, work: string): Promise<void> {
     same(await page.getByRole('spinbutton', { name: /Inputs: the first N columns/ }).inputValue(), '3', 'count of inputs shown');
   });
   await shot(page, 'section.settings', 'settings-card');
+  await sideBySideChecks(page, work);
+}
+
+/**
+ * Two tables side by side, two empty columns apart, each with its role row. The left one has
+ * gaps (its safe value decides them), the right one a don't-care (its policy decides it). Invented data.
+ */
+const SIDE_BY_SIDE: TestWorkbook = {
+  name: 'two tables side by side',
+  file: 'side-by-side.xlsx',
+  sheets: {
+    Press: [
+      ['input', 'input', 'output', '', '', 'input', 'input', 'output'],
+      ['Guard closed', 'Two-hand OK', 'Stroke permit', '', '', 'Air OK', 'Lube OK', 'Pump permit'],
+      [1, 1, 1, '', '', 1, 1, 1],
+      [0, 0, 0, '', '', 0, '-', 0],
+      ['', '', '', '', '', 1, 0, '-'],
+    ],
+  },
+};
+
+async function sideBySideChecks(page: Page, work: string): Promise<void> {
+  const path = join(work, SIDE_BY_SIDE.file);
+  writeFileSync(path, xlsxBytes(SIDE_BY_SIDE));
+  type Side = { readonly range: string; readonly own: SpecOptions; readonly other: SpecOptions };
+  const left: Side = { range: 'A1:C4', own: { safeValues: { Stroke_permit: 1 } }, other: { dontCares: 'safe' } };
+  const right: Side = { range: 'F1:H5', own: { dontCares: 'safe' }, other: { safeValues: { Pump_permit: 1 } } };
+  const forms = (t: Side, options: SpecOptions) => formsInNode(SIDE_BY_SIDE, 'Press', { ...options, range: t.range });
+  await check('the test data: each table\'s own setting changes its forms, the other table\'s does not', async () => {
+    for (const t of [left, right]) {
+      expect(JSON.stringify(forms(t, t.own)) !== JSON.stringify(forms(t, {})), `${t.range}: its own setting changes nothing`);
+      same(forms(t, t.other), forms(t, {}), `${t.range} under the other table's setting`);
+    }
+  });
+
+  await check('a sheet with two tables side by side shows a settings card for each table', async () => {
+    await openBook(page, path, SIDE_BY_SIDE.file);
+    await page.getByRole('button', { name: 'Find and analyse spec tables' }).click();
+    await page.locator('section.settings').nth(1).waitFor({ timeout: 30_000 });
+    same(await page.locator('section.settings h2').allTextContents(), ['Settings for the table at Press!A1:C4', 'Settings for the table at Press!F1:H5'], 'card headings');
+  });
+
+  const card = (t: Side) => page.locator('section.settings').filter({ hasText: `Press!${t.range}` });
+  const showTable = async (index: number) => page.getByLabel('Spec table').selectOption({ index });
+
+  await check('a safe value set on the left table\'s card and a policy set on the right one\'s give each table the engine\'s forms under its own settings', async () => {
+    await card(left).getByLabel('Safe value of Stroke_permit').selectOption('1');
+    await formsBecome(page, forms(left, left.own), 'left table, safe value 1');
+    await card(right).getByLabel("Don't-cares").selectOption('safe');
+    await showTable(1);
+    await formsBecome(page, forms(right, right.own), "right table, don't-cares at the safe value");
+    await showTable(0);
+    await formsBecome(page, forms(left, left.own), 'left table, still safe value 1 and minimal');
+    same(await card(left).getByLabel("Don't-cares").inputValue(), 'minimal', "the left card's policy");
+    same(await card(right).getByLabel('Safe value of Pump_permit').inputValue(), '0', "the right card's safe value");
+  });
+
+  await check('each table\'s settings are remembered while the page stays open: reading the sheet again uses them', async () => {
+    await page.getByRole('button', { name: 'Find and analyse spec tables' }).click();
+    await formsBecome(page, forms(left, left.own), 'left table read again');
+    await showTable(1);
+    await formsBecome(page, forms(right, right.own), 'right table read again');
+  });
+  await shot(page, 'main', 'settings-two-tables');
 }
 
 /** The record sheets of a results workbook (first cell "Commissioning test record: ..."). */

@@ -20,6 +20,7 @@ describe('values remembered in the document settings', () => {
     await values.set("'Vote sheet'!A1:D8", 2);
     const again = documentValues(doc.reopened(), 'ia', FAILED);
     expect([again.get('Cell'), again.get("'Vote sheet'!A1:D8"), again.get('Other')]).toEqual([1, 2, undefined]);
+    expect(again.keys()).toEqual(['Cell', "'Vote sheet'!A1:D8"]);
   });
 
   it('a set without a save is not in the document (Office keeps it in memory only)', () => {
