@@ -55,7 +55,16 @@ export interface XlRange extends XlLoadable {
   getResizedRange(deltaRows: number, deltaColumns: number): XlRange; // [1.2]
   getOffsetRange(rowOffset: number, columnOffset: number): XlRange; // [1.1]
   getUsedRangeOrNullObject(valuesOnly?: boolean): XlRange; // [1.4]
+  /** Merged areas whose top-left cell is in this range; fails over 512 areas. */
+  getMergedAreasOrNullObject(): XlRangeAreas; // [1.13]
   select(): void; // [1.1]
+}
+
+/** Rectangular ranges of one sheet (here: merged areas). */
+export interface XlRangeAreas extends XlLoadable {
+  readonly isNullObject: boolean; // [1.9]
+  /** "Sheet1!A1:B4,Sheet1!D1:D4": each area with its sheet, quoted as a formula quotes it. */
+  readonly address: string; // [1.9]
 }
 
 /** Header/footer text with Excel's codes (&P page, &N pages, && a literal &). */

@@ -82,10 +82,11 @@ async function readRows(context: XlContext, range: XlRange, start: number, rows:
   return part.values.map((row, r) => row.map((v, c) => cellFromExcel(v, part.valueTypes[r]![c]!, part.numberFormat[r]![c]!)));
 }
 
-async function readRange(context: XlContext, sheet: string, range: XlRange, where: string): Promise<Grid> {
+async function readRange(context: XlContext, sheet: string, range: XlRange, where: string, supports: XlSupports): Promise<Grid> {
   range.load('address,rowCount,columnCount,isNullObject');
   await syncOrExplain(context, `reading ${where}`);
   if (range.isNullObject) return { sheet, origin: 'A1', cells: [] };
+  const origin = topLeftOf(range.address);
   const rows = range.rowCount;
   const columns = range.columnCount;
   const per = readBlockRows(columns);
@@ -93,7 +94,52 @@ async function readRange(context: XlContext, sheet: string, range: XlRange, wher
   for (let start = 0; start < rows; start += per) {
     appendAll(cells, await readRows(context, range, start, Math.min(per, rows - start), columns, where));
   }
-  return { sheet, origin: topLeftOf(range.address), cells };
+  return { sheet, origin, cells, ...(await readMerges(context, sheet, range, origin, where, supports)) };
+}
+
+/**
+ * The merged areas of a range read (ExcelApi 1.13: those whose top-left cell is in it). Where
+ * this Excel lacks 1.13, or Excel refuses (over 512 areas), one info problem at the range's
+ * top-left cell says what was not read; role cells are then read as without merges.
+ */
+async function readMerges(context: XlContext, sheet: string, range: XlRange, origin: string, where: string, supports: XlSupports): Promise<Pick<Grid, 'merges' | 'readProblems'>> {
+  const notRead = (why: string): Pick<Grid, 'readProblems'> => ({
+    readProblems: [
+      {
+        severity: 'info',
+        code: 'merges-not-read',
+        sheet,
+        cell: origin,
+        message: `merged cells of ${where} not read (${why}): a role word over merged cells is read as covering the blank cells on its right`,
+      },
+    ],
+  });
+  if (!supports('1.13')) return notRead('this Excel lacks ExcelApi 1.13');
+  const areas = range.getMergedAreasOrNullObject();
+  areas.load('isNullObject,address');
+  try {
+    await syncOrExplain(context, `reading the merged cells of ${where}`);
+  } catch (error) {
+    return notRead(error instanceof Error ? error.message : String(error));
+  }
+  return { merges: areas.isNullObject ? [] : areaAddresses(areas.address) };
+}
+
+/** "B2:D2" and "F2:G2" from "'It''s, here'!B2:D2,'It''s, here'!F2:G2": split at commas outside quotes. */
+export function areaAddresses(address: string): string[] {
+  const parts: string[] = [];
+  let quoted = false;
+  let start = 0;
+  for (let i = 0; i <= address.length; i++) {
+    const c = address[i];
+    if (c === "'") quoted = !quoted;
+    else if ((c === ',' && !quoted) || i === address.length) {
+      const part = address.slice(start, i).trim();
+      if (part !== '') parts.push(localAddress(part));
+      start = i + 1;
+    }
+  }
+  return parts;
 }
 
 const OFFICE_ALIGN = { left: 'Left', center: 'Center', right: 'Right' } as const;
@@ -216,7 +262,7 @@ export function createExcelHost(run: XlRun, supports: XlSupports): ExcelHost {
       run(async (context) => {
         const ws = context.workbook.worksheets.getItem(sheet);
         const target = range ? ws.getRange(range) : ws.getUsedRangeOrNullObject(true);
-        return readRange(context, sheet, target, range ? `${sheet}!${range}` : `sheet ${sheet}`);
+        return readRange(context, sheet, target, range ? `${sheet}!${range}` : `sheet ${sheet}`, supports);
       }),
 
     writeSheet: (block) =>

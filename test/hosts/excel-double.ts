@@ -5,7 +5,9 @@
 // - `values`/`formulas` must match the range's rows x columns (InvalidArgument);
 // - a sync whose request or response is over 5 MB fails (Request/ResponsePayloadSizeLimitExceeded),
 //   with the request measured as the JSON of its commands.
-// - members of a requirement set above `excelApi` (pageLayout 1.9, freezePanes 1.7) throw ApiNotFound.
+// - members of a requirement set above `excelApi` (pageLayout 1.9, freezePanes 1.7,
+//   getMergedAreasOrNullObject 1.13) throw ApiNotFound;
+// - merged areas are those whose top-left cell is in the range, and more than 512 fail the sync.
 // Formulas are stored, not calculated. Error codes and messages follow office-js dist (excel-web-16.00.js).
 import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/spec/grid.js';
 import type { XlContext, XlPageLayout, XlRangeFormat, XlRun, XlSupports, XlValue } from '../../src/hosts/excel-api.js';
@@ -40,6 +42,8 @@ export interface SheetModel {
   conditionalFormats: { range: string; text?: string; fill?: string; font?: string }[];
   columnWidths: Map<number, number>;
   frozenRows: number;
+  /** Merged areas (A1 ranges), as a test seeds them. */
+  merges: string[];
   print: { orientation?: string; zoom?: Record<string, unknown>; titleRows?: string; leftFooter?: string; rightFooter?: string };
 }
 
@@ -82,7 +86,7 @@ export class ExcelDouble {
   readonly tables: { name: string; sheet: string; range: string }[] = [];
 
   addSheet(name: string, rows: readonly (readonly SeedCell[])[] = [], origin = 'A1'): SheetModel {
-    const sheet: SheetModel = { name, cells: new Map(), conditionalFormats: [], columnWidths: new Map(), frozenRows: 0, print: {} };
+    const sheet: SheetModel = { name, cells: new Map(), conditionalFormats: [], columnWidths: new Map(), frozenRows: 0, merges: [], print: {} };
     this.sheets.push(sheet);
     const at = parseRange(origin)!;
     rows.forEach((row, r) =>
@@ -125,7 +129,7 @@ export class ExcelDouble {
   }
 
   /** The highest ExcelApi requirement set this Excel has (the manifest asks for 1.6). */
-  excelApi = '1.9';
+  excelApi = '1.13';
 
   /** `Office.context.requirements.isSetSupported('ExcelApi', version)` for this Excel. */
   readonly supports: XlSupports = (version) => minorOf(version) <= minorOf(this.excelApi);
@@ -277,7 +281,7 @@ class DoubleWorksheet {
     return new DoubleRange(this.ctx, this, () => usedRect(this.resolve(), undefined, valuesOnly));
   }
   /** Office.js has no such member in an Excel below the member's requirement set. */
-  private needs(version: string, member: string): void {
+  needs(version: string, member: string): void {
     if (!this.ctx.model.supports(version)) {
       throw new DoubleError('ApiNotFound', `The API you are trying to use could not be found (${member}, ExcelApi ${version}).`);
     }
@@ -343,6 +347,34 @@ function pageLayout(ctx: DoubleContext, sheet: DoubleWorksheet): XlPageLayout {
       set('printTitleRows', rows, () => /^\$?[1-9]\d*:\$?[1-9]\d*$/.test(rows), (p) => (p.titleRows = rows));
     },
   };
+}
+
+/** A merged-areas result: a null object when there are none; only `isNullObject` and `address` are modelled. */
+class DoubleRangeAreas {
+  readonly loaded = new Map<string, unknown>();
+  constructor(
+    private readonly ctx: DoubleContext,
+    private readonly areasOf: Thunk<{ sheet: string; areas: string[] }>,
+  ) {}
+  get isNullObject(): boolean {
+    return (this.loaded.get('isNullObject') as boolean | undefined) ?? notLoaded('isNullObject');
+  }
+  get address(): string {
+    const v = this.loaded.get('address') as string | undefined;
+    return v ?? notLoaded('address');
+  }
+  load(names: string): this {
+    this.ctx.load(this, 'rangeAreas', () => {
+      const { sheet, areas } = this.areasOf();
+      const out: Record<string, unknown> = { isNullObject: areas.length === 0 };
+      for (const p of props(names)) {
+        if (p === 'address') out[p] = areas.length === 0 ? undefined : areas.map((a) => `${sheetPrefix(sheet)}!${a}`).join(',');
+        else if (p !== 'isNullObject') throw new Error(`double: load of ${p} on RangeAreas is not modelled`);
+      }
+      return out;
+    });
+    return this;
+  }
 }
 
 function usedRect(sheet: SheetModel, within: RangeRef | undefined, _valuesOnly?: boolean): RangeRef | null {
@@ -447,6 +479,18 @@ class DoubleRange {
   }
   get worksheet(): DoubleWorksheet {
     return this.sheetProxy;
+  }
+  getMergedAreasOrNullObject(): DoubleRangeAreas {
+    this.sheetProxy.needs('1.13', 'getMergedAreasOrNullObject');
+    return new DoubleRangeAreas(this.ctx, () => {
+      const { sheet, rect } = this.resolveOrFail();
+      const inside = sheet.merges.filter((m) => {
+        const r = parseRange(m)!;
+        return r.top >= rect.top && r.top <= rect.bottom && r.left >= rect.left && r.left <= rect.right;
+      });
+      if (inside.length > 512) throw new DoubleError('GeneralException', 'There are more than 512 merged areas in the range.');
+      return { sheet: sheet.name, areas: inside };
+    });
   }
 
   load(names: string): this {

@@ -2,7 +2,8 @@
 // in requests that fit Excel on the web's 5 MB limit.
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
-import { createExcelHost, ExcelHostError } from '../../src/hosts/excel-host.js';
+import { areaAddresses, createExcelHost, ExcelHostError } from '../../src/hosts/excel-host.js';
+import { readSpecTables } from '../../src/spec/read-tables.js';
 import { cellFromExcel, isDateFormat, rowBlocks } from '../../src/hosts/excel-cells.js';
 import type { BlockCell, SheetBlock } from '../../src/report/sheet-block.js';
 import { column, DoubleError, ExcelDouble, LIMIT, type SeedCell } from './excel-double.js';
@@ -84,7 +85,7 @@ describe('reading', () => {
 
   test('reads the used range with its top-left address', async () => {
     const { host } = setup({ Capper: { rows: [['Guard', 'Run'], [1, 0]], origin: 'B3' } });
-    expect(await host.readGrid('Capper')).toEqual({ sheet: 'Capper', origin: 'B3', cells: [['Guard', 'Run'], [1, 0]] });
+    expect(await host.readGrid('Capper')).toEqual({ sheet: 'Capper', origin: 'B3', cells: [['Guard', 'Run'], [1, 0]], merges: [] });
   });
 
   test('keeps the kind of each cell: empty, text, number, boolean, error, date', async () => {
@@ -95,7 +96,7 @@ describe('reading', () => {
 
   test('reads only the A1 range asked for', async () => {
     const { host } = setup({ S: { rows: [[1, 2, 3], [4, 5, 6], [7, 8, 9]] } });
-    expect(await host.readGrid('S', 'B2:C3')).toEqual({ sheet: 'S', origin: 'B2', cells: [[5, 6], [8, 9]] });
+    expect(await host.readGrid('S', 'B2:C3')).toEqual({ sheet: 'S', origin: 'B2', cells: [[5, 6], [8, 9]], merges: [] });
   });
 
   test('an empty sheet reads as an empty grid', async () => {
@@ -317,5 +318,81 @@ describe('cells and blocks', () => {
     const failure = await host.readGrid('Missing', 'A1').catch((e: unknown) => e);
     expect(failure).toBeInstanceOf(ExcelHostError);
     expect(failure).toMatchObject({ code: 'ItemNotFound' });
+  });
+});
+
+describe('merged cells', () => {
+  /** A role row whose 'input' is merged over A1:B1; C1 is blank and not merged. Invented data. */
+  const PRESS: SeedCell[][] = [
+    ['input', null, null, 'output'],
+    ['Guard closed', 'Two-hand OK', 'Lamp test', 'Stroke permit'],
+    [1, 1, 0, 1],
+    [0, '-', 0, 0],
+    [1, 0, 0, 0],
+  ];
+  const pressed = (excelApi: string) => {
+    const { double, host } = setup({ Press: { rows: PRESS } });
+    double.sheet('Press')!.merges.push('A1:B1');
+    double.excelApi = excelApi;
+    return { double, host };
+  };
+
+  test('with ExcelApi 1.13 the merged areas of the range read are in the grid, and the reader takes them', async () => {
+    const grid = await pressed('1.13').host.readGrid('Press');
+    expect(grid.merges).toEqual(['A1:B1']);
+    expect(grid.readProblems).toBeUndefined();
+    const read = readSpecTables(grid, { xReading: 'none' });
+    // The merged 'input' covers A and B only: column C, blank in the role row, is no input, and says so.
+    expect(read.tables[0]!.inputs.map((s) => s.header)).toEqual(['Guard closed', 'Two-hand OK']);
+    expect(read.tables[0]!.problems.map((p) => [p.code, p.cell])).toEqual([['no-role', 'C2']]);
+  });
+
+  test('without ExcelApi 1.13 the grid has no merges and says once, as info at the range, what was not read', async () => {
+    const { host } = pressed('1.9');
+    const grid = await host.readGrid('Press');
+    expect(grid.merges).toBeUndefined();
+    expect(grid.readProblems).toEqual([
+      {
+        severity: 'info',
+        code: 'merges-not-read',
+        sheet: 'Press',
+        cell: 'A1',
+        message: 'merged cells of sheet Press not read (this Excel lacks ExcelApi 1.13): a role word over merged cells is read as covering the blank cells on its right',
+      },
+    ]);
+    // As without merges: the blank C1 takes the role on its left.
+    const read = readSpecTables(grid, { xReading: 'none' });
+    expect(read.tables[0]!.inputs.map((s) => s.header)).toEqual(['Guard closed', 'Two-hand OK', 'Lamp test']);
+    expect(read.tables[0]!.problems.filter((p) => p.code === 'merges-not-read')).toHaveLength(1);
+  });
+
+  test('the double has no getMergedAreasOrNullObject below ExcelApi 1.13, as Office.js', async () => {
+    const { double } = pressed('1.12');
+    await double.run(async (context) => {
+      expect(() => context.workbook.worksheets.getItem('Press').getRange('A1:D5').getMergedAreasOrNullObject()).toThrow(expect.objectContaining({ code: 'ApiNotFound' }));
+    });
+  });
+
+  test('a range read keeps the merged areas whose top-left cell is in it; none is an empty list', async () => {
+    const { host, double } = pressed('1.13');
+    double.sheet('Press')!.merges.push('C2:D2');
+    expect((await host.readGrid('Press', 'B1:D5')).merges).toEqual(['C2:D2']);
+    expect((await host.readGrid('Press', 'A3:D5')).merges).toEqual([]);
+  });
+
+  test('more merged areas than Excel returns (512) is an info problem with Excel\'s reason; the cells are still read', async () => {
+    const { host, double } = pressed('1.13');
+    const merges = double.sheet('Press')!.merges;
+    for (let r = 10; r < 10 + 513; r++) merges.push(`A${r}:B${r}`);
+    double.sheet('Press')!.cells.set(`${9 + 513},0`, { value: 'x', numberFormat: 'General', format: {} });
+    const grid = await host.readGrid('Press');
+    expect(grid.cells[0]).toEqual(['input', null, null, 'output']);
+    expect(grid.readProblems?.map((p) => [p.code, p.severity])).toEqual([['merges-not-read', 'info']]);
+    expect(grid.readProblems?.[0]!.message).toContain('more than 512 merged areas');
+  });
+
+  test('merged areas are split at commas outside quoted sheet names', () => {
+    expect(areaAddresses('Press!A1:B1,Press!D1:E1')).toEqual(['A1:B1', 'D1:E1']);
+    expect(areaAddresses("'It''s, here'!$A$1:$B$1, 'It''s, here'!D1:E1")).toEqual(['A1:B1', 'D1:E1']);
   });
 });
