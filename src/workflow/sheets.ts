@@ -23,9 +23,11 @@ export function sheetsToWrite(wb: Workbook): SheetBlock[] {
 }
 
 /**
- * Each block to a new sheet of the host, in order; what was written where. The names are
- * chosen first, free in the workbook and among the blocks, so that a formula naming another
- * block's sheet (`SheetBlock.refersTo`) names the sheet that block gets.
+ * Each block to a new sheet of the host; what was written where, in the order written. The
+ * names are chosen first, free in the workbook and among the blocks, so that a formula naming
+ * another block's sheet (`SheetBlock.refersTo`) names the sheet that block gets; and a block
+ * named is written before the block naming it, as Excel binds a reference to a sheet only when
+ * that sheet exists (one to a missing sheet would stay a link to a file of that name).
  */
 export async function writeSheets(host: Pick<WorkbookHost, 'writeSheet' | 'listSheets' | 'queuedSheets'>, blocks: readonly SheetBlock[]): Promise<WriteReport[]> {
   const taken = [...(await host.listSheets()), ...(host.queuedSheets?.() ?? [])];
@@ -34,17 +36,19 @@ export async function writeSheets(host: Pick<WorkbookHost, 'writeSheet' | 'listS
     taken.push(name);
     return name;
   });
-  const reports: WriteReport[] = [];
-  for (const [i, block] of blocks.entries()) {
+  const written: WriteReport[] = [];
+  const byBlock = new Map<number, WriteReport>();
+  const write = async (i: number): Promise<WriteReport> => {
+    const done = byBlock.get(i);
+    if (done) return done;
+    const block = blocks[i]!;
     let named: SheetBlock = { ...block, name: names[i]! };
-    for (const d of block.refersTo ?? []) named = renameSheetRefs(named, blocks[i + d]!.name, names[i + d]!);
-    reports.push(await host.writeSheet(named));
-  }
-  // A sheet added by someone else meanwhile may have taken a chosen name: say which formulas now miss.
-  return reports.map((r, i) => {
-    const missed = (blocks[i]!.refersTo ?? []).filter((d) => reports[i + d]!.sheet !== names[i + d]);
-    if (missed.length === 0) return r;
-    const notes = missed.map((d) => `the formulas naming sheet ${names[i + d]} miss it: it was written as ${reports[i + d]!.sheet}`);
-    return { ...r, notApplied: [...(r.notApplied ?? []), ...notes] };
-  });
+    for (const d of block.refersTo ?? []) named = renameSheetRefs(named, blocks[i + d]!.name, (await write(i + d)).sheet);
+    const report = await host.writeSheet(named);
+    byBlock.set(i, report);
+    written.push(report);
+    return report;
+  };
+  for (const i of blocks.keys()) await write(i);
+  return written;
 }

@@ -263,13 +263,16 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
       Object.entries(book.Sheets[name]!)
         .filter(([k]) => !k.startsWith('!'))
         .map(([, c]) => String((c as XLSX.CellObject).v ?? ''));
-    const first = text(added[0]!);
+    // The live check is written before the results sheet that counts its DIFFERS.
+    const resultsName = added.find((n) => n.endsWith(' results'))!;
+    const liveName = added.find((n) => n.endsWith(' live check'))!;
+    const first = text(resultsName);
     expect(first.includes(CAUTION_LINES[0]!), 'the caution is on the results sheet');
     expect(first.some((v) => v.includes(spindle[0]!.outputs[0]!.andOr.text)), 'the AND/OR form is on the results sheet');
-    const formulas = Object.values(book.Sheets[added[1]!]!).filter((c) => typeof c === 'object' && c !== null && 'f' in c).length;
+    const formulas = Object.values(book.Sheets[liveName]!).filter((c) => typeof c === 'object' && c !== null && 'f' in c).length;
     expect(formulas > 0, 'the live check sheet has live formulas');
-    const summary = Object.values(book.Sheets[added[0]!]!).find((c) => typeof c === 'object' && c !== null && String((c as XLSX.CellObject).f ?? '').startsWith('COUNTIF('));
-    expect(String((summary as XLSX.CellObject | undefined)?.f).startsWith(`COUNTIF('${added[1]!.replace(/'/g, "''")}'!`), `the results sheet's summary counts on ${added[1]}`);
+    const summary = Object.values(book.Sheets[resultsName]!).find((c) => typeof c === 'object' && c !== null && String((c as XLSX.CellObject).f ?? '').startsWith('COUNTIF('));
+    expect(String((summary as XLSX.CellObject | undefined)?.f).startsWith(`COUNTIF('${liveName.replace(/'/g, "''")}'!`), `the results sheet's summary counts on ${liveName}`);
     const userCells = (s: XLSX.WorkSheet) => XLSX.utils.sheet_to_json(s, { header: 1, raw: true, defval: null });
     same(userCells(book.Sheets['Spindle']!), userCells(source.Sheets['Spindle']!), 'the Spindle sheet is unchanged');
     // The check sheet written earlier, cell for cell as the engine builds it in Node.

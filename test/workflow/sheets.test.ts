@@ -21,30 +21,36 @@ async function blocksOf(host: RowsHost, sheet = 'Vote'): Promise<SheetBlock[]> {
   return sheetsToWrite(examine(tables.value, { source: GOOD.file }));
 }
 
-const summaryOf = (block: SheetBlock) => block.rows.find((r) => r[0]?.value === 'Combinations that differ (live check)')![1]!;
+/** The summary cell of the results sheet among the blocks a host was given. */
+const summaryOf = (written: readonly SheetBlock[]) => written.find((b) => b.name.endsWith(' results'))!.rows.find((r) => r[0]?.value === 'Combinations that differ (live check)')![1]!;
 
 describe('writing the sheets of a run', () => {
   it('names the sheets as asked when the names are free, and the summary names the live check sheet', async () => {
     const host = new RowsHost(GOOD);
     const reports = await writeSheets(host, await blocksOf(host));
-    expect(reports.map((r) => r.sheet)).toEqual(['Vote results', 'Vote live check', 'Vote record']);
-    expect(summaryOf(host.written[0]!).formula).toMatch(/^COUNTIF\('Vote live check'!I7:I14,"DIFFERS"\)$/);
+    expect(reports.map((r) => r.sheet)).toEqual(['Vote live check', 'Vote results', 'Vote record']);
+    expect(summaryOf(host.written).formula).toMatch(/^COUNTIF\('Vote live check'!I7:I14,"DIFFERS"\)$/);
+  });
+
+  it('writes the live check before the results sheet that names it, so Excel finds the sheet when it takes the formula', async () => {
+    const host = new RowsHost(GOOD);
+    await writeSheets(host, await blocksOf(host));
+    expect(host.written.map((b) => b.name)).toEqual(['Vote live check', 'Vote results', 'Vote record']);
   });
 
   it("never takes a user's sheet name: a taken live check name gets a suffix, and the summary follows it", async () => {
     const book = { ...GOOD, sheets: { ...GOOD.sheets, 'vote LIVE check': [['mine']] } };
     const host = new RowsHost(book);
     const reports = await writeSheets(host, await blocksOf(host));
-    expect(reports.map((r) => r.sheet)).toEqual(['Vote results', 'Vote live check (2)', 'Vote record']);
-    expect(summaryOf(host.written[0]!).formula).toMatch(/^COUNTIF\('Vote live check \(2\)'!I7:I14,"DIFFERS"\)$/);
-    expect(reports.every((r) => r.notApplied === undefined)).toBe(true);
+    expect(reports.map((r) => r.sheet)).toEqual(['Vote live check (2)', 'Vote results', 'Vote record']);
+    expect(summaryOf(host.written).formula).toMatch(/^COUNTIF\('Vote live check \(2\)'!I7:I14,"DIFFERS"\)$/);
   });
 
   it('a sheet name with a quote is quoted with the quote doubled in the summary', async () => {
     const book = { ...GOOD, sheets: { "Op's vote": GOOD.sheets.Vote! } };
     const host = new RowsHost(book);
     await writeSheets(host, await blocksOf(host, "Op's vote"));
-    expect(summaryOf(host.written[0]!).formula).toMatch(/^COUNTIF\('Op''s vote live check'!I7:I14,"DIFFERS"\)$/);
+    expect(summaryOf(host.written).formula).toMatch(/^COUNTIF\('Op''s vote live check'!I7:I14,"DIFFERS"\)$/);
   });
 
   it('in Excel (ExcelApi 1.7 and later) the record and the live check are frozen at their column titles; the results sheet is not', async () => {
@@ -53,7 +59,8 @@ describe('writing the sheets of a run', () => {
     const host = createExcelHost(double.run, double.supports);
     const blocks = await blocksOf(new RowsHost(GOOD));
     const reports = await writeSheets(host, blocks);
-    const frozen = reports.map((r) => double.sheet(r.sheet)!.frozenRows);
+    expect(reports.map((r) => r.sheet).sort()).toEqual(blocks.map((b) => b.name).sort());
+    const frozen = blocks.map((b) => double.sheet(b.name)!.frozenRows);
     const titleRows = blocks.map((b) => b.rows.findIndex((r) => r[0]?.value === '#' || r[0]?.value === 'Step') + 1);
     expect(frozen).toEqual([0, titleRows[1], titleRows[2]]);
     expect(titleRows[1]).toBeGreaterThan(0);
