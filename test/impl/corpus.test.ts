@@ -124,9 +124,10 @@ async function verify(p: CorpusProgram): Promise<{ code: number; outputs: readon
 }
 
 /**
- * Unsafe and spurious-trip counts of one output. Classified here from its counterexamples
- * (all of them: the test checks that none was left unlisted): unsafe where the spec asks the
- * safe value and the program does not give it, a spurious trip the other way.
+ * Unsafe and spurious-trip counts of one output, classified here from its counterexamples
+ * (all of them: `observed` checks that none was left unlisted): unsafe where the spec asks the
+ * safe value and the program does not give it, a spurious trip the other way. The one place to
+ * change once verify reports these counts itself: return the engine's figures here.
  */
 function tripCounts(o: OutputJson): { unsafe: number; spurious: number } {
   const unsafe = o.counterexamples.filter((c) => c.expected === o.gaps.safe).length;
