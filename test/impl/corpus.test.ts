@@ -69,10 +69,17 @@ const PROGRAMS: readonly CorpusProgram[] = [
     outputs: { Auto_permit: differs(['1101', '1111'], 2, 0), Gate_unlock_permit: differs(['0001', '1001'], 2, 0) },
   },
   { file: 'robot-cell-case.st', style: 'ST program', spec: ROBOT, outputs: { Auto_permit: unchecked(['control-flow', 27]), Gate_unlock_permit: EQUAL } },
+  { file: 'robot-cell-ld-latch.xml', style: 'LD', spec: ROBOT, outputs: { Auto_permit: unchecked(['seal-in', 76]), Gate_unlock_permit: EQUAL } },
   { file: 'pump-p12-st-body.xml', style: 'PLCopen ST', spec: PUMP, outputs: { Pump_run: EQUAL, Dry_run_alarm: EQUAL } },
   { file: 'pump-p12-both.st', style: 'ST program', spec: PUMP, outputs: { Pump_run: differs(['10111', '11110'], 1, 1), Dry_run_alarm: EQUAL } },
   { file: 'pump-p12-sel.st', style: 'ST program', spec: PUMP, outputs: { Pump_run: unchecked(['function-call', 28]), Dry_run_alarm: EQUAL } },
   { file: 'pump-p12-ld.xml', style: 'LD', spec: PUMP, outputs: { Pump_run: differs(['10101', '11110'], 2, 0), Dry_run_alarm: EQUAL } },
+  {
+    file: 'pump-p12-defaults.st',
+    style: 'ST function block',
+    spec: PUMP,
+    outputs: { Pump_run: EQUAL, Dry_run_alarm: differs(['00001', '00101', '01010', '01110'], 4, 0) },
+  },
   { file: 'hoist-h2-fbd.xml', style: 'FBD', spec: HOIST, outputs: { Hoist_up_permit: EQUAL, Hoist_down_permit: EQUAL, Brake_set: EQUAL } },
   {
     file: 'hoist-h2-wrong.st',
