@@ -8,8 +8,8 @@ import type { TableAnalysis } from './analysis-types.js';
 import { tooLarge, wideBuilt } from './read-wide.js';
 import { POLICY_WORDS } from './analyse.js';
 import { settingName } from './settings.js';
-import type { DontCarePolicy, Problem, ProblemCode, SpecTable } from './types.js';
-import type { WideOutputAnalysis, WideSpec } from './wide-types.js';
+import type { DontCarePolicy, Problem, ProblemCode, SpecTable, WideSpec } from './types.js';
+import type { WideOutputAnalysis } from './wide-types.js';
 
 /** Disjoint gap cubes listed in an analysis (the count is complete). */
 export const WIDE_GAP_CUBES_LISTED = 1000;

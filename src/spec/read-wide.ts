@@ -5,8 +5,7 @@ import type { OutputValue, SafeValue } from '../logic/boolfn.js';
 import type { Signal } from '../logic/signals.js';
 import { buildWide, overlapCube, type WideBuilt } from '../logic/wide-fn.js';
 import { inputBit, widePattern, wideCube, type WideCube } from '../logic/wide-cube.js';
-import type { Problem, ProblemCode, Severity, SpecRow } from './types.js';
-import type { WideSpec } from './wide-types.js';
+import type { Problem, ProblemCode, Severity, SpecRow, WideSpec } from './types.js';
 
 /** How many gap cubes a gap warning names. */
 const GAP_CUBES_SHOWN = 8;

@@ -2,7 +2,7 @@
 import type { BuiltFunction, OutputValue, SafeValue } from '../logic/boolfn.js';
 import type { Cube } from '../logic/cube.js';
 import type { Signal } from '../logic/signals.js';
-import type { WideSpec } from './wide-types.js';
+import type { WideCube } from '../logic/wide-cube.js';
 
 /** One cell as a host reads it. Dates keep their serial number; errors keep their text (#N/A). */
 export type CellValue = null | number | boolean | string | { readonly error: string } | { readonly date: number };
@@ -148,4 +148,14 @@ export interface SpecTable {
   readonly problems: readonly Problem[];
   /** Only in a table of more than 24 inputs: its rows' cubes and outputs, for the symbolic engine (`outputs` is empty). */
   readonly wide?: WideSpec;
+}
+
+/** What a spec table of more than 24 inputs carries for the symbolic engine. Plain data (BigInt included). */
+export interface WideSpec {
+  /** Each data row's input cube (same order as `SpecTable.rows`). */
+  readonly cubes: readonly WideCube[];
+  /** The outputs with their safe values (`SpecTable.outputs` is empty for such a table). */
+  readonly outputs: readonly { readonly signal: Signal; readonly safe: SafeValue }[];
+  /** Set when reading found the table too large for the symbolic engine (an error at the table says so). */
+  readonly tooLarge?: string;
 }

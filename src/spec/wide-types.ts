@@ -1,18 +1,9 @@
-// What a spec table of more than 24 inputs carries for the symbolic engine, and what its
-// analysis gives. Plain data (BigInt included), so that it crosses a worker boundary.
+// What the analysis of a spec table of more than 24 inputs gives (what such a table carries is
+// `WideSpec` in types.ts). Plain data (BigInt included), so that it crosses a worker boundary.
 import type { SafeValue } from '../logic/boolfn.js';
 import type { Signal } from '../logic/signals.js';
 import type { WideOutputForms } from '../logic/wide-analysis.js';
 import type { WideCombination, WideCube } from '../logic/wide-cube.js';
-
-export interface WideSpec {
-  /** Each data row's input cube (same order as `SpecTable.rows`). */
-  readonly cubes: readonly WideCube[];
-  /** The outputs with their safe values (`SpecTable.outputs` is empty for such a table). */
-  readonly outputs: readonly { readonly signal: Signal; readonly safe: SafeValue }[];
-  /** Set when reading found the table too large for the symbolic engine (an error at the table says so). */
-  readonly tooLarge?: string;
-}
 
 export interface WideConflictReport {
   readonly rowCellsA: string;
