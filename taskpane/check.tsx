@@ -228,10 +228,9 @@ interface MappingChoice {
 function OutputLine({ o }: { o: OutputVerdict }) {
   return (
     <li class={`verdict-line ${o.status}${o.unsafeCount > 0 ? ' has-unsafe' : ''}`} data-output={o.output.identifier}>
-      <strong>{o.output.identifier}</strong>: {implementationWord(o)}
+      <strong>{o.output.identifier}</strong>: {o.status === 'not-found' ? 'NOT FOUND' : implementationWord(o)}
       {o.status === 'differs' ? ` on ${count(o.mismatchCount)} of ${count(o.combinations)} combinations` : ''}
       {o.variable ? ` (${o.variable})` : ''}
-      {o.status === 'not-found' ? ' (not found)' : ''}
       {(o.status === 'unchecked' || o.status === 'not-found') && o.reasons[0] ? `: ${o.reasons[0]}` : ''}
       {o.status === 'differs' && (
         <>

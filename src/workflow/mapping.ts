@@ -24,7 +24,7 @@ export function readMappings(sources: readonly MappingSource[]): Result<NameMapp
   for (const source of sources) {
     const m = source.kind === 'file' ? readMappingCsv(source.fileName, source.text) : readMappingGrid(source.grid);
     if (!m.ok) return m;
-    read.push(m.value);
+    read.push(source.kind === 'sheet' ? { ...m.value, source: `sheet ${m.value.source}` } : m.value);
   }
   if (read.length <= 1) return ok(read[0]);
   const bySpec = new Map<string, NamePair>();

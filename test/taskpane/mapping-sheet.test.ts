@@ -63,12 +63,12 @@ describe('the pane checks a program through a mapping sheet', () => {
     const answer = verify([await readMappingSheet(host, 'Map')]);
     if (!answer.ok) throw new Error(answer.error.message);
     const [o] = answer.value.report.outputs;
-    expect(answer.value.report.mapping).toBe('Map');
+    expect(answer.value.report.mapping).toBe('sheet Map');
     expect([o!.status, o!.variable, o!.unsafeCount, o!.spuriousTripCount]).toEqual(['differs', 'Cell.Q_Run', 1, 0]);
     expect(o!.unsafeWhen?.sentence).toBe('unsafe exactly when Guard_closed = 0 AND Start_pressed = 1');
     expect(answer.value.report.unusedMapping).toEqual([]);
     // The check sheet names the mapping too.
-    expect(answer.value.sheet.rows.map((r) => r.map((c) => c?.value))).toContainEqual(['Names mapped by', 'Map']);
+    expect(answer.value.sheet.rows.map((r) => r.map((c) => c?.value))).toContainEqual(['Names mapped by', 'sheet Map']);
   });
 
   it('a problem in the mapping sheet is an error at its cell', async () => {
