@@ -1,7 +1,8 @@
 // The implementation check as the CLI prints it: plain text with the caution, or JSON data.
-import { inputValues } from '../logic/index.js';
+import { inputValues, LISTED } from '../logic/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import { kindWord, verifyExitCode, type OutputVerdict, type VerifyReport } from '../impl/index.js';
+import { plural } from './text.js';
 
 /** The report as plain JSON data (for `verify --json`), with the caution and the exit status. */
 export function verifyReportJson(report: VerifyReport): unknown {
@@ -19,6 +20,10 @@ export function verifyReportJson(report: VerifyReport): unknown {
       ...(o.variable ? { variable: o.variable, line: o.line } : {}),
       combinations: o.combinations,
       mismatchCount: o.mismatchCount,
+      unsafeCount: o.unsafeCount,
+      spuriousTripCount: o.spuriousTripCount,
+      ...(o.unsafeWhen ? { unsafeWhen: o.unsafeWhen } : {}),
+      ...(o.spuriousTripWhen ? { spuriousTripWhen: o.spuriousTripWhen } : {}),
       counterexamples: o.counterexamples,
       differenceMonomials: o.differenceMonomials,
       differenceMonomialCount: o.differenceMonomialCount,
@@ -73,9 +78,15 @@ export function verifyReportText(report: VerifyReport): string {
   lines.push(
     '',
     `Result: ${tally('equal')} equal, ${tally('differs')} differ, ${tally('unchecked')} unchecked, ${tally('not-found')} not found` +
-      ` of ${report.outputs.length} outputs.`,
+      ` of ${report.outputs.length} outputs` +
+      (tally('differs') > 0 ? `; ${sideCountsText(sideTotals(report.outputs))} in all.` : '.'),
   );
   return lines.join('\n') + '\n';
+}
+
+/** Both sides added up over the outputs. */
+export function sideTotals(outputs: readonly OutputVerdict[]): Pick<OutputVerdict, 'unsafeCount' | 'spuriousTripCount'> {
+  return { unsafeCount: outputs.reduce((t, o) => t + o.unsafeCount, 0), spuriousTripCount: outputs.reduce((t, o) => t + o.spuriousTripCount, 0) };
 }
 
 /** "equal on all N combinations" only when all N were judged. */
@@ -91,17 +102,30 @@ function sourceText(c: OutputVerdict['counterexamples'][number], safe: 0 | 1): s
   return c.specRow ? `${c.specRow.cells} (output cell ${c.specRow.outputCell})` : '-';
 }
 
+/** How many of each side, unsafe first: "2 unsafe, 1 spurious trip". */
+export function sideCountsText(o: Pick<OutputVerdict, 'unsafeCount' | 'spuriousTripCount'>): string {
+  return `${plural(o.unsafeCount, 'unsafe combination')}, ${plural(o.spuriousTripCount, 'spurious trip')}`;
+}
+
+/** Where a counterexample stands: `!!` marks the unsafe ones (the dangerous direction), as compare marks "now permits". */
+const KIND_MARK = { unsafe: '!! ', 'spurious-trip': '   ' } as const;
+const KIND_WORD = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' } as const;
+
 function differences(report: VerifyReport, o: OutputVerdict): string[] {
   const inputs = report.inputs[o.table] ?? [];
-  const out = [`  differs on ${o.mismatchCount} of ${o.combinations} combinations${o.mismatchCount > o.counterexamples.length ? ` (first ${o.counterexamples.length} shown)` : ''}:`];
-  out.push(`    ${inputs.map((s) => s.identifier).join(' ')} | spec impl | spec row`);
+  const cut = o.mismatchCount > o.counterexamples.length ? ` (the first ${LISTED} of each shown)` : '';
+  const out = [`  differs on ${o.mismatchCount} of ${o.combinations} combinations (safe value ${o.gaps.safe}): ${sideCountsText(o)}${cut}`];
+  if (o.unsafeWhen) out.push(`  ${KIND_MARK.unsafe}${o.unsafeWhen.sentence}`);
+  if (o.spuriousTripWhen) out.push(`  ${KIND_MARK['spurious-trip']}${o.spuriousTripWhen.sentence}`);
+  const width = KIND_WORD['spurious-trip'].length;
+  out.push(`     ${'kind'.padEnd(width)} ${inputs.map((s) => s.identifier).join(' ')} | spec impl | spec row`);
   for (const c of o.counterexamples) {
     const cells = c.inputs.map((v, i) => String(v).padStart(inputs[i]?.identifier.length ?? 1)).join(' ');
     const row = sourceText(c, o.gaps.safe);
-    out.push(`    ${cells} | ${String(c.expected).padStart(4)} ${String(c.actual).padStart(4)} | ${row}`);
+    out.push(`  ${KIND_MARK[c.kind]}${KIND_WORD[c.kind].padEnd(width)} ${cells} | ${String(c.expected).padStart(4)} ${String(c.actual).padStart(4)} | ${row}`);
   }
   const more = o.differenceMonomialCount > o.differenceMonomials.length ? ` (first ${o.differenceMonomials.length} of ${o.differenceMonomialCount})` : '';
-  out.push(`  the two differ by the XOR of these ANF monomials${more}:`);
+  out.push(`  detail: spec and program differ by the XOR of these ANF monomials${more}:`);
   for (const m of o.differenceMonomials) out.push(`    ${m}`);
   return out;
 }
