@@ -3,9 +3,10 @@
 // policy. One card per table read, remembered per table (its sheet and top-left cell, or the
 // Excel table's name); before any table is found, one card for the reading target (the sheet,
 // selection or range read). Remembered with the workbook in Excel (its document settings),
-// while the page stays open on the standalone page. The labels are the words src/spec/settings.ts quotes in problems: keep them together.
+// while the page stays open on the standalone page. The labels are the words
+// src/table/settings.ts quotes in problems: keep them together.
 import { useState } from 'preact/hooks';
-import type { DontCarePolicy } from '../src/spec/types.js';
+import type { DontCarePolicy } from '../src/table/index.js';
 import type { TableView } from '../src/workflow/index.js';
 import { DEFAULT_SETTINGS, type TableSettings } from './table-settings.js';
 

@@ -3,9 +3,8 @@
 // it was remembered (the workbook's document settings may hold anything). A table's own
 // settings are remembered under its sheet and top-left cell (or its name, for an Excel table),
 // so two tables side by side on one sheet keep theirs apart.
-import type { RememberedValues } from '../src/hosts/excel-settings.js';
-import { qualifiedAddress } from '../src/spec/grid.js';
-import type { DontCarePolicy, HostKind, SpecOptions } from '../src/spec/types.js';
+import type { RememberedValues } from '../src/hosts/index.js';
+import { qualifiedAddress, type DontCarePolicy, type HostKind, type SpecOptions } from '../src/table/index.js';
 import { tableCell, type TableChoice } from '../src/workflow/index.js';
 
 export interface TableSettings {

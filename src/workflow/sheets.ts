@@ -1,12 +1,8 @@
 // The sheets a run writes, the same set in every host: per table its results sheet (a
 // not-analysed sheet for a table with errors) and its live check (up to 12 inputs), and the
 // commissioning test record of each cleared table; none for a table of more than 24 inputs.
-import type { WorkbookHost, WriteReport } from '../hosts/workbook-host.js';
-import { notAnalysedSheet } from '../report/not-analysed-sheet.js';
-import { resultsSheets } from '../report/results-sheet.js';
-import { renameSheetRefs, type SheetBlock } from '../report/sheet-block.js';
-import { freeSheetName } from '../hosts/xlsx-write.js';
-import { testRecordSheet } from '../report/test-steps.js';
+import { freeSheetName, type WorkbookHost, type WriteReport } from '../hosts/index.js';
+import { notAnalysedSheet, renameSheetRefs, resultsSheets, testRecordSheet, type SheetBlock } from '../report/index.js';
 import { wideLimit, type TableResult, type Workbook } from './examine.js';
 import { cleared, verdictWords } from './verdict.js';
 

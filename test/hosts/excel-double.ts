@@ -9,7 +9,7 @@
 //   getMergedAreasOrNullObject 1.13) throw ApiNotFound;
 // - merged areas are those whose top-left cell is in the range, and more than 512 fail the sync.
 // Formulas are stored, not calculated. Error codes and messages follow office-js dist (excel-web-16.00.js).
-import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/spec/grid.js';
+import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/table/grid.js';
 import type { XlContext, XlPageLayout, XlRangeFormat, XlRun, XlSupports, XlValue } from '../../src/hosts/excel-api.js';
 
 export const LIMIT = 5 * 1024 * 1024;

@@ -3,7 +3,7 @@
 import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { areaAddresses, createExcelHost, ExcelHostError } from '../../src/hosts/excel-host.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { cellFromExcel, isDateFormat, rowBlocks } from '../../src/hosts/excel-cells.js';
 import type { BlockCell, SheetBlock } from '../../src/report/sheet-block.js';
 import { column, DoubleError, ExcelDouble, LIMIT, type SeedCell } from './excel-double.js';

@@ -5,7 +5,7 @@
 // AND/OR/XOR take logical values, numbers (0 = FALSE) and ignore text in referenced cells;
 // `--` turns TRUE/FALSE and numeric text into numbers; a blank cell is 0. A reference may name
 // another sheet ('Sheet name'!A1:A9), found among the blocks of `book` by name.
-import { parseA1, parseRange } from '../../src/spec/grid.js';
+import { parseA1, parseRange } from '../../src/table/grid.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
 
 export type Value = number | string | boolean;
