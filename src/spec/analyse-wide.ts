@@ -1,7 +1,10 @@
 // A spec table of more than 24 inputs (up to 64) analysed by the symbolic engine: per output
 // its forms, each proven on every combination from BDDs, and the same problems as analyse.ts.
-import { DdTooLarge } from '../logic/bdd.js';
-import { analyseWideOutput, type WideOutputForms } from '../logic/wide-analysis.js';
+import { DdTooLarge, type Dd, type Node } from '../logic/bdd.js';
+import { analyseWideOutput, wideResolved, type WideOutputForms } from '../logic/wide-analysis.js';
+import type { WideBuilt } from '../logic/wide-fn.js';
+import { exprToBdd } from '../logic/wide-proof.js';
+import { wideUniqueCauseSteps } from '../logic/wide-steps.js';
 import { combinationPattern, toWide } from '../logic/wide-cube.js';
 import type { AnalyseOptions } from './analyse.js';
 import type { TableAnalysis } from './analysis-types.js';
@@ -9,7 +12,7 @@ import { tooLarge, wideBuilt } from './read-wide.js';
 import { POLICY_WORDS } from './analyse.js';
 import { settingName } from './settings.js';
 import type { DontCarePolicy, Problem, ProblemCode, SpecTable } from './types.js';
-import type { WideOutputAnalysis, WideSpec } from './wide-types.js';
+import type { WideOutputAnalysis, WideSpec, WideStepFacts } from './wide-types.js';
 
 /** Disjoint gap cubes listed in an analysis (the count is complete). */
 export const WIDE_GAP_CUBES_LISTED = 1000;
@@ -20,7 +23,7 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   let done = 0;
   const progress = (what: string): void => options.onProgress?.(++done, total, what);
   const problems: Problem[] = [...table.problems];
-  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n } };
+  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n, stepFacts: [] } };
   // Reading has already said so at the table.
   if (wide.tooLarge !== undefined) return nothing;
   let made: ReturnType<typeof wideBuilt>;
@@ -36,6 +39,8 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   const gaps = dd.pathCubes(gapSet, WIDE_GAP_CUBES_LISTED).cubes;
   const gapCount = dd.satCount(gapSet);
   progress('gaps');
+  const resolvedOf: Node[] = [];
+  const builtOf: WideBuilt[] = [];
   const outputs = wide.outputs.flatMap((o, j): WideOutputAnalysis[] => {
     const b = built[j]!;
     const cell = table.headerCells[n + j]!;
@@ -48,17 +53,43 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
       progress(`${o.signal.header}: too large`);
       return [];
     }
+    // The one function every form equals, as the steps expect it.
+    const resolved = wideResolved(b.fn, o.safe, forms.dontCares, exprToBdd(dd, forms.andOr.expr));
+    resolvedOf.push(resolved);
+    builtOf.push(b);
     const analysed: WideOutputAnalysis = {
       ...forms,
       signal: o.signal,
       safe: o.safe,
       conflicts: conflictReports(table, b.conflicts),
+      steps: wideUniqueCauseSteps(dd, forms.andOr.cubes, resolved, table.inputs),
     };
     problems.push(...wideProblems(table, analysed, cell));
     progress(`${o.signal.header}: forms`);
     return [analysed];
   });
-  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount } };
+  const stepFacts = factsOf(dd, outputs, resolvedOf, builtOf, gapSet);
+  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount, stepFacts } };
+}
+
+/** Per combination of any output's steps: every output's expected value, gap, conflict and don't-care. */
+function factsOf(dd: Dd, outputs: readonly WideOutputAnalysis[], resolved: readonly Node[], built: readonly WideBuilt[], gapSet: Node): WideStepFacts[] {
+  const seen = new Set<bigint>();
+  const out: WideStepFacts[] = [];
+  for (const o of outputs)
+    for (const s of o.steps) {
+      const k = s.combination;
+      if (seen.has(k)) continue;
+      seen.add(k);
+      out.push({
+        combination: k,
+        expected: resolved.map((f) => (dd.evaluate(f, k) ? 1 : 0)),
+        gap: dd.evaluate(gapSet, k),
+        conflicted: built.map((b) => dd.evaluate(b.conflicted, k)),
+        dontCare: built.map((b) => dd.evaluate(b.fn.dc, k)),
+      });
+    }
+  return out;
 }
 
 /** The symbolic engine's options from the table's don't-care policy and the analysis options. */

@@ -4,6 +4,7 @@ import type { SafeValue } from '../logic/boolfn.js';
 import type { Signal } from '../logic/signals.js';
 import type { WideOutputForms } from '../logic/wide-analysis.js';
 import type { WideCombination, WideCube } from '../logic/wide-cube.js';
+import type { WideTestStep } from '../logic/wide-steps.js';
 
 export interface WideSpec {
   /** Each data row's input cube (same order as `SpecTable.rows`). */
@@ -26,6 +27,19 @@ export interface WideOutputAnalysis extends WideOutputForms {
   readonly signal: Signal;
   readonly safe: SafeValue;
   readonly conflicts: readonly WideConflictReport[];
+  /** The unique-cause test steps of its AND/OR form, expecting the resolved function. */
+  readonly steps: readonly WideTestStep[];
+}
+
+/** A test step's combination as the table has it, for every output analysed (the record's expected values and notes). */
+export interface WideStepFacts {
+  readonly combination: WideCombination;
+  /** Per output of `WideTableAnalysis.outputs`: the resolved function's value. */
+  readonly expected: readonly (0 | 1)[];
+  /** No row covers it. */
+  readonly gap: boolean;
+  readonly conflicted: readonly boolean[];
+  readonly dontCare: readonly boolean[];
 }
 
 export interface WideTableAnalysis {
@@ -34,4 +48,6 @@ export interface WideTableAnalysis {
   /** Combinations no row covers, as disjoint cubes (the first GAP_CUBES_LISTED). */
   readonly gaps: readonly WideCube[];
   readonly gapCount: bigint;
+  /** Every combination some output's steps use, in the order first used. */
+  readonly stepFacts: readonly WideStepFacts[];
 }

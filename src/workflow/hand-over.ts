@@ -6,6 +6,7 @@ import { ladderSvg } from '../report/ladder-svg.js';
 import { exportPlcopen } from '../report/plcopen-export.js';
 import { exportSt, type FormChoice } from '../report/st-export.js';
 import { stepsCsv } from '../report/test-steps.js';
+import { outputViews } from '../report/output-view.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
 import type { Workbook } from './examine.js';
 
@@ -49,7 +50,7 @@ export function handOverFiles(wb: Workbook, request: HandOverRequest): Result<Ha
 function ladderFiles(analyses: readonly TableAnalysis[]): HandOverFile[] {
   const used = new Set<string>();
   return analyses.flatMap((a) =>
-    a.outputs.map((o) => {
+    outputViews(a).map((o) => {
       const stem = `${a.table.sheet}-${o.signal.identifier}`.replace(/[^A-Za-z0-9_-]+/g, '_');
       let name = stem;
       for (let i = 2; used.has(name.toLowerCase()); i++) name = `${stem}-${i}`;
