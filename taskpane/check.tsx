@@ -12,7 +12,7 @@ import type { Answers } from './engine-protocol.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CombinationTable } from './results.js';
 
-const count = (n: number) => n.toLocaleString('en');
+const count = (n: number | bigint) => n.toLocaleString('en');
 
 /** Writes a new sheet and answers what it wrote and where (from app.tsx: Excel, or the results workbook). */
 export type WriteSheet = (block: SheetBlock) => Promise<string>;

@@ -1,12 +1,13 @@
 // The implementation check as the CLI prints it: plain text with the caution, or JSON data.
-import { inputValues } from '../logic/proof.js';
+import { combinationPattern, jsonCounts } from '../logic/wide-cube.js';
 import { CAUTION, CAUTION_LINES } from '../report/caution.js';
 import { kindWord } from './constructs.js';
 import { verifyExitCode, type OutputVerdict, type VerifyReport } from './verify.js';
 
 /** The report as plain JSON data (for `verify --json`), with the caution and the exit status. */
 export function verifyReportJson(report: VerifyReport): unknown {
-  return {
+  // Counts and combinations of a table over 24 inputs are BigInt: decimal strings past 2^53.
+  return jsonCounts({
     caution: CAUTION,
     file: report.file,
     ...(report.mapping ? { mapping: report.mapping } : {}),
@@ -34,7 +35,7 @@ export function verifyReportJson(report: VerifyReport): unknown {
     unusedMapping: report.unusedMapping,
     cannotJudge: report.cannotJudge,
     notes: report.notes,
-  };
+  });
 }
 
 const WORD: Readonly<Record<OutputVerdict['status'], string>> = {
@@ -82,7 +83,7 @@ export function verifyReportText(report: VerifyReport): string {
 /** "equal on all N combinations" only when all N were judged. */
 function equalLine(o: OutputVerdict): string {
   if (o.gaps.judged || o.gaps.count === 0) return `equal on all ${o.combinations} combinations`;
-  return `equal on the ${o.combinations - o.gaps.count} specified combinations; ${o.gaps.count} gap combinations not judged (--gaps-free)`;
+  return `equal on the ${BigInt(o.combinations) - BigInt(o.gaps.count)} specified combinations; ${o.gaps.count} gap combinations not judged (--gaps-free)`;
 }
 
 /** Where a counterexample's expected value comes from. */
@@ -109,12 +110,12 @@ function differences(report: VerifyReport, o: OutputVerdict): string[] {
 
 function openLines(o: OutputVerdict): string[] {
   const out: string[] = [];
-  const n = Math.log2(o.combinations);
+  const n = Math.log2(Number(o.combinations));
   if (o.dontCare.count > 0) out.push(`  don't-care: ${o.dontCare.count} combinations, the implementation turns ${o.dontCare.implementationOn} of them ON (not counted as differences)`);
   if (o.gaps.count > 0) {
     const judged = o.gaps.judged ? 'judged at the safe value: counted as differences' : 'not judged under --gaps-free, not counted as differences';
     out.push(`  gaps (no row covers them; safe value ${o.gaps.safe}): ${o.gaps.count} combinations, ${o.gaps.unsafe} of them not at the safe value in the implementation (${judged})`);
-    for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${inputValues(n, k).join(' ')}`);
+    for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${[...combinationPattern(n, BigInt(k))].join(' ')}`);
   }
   if (o.conflicted > 0) out.push(`  conflicts: ${o.conflicted} combinations the spec asks to be both 1 and 0 (judged at the safe value ${o.gaps.safe})`);
   return out;

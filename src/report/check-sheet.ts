@@ -158,7 +158,7 @@ function programView(report: VerifyReport): CheckView {
   const sections = report.outputs.map((v): Section => {
     const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
     if (v.status === 'equal' || v.status === 'differs') {
-      const n = Math.log2(v.combinations);
+      const n = Math.log2(Number(v.combinations));
       if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the implementation turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
       if (v.gaps.count > 0) {
         const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => k.toString(2).padStart(n, '0'));
