@@ -109,6 +109,18 @@ describe('a wide table whose AND/OR search does not finish', () => {
     expect(wb.tables[0]!.outputs.map((v) => v.kind)).toEqual(['heuristic']);
   });
 
+  it('says so with its proven lower bound in every hand-over file', () => {
+    const wb = examined(pairs(8), 0);
+    const { lowerBound } = wb.tables[0]!.analysis!.wide!.outputs[0]!.andOr;
+    const files = handOverFiles(wb, { kinds: ['st', 'plcopen', 'ladder'] });
+    if (!files.ok) throw new Error(files.error);
+    const bound = `heuristic (minimum not proven; proven lower bound ${lowerBound.terms} term`;
+    for (const f of files.value.filter((x) => x.kind !== 'ladder')) expect(f.text, f.name).toContain(bound);
+    const svg = files.value.find((x) => x.kind === 'ladder')!.text;
+    const words = [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]).join(' ');
+    expect(words).toContain(`(heuristic; proven lower bound ${lowerBound.terms} branch`);
+  });
+
   it('too large for the symbolic engine, its output is not analysed, with the error at its header cell', () => {
     const wb = examined(pairs(N), 0);
     const t = wb.tables[0]!;
