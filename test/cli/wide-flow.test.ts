@@ -112,6 +112,10 @@ describe.each(SHAPES)('$name through the command line', (shape) => {
     for (const r of steps) expect(r[1]).toMatch(new RegExp(`^T-[01]{${shape.n}}$`));
     const note = record.flat().map(String).find((c) => c.includes('the unique-cause selection of each AND/OR form'));
     expect(note).toMatch(new RegExp(`^${steps.length} steps for ${shape.n} inputs`));
+    // The record command reads the record back against the table: current, every step still to run.
+    const judged = await runCli('record', at('out.xlsx'), '--json');
+    const [r] = JSON.parse(judged.out).records;
+    expect(r).toMatchObject({ current: true, passed: 0, failed: 0, notRun: steps.length, problems: [] });
   });
 
   it('writes Structured Text and PLCopen XML that verify reads back EQUAL to the table', async () => {
