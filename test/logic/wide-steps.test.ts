@@ -10,6 +10,9 @@ import { uniqueCauseSteps } from '../../src/logic/steps.js';
 import { inputBit, toWide, wideCube } from '../../src/logic/wide-cube.js';
 import { wideStepBound, wideUniqueCauseSteps } from '../../src/logic/wide-steps.js';
 import { emptySet } from '../../src/logic/bits.js';
+import { analyseTable } from '../../src/spec/analyse.js';
+import { readSpecTables } from '../../src/spec/read-tables.js';
+import { permitTable } from '../../bench/wide.bench.js';
 
 const signals = (n: number) => Array.from({ length: n }, (_, i) => ({ header: `In ${i + 1}`, identifier: `In_${i + 1}` }));
 
@@ -69,6 +72,14 @@ describe('unique-cause steps on BDDs', () => {
     expect(steps[0]).toEqual({ combination: all, expected: 1, reason: expect.stringMatching(/^term 1 alone: In_1 AND In_2 AND/) });
     expect(steps.slice(1).map((s) => s.combination)).toEqual(Array.from({ length: n }, (_, i) => all ^ inputBit(n, i)));
     expect(steps.slice(1).every((s) => s.expected === 0)).toBe(true);
+  });
+
+  it('give the 20-24 input symbolic analysis the steps the bit-set selection gives its function', () => {
+    for (const seed of [1, 2]) {
+      const [table] = readSpecTables({ sheet: 'S', origin: 'A1', cells: permitTable(20, seed) }).tables;
+      const [o] = analyseTable(table!, { engine: 'symbolic' }).outputs;
+      expect(o!.steps).toEqual(uniqueCauseSteps(o!.andOr.cubes, o!.resolved, table!.inputs));
+    }
   });
 
   it('a form that is FALSE gets one OFF step', () => {
