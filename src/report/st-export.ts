@@ -72,7 +72,7 @@ export function writtenForm(output: OutputView, form: FormChoice): { form: FormC
 }
 
 /** "proven minimum", or "heuristic" with the lower bound that was proven. */
-export function minimumWords(andOr: OutputView['andOr']): string {
+export function minimumWords(andOr: Pick<OutputView['andOr'], 'proven' | 'lowerBound'>): string {
   if (andOr.proven) return 'proven minimum';
   const b = andOr.lowerBound;
   return `heuristic (minimum not proven; proven lower bound ${plural(b.terms, 'term')}, and ${plural(b.literals, 'literal')} with that many terms)`;

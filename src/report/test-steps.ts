@@ -7,6 +7,7 @@ import { combinationPattern, type WideCombination } from '../logic/wide-cube.js'
 import { wideStepBound } from '../logic/wide-steps.js';
 import { plural } from './text.js';
 import { outputSignalsOf } from './output-view.js';
+import { minimumWords } from './st-export.js';
 import type { TableAnalysis } from '../spec/analysis-types.js';
 import { qualifiedAddress } from '../spec/grid.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
@@ -169,7 +170,7 @@ function stepSource(analysis: TableAnalysis): StepSource {
     const facts = new Map(wide.stepFacts.map((f) => [f.combination, f]));
     const steps = wide.stepFacts.length;
     const bound = wide.outputs.reduce((k, o) => k + wideStepBound(o.andOr.terms, o.andOr.literals), 0);
-    const forms = wide.outputs.map((o) => `${o.signal.identifier}: ${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}`).join('; ');
+    const forms = wide.outputs.map((o) => `${o.signal.identifier}: ${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}, ${minimumWords(o.andOr)}`).join('; ');
     return {
       outputs: wide.outputs.map((o) => ({ identifier: o.signal.identifier, header: o.signal.header, safe: o.safe, dontCares: o.dontCares, steps: o.steps })),
       factsAt: (k) => facts.get(BigInt(k))!,
@@ -179,7 +180,10 @@ function stepSource(analysis: TableAnalysis): StepSource {
     };
   }
   const specs = analysis.table.outputs;
+  // A record of a heuristic form says so with its lower bound, as every hand-over file does.
+  const heuristic = analysis.outputs.filter((o) => !o.andOr.proven).map((o) => `${o.signal.identifier}: AND/OR form ${minimumWords(o.andOr)}`);
   return {
+    ...(heuristic.length > 0 ? { note: `Steps of forms not proven minimal: ${heuristic.join('; ')}.` } : {}),
     outputs: analysis.outputs.map((o) => ({ identifier: o.signal.identifier, header: o.signal.header, safe: o.safe, dontCares: o.dontCares, steps: o.steps })),
     factsAt: (key) => {
       const k = Number(key);

@@ -112,7 +112,7 @@ describe('a wide table whose AND/OR search does not finish', () => {
   it('says so with its proven lower bound in every hand-over file', () => {
     const wb = examined(pairs(8), 0);
     const { lowerBound } = wb.tables[0]!.analysis!.wide!.outputs[0]!.andOr;
-    const files = handOverFiles(wb, { kinds: ['st', 'plcopen', 'ladder'] });
+    const files = handOverFiles(wb, { kinds: ['st', 'plcopen', 'steps', 'ladder'] });
     if (!files.ok) throw new Error(files.error);
     const bound = `heuristic (minimum not proven; proven lower bound ${lowerBound.terms} term`;
     for (const f of files.value.filter((x) => x.kind !== 'ladder')) expect(f.text, f.name).toContain(bound);
