@@ -20,7 +20,7 @@ import type { Answers } from './engine-protocol.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CombinationTable } from './results.js';
 
-const count = (n: number) => n.toLocaleString('en');
+const count = (n: number | bigint) => n.toLocaleString('en');
 
 /** Writes a new sheet and answers what it wrote and where (from app.tsx: Excel, or the results workbook). */
 export type WriteSheet = (block: SheetBlock) => Promise<string>;
@@ -87,14 +87,14 @@ function ParseError({ error, text }: { error: EngineError; text: string }) {
 }
 
 /** A count with its unit, the unsafe one marked when there is any. */
-function SideCounts({ unsafe, trips }: { unsafe: number; trips: number }) {
+function SideCounts({ unsafe, trips }: { unsafe: number | bigint; trips: number | bigint }) {
   return (
     <p class="side-counts">
       <span class={unsafe > 0 ? 'badge bad unsafe-count' : 'badge'}>
-        {count(unsafe)} unsafe combination{unsafe === 1 ? '' : 's'}
+        {count(unsafe)} unsafe combination{Number(unsafe) === 1 ? '' : 's'}
       </span>{' '}
       <span class="badge spurious-count">
-        {count(trips)} spurious trip{trips === 1 ? '' : 's'}
+        {count(trips)} spurious trip{Number(trips) === 1 ? '' : 's'}
       </span>
     </p>
   );

@@ -16,8 +16,8 @@ import {
   proveWide,
   toNarrow,
   union,
-  uniqueCauseSteps,
   wideResolved,
+  wideUniqueCauseSteps,
   type BitSet,
   type BoolFunction,
   type Node,
@@ -87,7 +87,8 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
       gapCount: count(gapSet),
       conflicts: conflictReports(table, output.built.conflicts),
       dontCareCount: count(spec.dc),
-      steps: uniqueCauseSteps(cubes, resolved, table.inputs),
+      // The same plan as uniqueCauseSteps on the same function (test/logic/wide-steps.test.ts), without the truth tables.
+      steps: wideUniqueCauseSteps(wide.dd, forms.andOr.cubes, on, table.inputs).map((s) => ({ ...s, combination: Number(s.combination) })),
     };
     problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));
     progress(`${output.signal.header}: forms`);

@@ -6,13 +6,13 @@
 // the minimal AND/OR form of its set ("unsafe exactly when Guard_closed = 0 AND Run = 1").
 import { complement, emptySet, intersect, isEmpty, members, minus, symmetricDifference, type BitSet, type Combination } from './bits.js';
 import type { BoolFunction, SafeValue } from './boolfn.js';
-import { Dd, DdTooLarge, FALSE } from './bdd.js';
+import { Dd, DdTooLarge, FALSE, type Node } from './bdd.js';
 import { cubeToSet, type Cube } from './cube.js';
 import { setToCubes } from './primes.js';
 import { minimiseSop } from './sop.js';
 import type { Signal } from './signals.js';
 import { minimiseWide } from './wide-sop.js';
-import { toNarrow, toWide } from './wide-cube.js';
+import { toNarrow, toWide, type WideCube } from './wide-cube.js';
 
 export type CounterexampleKind = 'unsafe' | 'spurious-trip';
 
@@ -47,10 +47,10 @@ export function listedSides(sides: DifferenceSides, limit: number): { combinatio
   ];
 }
 
-/** A side as an AND/OR form over the inputs. */
+/** A side as an AND/OR form over the inputs (wide cubes over 24 inputs). */
 export interface SideForm {
   /** Product terms in printed order; none = the side is empty. */
-  readonly cubes: readonly Cube[];
+  readonly cubes: readonly (Cube | WideCube)[];
   /** The minimiser proved no form has fewer terms (then literals). */
   readonly proven: boolean;
   /** The form also holds on some combinations that are not judged (don't-cares): it is exact on the judged ones only. */
@@ -95,18 +95,28 @@ function symbolicForm(n: number, side: BitSet, dc: BitSet, budgetMs: number): { 
 }
 
 /** A form as a condition on the inputs: "Guard_closed = 0 AND Run = 1", terms joined by OR. */
-export function conditionText(n: number, cubes: readonly Cube[], signals: readonly Pick<Signal, 'identifier'>[]): string {
+export function conditionText(n: number, cubes: readonly (Cube | WideCube)[], signals: readonly Pick<Signal, 'identifier'>[]): string {
   if (cubes.length === 0) return 'never';
-  const terms = cubes.map((c) => {
+  const terms = cubes.map((narrowOrWide) => {
+    const c = typeof narrowOrWide.mask === 'bigint' ? (narrowOrWide as WideCube) : toWide(narrowOrWide as Cube);
     const literals: string[] = [];
     for (let i = 0; i < n; i++) {
-      const bit = 1 << (n - 1 - i);
+      const bit = 1n << BigInt(n - 1 - i);
       if (c.mask & bit) literals.push(`${signals[i]?.identifier ?? `input ${i + 1}`} = ${c.bits & bit ? 1 : 0}`);
     }
     return literals;
   });
   if (terms.some((t) => t.length === 0)) return 'always';
   return terms.map((t) => (t.length > 1 && terms.length > 1 ? `(${t.join(' AND ')})` : t.join(' AND '))).join(' OR ');
+}
+
+/** A side of a wide check (BDDs over up to 64 inputs) as its minimal AND/OR form, as `sideForm`. */
+export function wideSideForm(dd: Dd, side: Node, unjudged: Node, budgetMs = SIDE_FORM_BUDGET_MS): SideForm {
+  if (side === FALSE) return { cubes: [], proven: true, coversUnjudged: false };
+  const dc = dd.minus(unjudged, side);
+  const form = minimiseWide({ dd, on: side, dc }, { budgetMs });
+  const covered = form.cubes.reduce((f, c) => dd.or(f, dd.cube(c)), FALSE);
+  return { cubes: form.cubes, proven: form.proven, coversUnjudged: dd.and(covered, dc) !== FALSE };
 }
 
 const SIDE_WORD: Readonly<Record<CounterexampleKind, string>> = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' };

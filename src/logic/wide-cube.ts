@@ -92,3 +92,11 @@ export function compareWidePrinted(n: number): (a: WideCube, b: WideCube) => num
 export function countJson(k: bigint): number | string {
   return k <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(k) : k.toString();
 }
+
+/** Plain data with every BigInt inside it (arrays and plain objects, any depth) made `countJson`. */
+export function jsonCounts<T>(value: T): unknown {
+  if (typeof value === 'bigint') return countJson(value);
+  if (Array.isArray(value)) return value.map(jsonCounts);
+  if (value !== null && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, jsonCounts(v)]));
+  return value;
+}

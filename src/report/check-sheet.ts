@@ -90,8 +90,8 @@ function sectionRows(s: Section): Row[] {
     [label('Verdict'), { value: VERDICT_WORD[s.status], style: 'status' }, { value: verdictText(s) }],
   ];
   if (s.status === 'differs') {
-    rows.push([label('Unsafe combinations'), { value: s.unsafeCount, style: s.unsafeCount > 0 ? 'unsafe' : 'number' }, { value: `the spec requires the safe value ${s.safe}, the implementation gives ${1 - s.safe}` }]);
-    rows.push([label('Spurious trips'), { value: s.spuriousTripCount, style: 'number' }, { value: `the spec requires ${1 - s.safe}, the implementation holds the safe value ${s.safe}` }]);
+    rows.push([label('Unsafe combinations'), { value: countValue(s.unsafeCount), style: s.unsafeCount > 0 ? 'unsafe' : 'number' }, { value: `the spec requires the safe value ${s.safe}, the implementation gives ${1 - s.safe}` }]);
+    rows.push([label('Spurious trips'), { value: countValue(s.spuriousTripCount), style: 'number' }, { value: `the spec requires ${1 - s.safe}, the implementation holds the safe value ${s.safe}` }]);
     if (s.unsafeWhen) rows.push([label('Unsafe when'), { value: s.unsafeWhen.sentence, style: 'unsafe' }]);
     if (s.spuriousTripWhen) rows.push([label('Spurious trip when'), { value: s.spuriousTripWhen.sentence }]);
   }
@@ -188,7 +188,7 @@ function programView(report: VerifyReport): CheckView {
   const sections = report.outputs.map((v): Section => {
     const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
     if (v.status === 'equal' || v.status === 'differs') {
-      const n = Math.log2(v.combinations);
+      const n = Math.log2(Number(v.combinations));
       if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the implementation turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
       if (v.gaps.count > 0) {
         const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => k.toString(2).padStart(n, '0'));
@@ -240,4 +240,9 @@ function differencesCell(totals: Pick<OutputVerdict, 'unsafeCount' | 'spuriousTr
 
 function specRowText(row: NonNullable<OutputVerdict['counterexamples'][number]['specRow']>): string {
   return `${row.cells} (output cell ${row.outputCell})`;
+}
+
+/** A count as a cell: a number while exact in a double, else its decimal digits (wide tables). */
+function countValue(c: number | bigint): number | string {
+  return typeof c === 'number' || c <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(c) : c.toString();
 }

@@ -1,12 +1,13 @@
 // The implementation check as the CLI prints it: plain text with the caution, or JSON data.
-import { inputValues, LISTED } from '../logic/index.js';
+import { combinationPattern, jsonCounts, LISTED } from '../logic/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
-import { kindWord, verifyExitCode, type OutputVerdict, type VerifyReport } from '../impl/index.js';
+import { kindWord, verifyExitCode, type Count, type OutputVerdict, type VerifyReport } from '../impl/index.js';
 import { plural } from './text.js';
 
 /** The report as plain JSON data (for `verify --json`), with the caution and the exit status. */
 export function verifyReportJson(report: VerifyReport): unknown {
-  return {
+  // Counts and combinations of a table over 24 inputs are BigInt: decimal strings past 2^53.
+  return jsonCounts({
     caution: CAUTION,
     file: report.file,
     ...(report.mapping ? { mapping: report.mapping } : {}),
@@ -38,7 +39,7 @@ export function verifyReportJson(report: VerifyReport): unknown {
     unusedMapping: report.unusedMapping,
     cannotJudge: report.cannotJudge,
     notes: report.notes,
-  };
+  });
 }
 
 const WORD: Readonly<Record<OutputVerdict['status'], string>> = {
@@ -86,13 +87,19 @@ export function verifyReportText(report: VerifyReport): string {
 
 /** Both sides added up over the outputs. */
 export function sideTotals(outputs: readonly OutputVerdict[]): Pick<OutputVerdict, 'unsafeCount' | 'spuriousTripCount'> {
-  return { unsafeCount: outputs.reduce((t, o) => t + o.unsafeCount, 0), spuriousTripCount: outputs.reduce((t, o) => t + o.spuriousTripCount, 0) };
+  const total = (key: 'unsafeCount' | 'spuriousTripCount') => outputs.reduce<Count>((t, o) => addCount(t, o[key]), 0);
+  return { unsafeCount: total('unsafeCount'), spuriousTripCount: total('spuriousTripCount') };
+}
+
+/** Counts stay numbers up to 24 inputs and are exact BigInt beyond. */
+function addCount(a: Count, b: Count): Count {
+  return typeof a === 'number' && typeof b === 'number' ? a + b : BigInt(a) + BigInt(b);
 }
 
 /** "equal on all N combinations" only when all N were judged. */
 function equalLine(o: OutputVerdict): string {
   if (o.gaps.judged || o.gaps.count === 0) return `equal on all ${o.combinations} combinations`;
-  return `equal on the ${o.combinations - o.gaps.count} specified combinations; ${o.gaps.count} gap combinations not judged (--gaps-free)`;
+  return `equal on the ${BigInt(o.combinations) - BigInt(o.gaps.count)} specified combinations; ${o.gaps.count} gap combinations not judged (--gaps-free)`;
 }
 
 /** Where a counterexample's expected value comes from. */
@@ -132,12 +139,12 @@ function differences(report: VerifyReport, o: OutputVerdict): string[] {
 
 function openLines(o: OutputVerdict): string[] {
   const out: string[] = [];
-  const n = Math.log2(o.combinations);
+  const n = Math.log2(Number(o.combinations));
   if (o.dontCare.count > 0) out.push(`  don't-care: ${o.dontCare.count} combinations, the implementation turns ${o.dontCare.implementationOn} of them ON (not counted as differences)`);
   if (o.gaps.count > 0) {
     const judged = o.gaps.judged ? 'judged at the safe value: counted as differences' : 'not judged under --gaps-free, not counted as differences';
     out.push(`  gaps (no row covers them; safe value ${o.gaps.safe}): ${o.gaps.count} combinations, ${o.gaps.unsafe} of them not at the safe value in the implementation (${judged})`);
-    for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${inputValues(n, k).join(' ')}`);
+    for (const k of o.gaps.unsafeExamples.slice(0, 10)) out.push(`    ${[...combinationPattern(n, BigInt(k))].join(' ')}`);
   }
   if (o.conflicted > 0) out.push(`  conflicts: ${o.conflicted} combinations the spec asks to be both 1 and 0 (judged at the safe value ${o.gaps.safe})`);
   return out;
