@@ -84,7 +84,7 @@ class Network {
       if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(this.variableOf(node).toLowerCase());
     }
     const assigned = new Set(this.writers().map((n) => this.variableOf(n).toLowerCase()));
-    this.b = new PouBuilder(header, context.globals, assigned);
+    this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
   read(): ImplPou {
@@ -215,7 +215,11 @@ class Network {
       default: {
         const item = this.unevaluated.get(node.id);
         let value: Expr;
-        if (item) value = this.b.leafFor(item, `${node.el.attrs['instanceName'] ?? node.el.attrs['typeName']}.${s.pin}`);
+        const instance = node.el.attrs['instanceName'];
+        // An instance's BOOL output pin is a named source (`T1.Q`), one per block element.
+        const member = item && instance ? this.b.resolve(`${instance}.${s.pin}`, node.el.line) : undefined;
+        if (member?.ok && member.variable.source && member.variable.type === 'BOOL') value = this.b.sourceValue(member.variable, node.el.line, `block localId ${node.id}`);
+        else if (item) value = this.b.leafFor(item, `${instance ?? node.el.attrs['typeName']}.${s.pin}`);
         else if (s.pin === 'ENO') value = this.b.opaque('unsupported', `ENO output of ${this.describe(node)}`, line);
         else value = this.logic(node);
         const pinEl = this.outputPins(node).get(s.pin);

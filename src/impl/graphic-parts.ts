@@ -5,6 +5,7 @@ import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
 import { LineError } from './line-error.js';
 import type { PouBuilder } from './symbolic.js';
+import { parsePath } from './paths.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { localName, type XmlElement } from './xml.js';
 
@@ -47,10 +48,12 @@ export function readBody(context: ReadContext, read: () => ImplPou): Result<Impl
 
 /**
  * The value of the variable an element names: a plain name is read (its value so far in the
- * scan); a member or element (`T1.Q`, `a[2]`) is opaque, of the kind of its base variable.
+ * scan); a member or element (`T1.Q`, `a[2]`) is opaque, of the kind of its base variable
+ * (the graphical bodies do not follow members yet), its declaration kept in the POU's paths.
  */
 export function namedValue(b: PouBuilder, context: ReadContext, name: string, id: string, line: number): Expr {
   if (!/[.[]/.test(name)) return b.read(name, line);
+  if (parsePath(name)) b.resolve(name, line);
   const base = name.split(/[.[]/)[0]!;
   const type = b.variable(base, line).type;
   const kind = blockKind(type, context.blockTypes);

@@ -4,6 +4,7 @@
 import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
+import { namedValue } from './graphic-parts.js';
 import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
@@ -62,7 +63,7 @@ class Network {
       if (kind === 'connector' && connectorName !== undefined && !this.connectors.has(connectorName)) this.connectors.set(connectorName, node);
     }
     const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => this.variableOf(n).toLowerCase()));
-    this.b = new PouBuilder(header, context.globals, assigned);
+    this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
   read(): ImplPou {
@@ -204,13 +205,7 @@ class Network {
 
   private readVariable(node: Node, name: string): Expr {
     const line = node.el.line;
-    if (!/[.[]/.test(name)) return this.b.read(name, line);
-    const base = name.split(/[.[]/)[0]!;
-    const type = this.b.variable(base, line).type;
-    const kind = blockKind(type, this.context.blockTypes);
-    return kind === 'function-call'
-      ? this.b.opaque('unsupported', `${name} (member or element), localId ${node.id}`, line)
-      : this.b.opaque(kind, `${kindWord(kind)} ${base} (${type}): ${name}, localId ${node.id}`, line);
+    return namedValue(this.b, this.context, name, node.id, line);
   }
 
   /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */

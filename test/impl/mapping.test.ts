@@ -40,7 +40,9 @@ describe('name mapping', () => {
   });
 
   it('refuses a program variable that is not a name', () => {
-    expect(csvError('Guard A closed,I A\n')).toBe("map.csv line 1: 'I A' is not a program variable name (Name, Pou.Name or %IX0.1)");
+    expect(csvError('Guard A closed,I A\n')).toBe(
+      "map.csv line 1: 'I A' is not a program variable name (Name, Pou.Name, a member io.bClosed, an element aIn[3] or %IX0.1)",
+    );
   });
 
   it('refuses a spec signal mapped twice (case-insensitively)', () => {
@@ -56,6 +58,6 @@ describe('name mapping', () => {
     const r = readMappingGrid({ sheet: 'Tag map', origin: 'B2', cells: [['Spec signal', 'Tag'], ['Guard A closed', 'I_A'], ['Jog pressed', null]] });
     expect(r.ok ? null : r.error.message).toBe("'Tag map'!C4: no program variable for spec signal 'Jog pressed'");
     const good = readMappingGrid({ sheet: 'Map', origin: 'A1', cells: [['Guard A closed', 'I_A']] });
-    expect(good.ok && good.value.pairs).toEqual([{ spec: 'Guard A closed', program: 'I_A', where: 'Map!A1' }]);
+    expect(good.ok && good.value.pairs).toEqual([{ spec: 'Guard A closed', program: 'I_A', where: 'Map!A1', programWhere: 'Map!B1' }]);
   });
 });
