@@ -35,6 +35,21 @@ describe('name mapping', () => {
     expect(pairsOf('Jog pressed\t%IX0.3\n')).toEqual([['Jog pressed', '%IX0.3', 'map.csv line 1']]);
   });
 
+  it('accepts members, elements and instance outputs as program variables, spaces around their punctuation dropped', () => {
+    expect(pairsOf('A,io.bClosed\nB,aIn[ 3 ]\nC,Main.tonSync.Q\nD,g[1, 2].b\n').map(([, program]) => program)).toEqual([
+      'io.bClosed',
+      'aIn[3]',
+      'Main.tonSync.Q',
+      'g[1,2].b',
+    ]);
+  });
+
+  it('refuses an element with an index that is not an integer', () => {
+    expect(csvError('A,aIn[i]\n')).toBe(
+      "map.csv line 1: 'aIn[i]' is not a program variable name (Name, Pou.Name, a member io.bClosed, an element aIn[3] or %IX0.1)",
+    );
+  });
+
   it('refuses a row with no program variable, naming its line', () => {
     expect(csvError('Guard A closed,I_A\nGuard B closed,\n')).toBe("map.csv line 2: no program variable for spec signal 'Guard B closed'");
   });
