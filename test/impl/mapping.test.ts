@@ -36,7 +36,7 @@ describe('name mapping', () => {
   });
 
   it('accepts members, elements and instance outputs as program variables, spaces around their punctuation dropped', () => {
-    expect(pairsOf('A,io.bClosed\nB,aIn[ 3 ]\nC,Main.tonSync.Q\nD,g[1, 2].b\n').map(([, program]) => program)).toEqual([
+    expect(pairsOf('A,io.bClosed\nB,aIn[ 3 ]\nC,Main.tonSync.Q\nD,"g[1, 2].b"\n').map(([, program]) => program)).toEqual([
       'io.bClosed',
       'aIn[3]',
       'Main.tonSync.Q',
