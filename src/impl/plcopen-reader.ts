@@ -59,7 +59,7 @@ export function readPlcopen(file: string, text: string): Result<ImplProgram> {
       pous.push(read.value);
     }
     if (pous.length === 0) throw new LineError(root.line, 'the project has no POU');
-    return ok({ file, format: 'plcopen', pous });
+    return ok({ file, format: 'plcopen', pous, types: { types: context.types, blockTypes, pouVariables: context.pouVariables } });
   } catch (e) {
     if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;

@@ -123,7 +123,7 @@ export function readStFile(file: string, text: string): Result<ImplProgram> {
       pous.push(read.value);
     }
     if (pous.length === 0) return fail({ message: `${file}: no PROGRAM, FUNCTION_BLOCK or FUNCTION found` });
-    return ok({ file, format: 'st', pous });
+    return ok({ file, format: 'st', pous, types: { types: found.types, blockTypes, pouVariables } });
   } catch (e) {
     if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;

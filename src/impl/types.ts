@@ -122,6 +122,8 @@ export interface ImplProgram {
   readonly file: string;
   readonly format: 'st' | 'plcopen';
   readonly pous: readonly ImplPou[];
+  /** The project's structure types and blocks, to resolve a path the mapping names that no body touches. */
+  readonly types?: Pick<ReadContext, 'types' | 'blockTypes' | 'pouVariables'>;
 }
 
 /** What a POU body is read against: its file and what the rest of the project declares. */

@@ -14,7 +14,8 @@ import { signalIndex, type Signal } from '../logic/signals.js';
 import { qualifiedAddress } from '../spec/grid.js';
 import type { SpecTable } from '../spec/types.js';
 import type { NameMapping, NamePair } from './mapping.js';
-import { isPath, pathKey } from './paths.js';
+import { LineError } from './line-error.js';
+import { isPath, parsePath, pathKey, resolvePath } from './paths.js';
 import type { CannotJudge, ImplOutput, ImplPou, ImplProgram, ImplVariable } from './types.js';
 
 export type VerifyStatus = 'equal' | 'differs' | 'unchecked' | 'not-found';
@@ -195,13 +196,25 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
   };
 }
 
-/** The declaration of a name or path in a POU, as read (paths only when the body touches them). */
-function declarationIn(pou: ImplPou, name: string): ImplVariable | undefined {
-  return isPath(name) ? pou.paths.find((v) => samePath(v.name, name)) : pou.variables.find((v) => same(v.name, name));
+/** The declaration of a name or path in a POU: as the body read it, else resolved against the project's types. */
+function declarationIn(impl: ImplProgram, pou: ImplPou, name: string): ImplVariable | undefined {
+  if (!isPath(name)) return pou.variables.find((v) => same(v.name, name));
+  const read = pou.paths.find((v) => samePath(v.name, name));
+  const parsed = parsePath(name);
+  const base = parsed && pou.variables.find((v) => same(v.name, parsed.base));
+  if (read || !impl.types || !base) return read;
+  try {
+    const r = resolvePath(base, parsed, impl.types, base.line);
+    return r.ok ? r.variable : undefined;
+  } catch (e) {
+    // An index outside the bounds names nothing.
+    if (e instanceof LineError) return undefined;
+    throw e;
+  }
 }
 
-function knownIn(pou: ImplPou, name: string): boolean {
-  return pou.inputs.some((n) => samePath(n, name)) || pou.outputs.some((o) => samePath(o.name, name)) || declarationIn(pou, name) !== undefined;
+function knownIn(impl: ImplProgram, pou: ImplPou, name: string): boolean {
+  return pou.inputs.some((n) => samePath(n, name)) || pou.outputs.some((o) => samePath(o.name, name)) || declarationIn(impl, pou, name) !== undefined;
 }
 
 /**
@@ -219,13 +232,13 @@ function mappingProblems(tables: readonly SpecTable[], impl: ImplProgram, pairs:
       out.push({ code: 'mapping-unknown-signal', where: pair.where, message: `no spec table has a signal '${pair.spec}'`, signals: [], program: pair.program });
     }
     const pous = impl.pous.filter((p) => m.pou === undefined || same(m.pou, p.name));
-    if (!pous.some((p) => knownIn(p, m.name))) {
-      const message = isPath(m.name) ? `no POU reads or writes '${pair.program}'` : `the program has no variable '${pair.program}'`;
+    if (!pous.some((p) => knownIn(impl, p, m.name))) {
+      const message = isPath(m.name) ? `the program has no variable, member or element '${pair.program}'` : `the program has no variable '${pair.program}'`;
       out.push({ code: 'mapping-unknown-variable', where: pair.programWhere, message, signals: [pair.spec] });
       return;
     }
     for (const p of pous) {
-      const d = declarationIn(p, m.name);
+      const d = declarationIn(impl, p, m.name);
       if (d && d.type !== '' && d.type.trim().toUpperCase() !== 'BOOL') {
         out.push({ code: 'mapping-not-bool', where: pair.programWhere, message: `'${pair.program}' is ${d.type.trim()} in ${p.name} (line ${d.line}), not BOOL`, signals: [pair.spec] });
         return;
@@ -268,7 +281,7 @@ function withMappingProblems(v: OutputVerdict, table: SpecTable, impl: ImplProgr
   const signals = [...table.inputs, ...table.outputs.map((o) => o.signal)];
   const pou = v.variable === undefined ? undefined : impl.pous.find((p) => same(`${p.name}.`, v.variable!.slice(0, p.name.length + 1)));
   const touching = problems.filter(
-    (p) => p.signals.some((s) => signalIndex(signals, s) >= 0) || (p.program !== undefined && pou !== undefined && knownIn(pou, p.program)),
+    (p) => p.signals.some((s) => signalIndex(signals, s) >= 0) || (p.program !== undefined && pou !== undefined && knownIn(impl, pou, p.program)),
   );
   if (touching.length === 0) return v;
   return {

@@ -233,7 +233,7 @@ END_PROGRAM
   it('a mapping that names an unknown program variable: one problem at its line, the outputs of the table unchecked', async () => {
     const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSnyc.Q\n');
     expect(r.code).toBe(1);
-    expect(r.out).toContain("Mapping entries not used:\n  map.csv line 3: no POU reads or writes 'tonSnyc.Q'\n");
+    expect(r.out).toContain("Mapping entries not used:\n  map.csv line 3: the program has no variable, member or element 'tonSnyc.Q'\n");
     expect(r.out).toContain('UNCHECKED  Valve permit');
   });
 

@@ -271,3 +271,27 @@ describe('implementation check over members and elements, by mapping', () => {
     expect(verdict(r, 'Run').reasons).toEqual(['Run reads edge.Q before and after its block is called (two values in one scan): one spec input cannot stand for both']);
   });
 });
+
+describe('mapping pairs naming members the body does not read', () => {
+  it('a member the program declares but never reads is known: no problem, the output still judged', () => {
+    const spec = tinyTable({ inputs: ['Door closed', 'Reset'], outputs: ['Run'], rows: ['0 - | 0', '1 - | 1'] });
+    const read = readStFile('t.st', program('VAR_INPUT io : ST_IO; END_VAR VAR_OUTPUT Run : BOOL; END_VAR', 'Run := io.bClosed;'));
+    const m = readMappingCsv('map.csv', 'Door closed,io.bClosed\nReset,io.sub.flag\n');
+    if (!read.ok || !m.ok) throw new Error('bad fixture');
+    const r = verifyImplementation([spec], read.value, m.value);
+    expect(r.mappingProblems).toEqual([]);
+    expect(verdict(r, 'Run').status).toBe('equal');
+  });
+
+  it('a member the structure does not have is an unknown variable at its mapping line', () => {
+    const spec = tinyTable({ inputs: ['Door closed'], outputs: ['Run'], rows: ['0 | 0', '1 | 1'] });
+    const read = readStFile('t.st', program('VAR_INPUT io : ST_IO; END_VAR VAR_OUTPUT Run : BOOL; END_VAR', 'Run := io.bClosed;'));
+    const m = readMappingCsv('map.csv', 'Door closed,io.bShut\n');
+    if (!read.ok || !m.ok) throw new Error('bad fixture');
+    const r = verifyImplementation([spec], read.value, m.value);
+    expect(r.mappingProblems.map((p) => [p.code, p.where, p.message])).toEqual([
+      ['mapping-unknown-variable', 'map.csv line 1', "the program has no variable, member or element 'io.bShut'"],
+    ]);
+    expect(verdict(r, 'Run').status).toBe('unchecked');
+  });
+});
