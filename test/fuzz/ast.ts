@@ -80,6 +80,14 @@ export interface Program {
   /** Seed of the split of body lines into <p>/<br/> pieces (mixed only). */
   readonly mixSeed: number;
   readonly features: readonly Feature[];
+  /**
+   * Spec inputs the PROGRAM reads as a structure member (`io.Jog`) or an array element
+   * (`aIn[2]`) instead of a VAR_INPUT of their name: spec input -> path as printed. The
+   * implementation check is then given a mapping of these pairs.
+   */
+  readonly inputPaths?: Readonly<Record<string, string>>;
+  /** The structure type the members belong to (TYPE ... STRUCT of BOOL members). */
+  readonly struct?: { readonly name: string; readonly members: readonly string[] };
 }
 
 export const TRUE_E: BExpr = { k: 'const', v: true };

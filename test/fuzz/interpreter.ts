@@ -276,6 +276,8 @@ export function outcomeTable(program: Program, spec: GenSpec): Outcome[][] {
       const i = spec.inputs.findIndex((s) => low(s) === low(name));
       inputs.set(name, i >= 0 ? values[i]! : false);
     }
+    // Spec inputs read as a member or element: that location holds the input's value.
+    for (const [input, path] of Object.entries(program.inputPaths ?? {})) inputs.set(path, values[spec.inputs.indexOf(input)]!);
     const out = scanOutcomes(program, inputs, spec.outputs);
     spec.outputs.forEach((o, j) => table[j]!.push(out.get(low(o)) ?? 0));
   }
