@@ -21,6 +21,8 @@ export function mapRefs(e: BExpr, f: (name: string) => BExpr): BExpr {
       return f(e.name);
     case 'not':
       return notE(mapRefs(e.a, f));
+    case 'fcall':
+      return { ...e, args: e.args.map((a) => mapRefs(a, f)) };
     case 'and':
     case 'or':
     case 'xor':
@@ -33,7 +35,7 @@ export function mapRefs(e: BExpr, f: (name: string) => BExpr): BExpr {
 export function refsOf(e: BExpr, into: Set<string> = new Set()): Set<string> {
   if (e.k === 'ref') into.add(e.name);
   else if (e.k === 'not') refsOf(e.a, into);
-  else if (e.k === 'and' || e.k === 'or' || e.k === 'xor') e.args.forEach((a) => refsOf(a, into));
+  else if (e.k === 'and' || e.k === 'or' || e.k === 'xor' || e.k === 'fcall') e.args.forEach((a) => refsOf(a, into));
   return into;
 }
 
@@ -423,7 +425,8 @@ export function generateCase(seed: number): FuzzCase {
   const mixSeed = rng.seed();
   // Its own generator, so that the cases of a seed stay what they were before this style.
   const paths = new Prng(seed ^ 0x2545f491);
-  const read = paths.chance(0.25) ? inputsAsPaths(paths, pous, b.features) : { pous };
+  const read: { pous: Pou[]; extra?: Pick<Program, 'inputPaths' | 'struct'> } = paths.chance(0.25) ? inputsAsPaths(paths, pous, b.features) : { pous };
+  if (paths.chance(0.2)) read.pous = asFunctions(paths, read.pous, b.features);
   const program: Program = { pous: read.pous, format: xml ? 'xml' : 'st', xhtml: mixed ? 'mixed' : 'plain', mixSeed, features: [...b.features].sort(), ...read.extra };
   return { seed, spec, program };
 }
@@ -432,6 +435,33 @@ export function generateCase(seed: number): FuzzCase {
  * Some spec inputs read by the PROGRAM as members of a structure `io` or elements of an array
  * `aIn` (both VAR_INPUT) instead of plain VAR_INPUTs; the check maps them to the spec inputs.
  */
+/**
+ * Some top-level assignments of the PROGRAM written as a call of a FUNCTION of the program
+ * (`y := Fn1(a, b);`, the function `Fn1 := X1 AND NOT X2;` over its VAR_INPUTs).
+ */
+function asFunctions(rng: Prng, pous: Pou[], features: Set<Feature>): Pou[] {
+  const main = pous[pous.length - 1]!;
+  const fns: Pou[] = [];
+  const body = main.body.map((s): Stmt => {
+    if (s.k !== 'assign' || !rng.chance(0.5)) return s;
+    const names = [...new Map([...refsOf(s.value)].map((n) => [low(n), n])).values()];
+    if (names.length === 0) return s;
+    const fn = `Fn${fns.length + 1}`;
+    const param = new Map(names.map((n, i) => [low(n), `X${i + 1}`]));
+    fns.push({
+      kind: 'FUNCTION',
+      name: fn,
+      blocks: [{ section: 'VAR_INPUT', decls: names.map((_, i) => ({ name: `X${i + 1}`, type: 'BOOL' })) }],
+      actions: [],
+      body: [{ k: 'assign', target: fn, value: mapRefs(s.value, (n) => ref(param.get(low(n))!)) }],
+    });
+    return { ...s, value: { k: 'fcall', fn, args: names.map((n) => ref(n)) } };
+  });
+  if (fns.length === 0) return pous;
+  features.add('function');
+  return [...fns, ...pous.slice(0, -1), { ...main, body }];
+}
+
 function inputsAsPaths(rng: Prng, pous: Pou[], features: Set<Feature>): { pous: Pou[]; extra?: Pick<Program, 'inputPaths' | 'struct'> } {
   const main = pous[pous.length - 1]!;
   const inputs = main.blocks.find((b) => b.section === 'VAR_INPUT');

@@ -33,6 +33,9 @@ export function printExpr(e: BExpr, spelling: Spelling = PLAIN, rng?: Prng): str
       case 'member':
         text = `${x.inst}.${x.field}`;
         break;
+      case 'fcall':
+        text = `${x.fn}(${x.args.map((a) => go(a, 0)).join(', ')})`;
+        break;
       case 'not':
         // NOT NOT a is not ST: the inner NOT gets parentheses.
         text = `NOT ${x.a.k === 'not' ? `(${go(x.a, 0)})` : go(x.a, PREC.not + 1)}`;
@@ -107,7 +110,7 @@ function declLine(d: Decl): string {
 }
 
 function pouSt(pou: Pou, spelling: Spelling, rng?: Prng): string[] {
-  const lines = [`${pou.kind} ${pou.name}`];
+  const lines = [`${pou.kind} ${pou.name}${pou.kind === 'FUNCTION' ? ' : BOOL' : ''}`];
   for (const b of pou.blocks) {
     lines.push(`${b.section}${b.constant ? ' CONSTANT' : ''}`, ...b.decls.map(declLine), 'END_VAR');
   }
@@ -184,8 +187,8 @@ export function printPlcopen(p: Program): string {
       : '<types><dataTypes/><pous>',
   ];
   for (const pou of p.pous) {
-    out.push(`<pou name="${escapeXml(pou.name)}" pouType="${pou.kind === 'PROGRAM' ? 'program' : 'functionBlock'}">`);
-    out.push('<interface>', ...pou.blocks.flatMap(xmlBlock), '</interface>');
+    out.push(`<pou name="${escapeXml(pou.name)}" pouType="${pou.kind === 'PROGRAM' ? 'program' : pou.kind === 'FUNCTION' ? 'function' : 'functionBlock'}">`);
+    out.push('<interface>', ...(pou.kind === 'FUNCTION' ? ['<returnType><BOOL/></returnType>'] : []), ...pou.blocks.flatMap(xmlBlock), '</interface>');
     if (pou.actions.length > 0) {
       out.push('<actions>');
       for (const a of pou.actions) {
