@@ -49,8 +49,8 @@ export function functionTable<P extends PouHeader>(pous: readonly P[], readOne: 
 /** The function's result as an expression over its VAR_INPUTs, or why it cannot be inlined. */
 function inlineOf(header: PouHeader, pou: ImplPou): InlineFunction {
   const no = (why: string): InlineFunction => ({ ok: false, name: pou.name, why });
-  const result = header.variables[0]!;
-  if (result.type.trim().toUpperCase() !== 'BOOL') return no(`it returns ${result.type.trim()}, not BOOL`);
+  const result = header.variables.find((v) => v.section === 'output' && v.name.toLowerCase() === pou.name.toLowerCase());
+  if (!result || result.type.trim().toUpperCase() !== 'BOOL') return no(`it returns ${result?.type.trim() || 'no declared type'}, not BOOL`);
   const other = header.variables.find((v) => v.section === 'in-out' || v.section === 'external' || (v.section === 'output' && v !== result));
   if (other) {
     const section = other.section === 'in-out' ? 'VAR_IN_OUT' : other.section === 'external' ? 'VAR_EXTERNAL' : 'VAR_OUTPUT';
