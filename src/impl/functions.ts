@@ -62,6 +62,6 @@ function inlineOf(header: PouHeader, pou: ImplPou): InlineFunction {
   if (first || !out.expr) return no(first ? `${first.what} (line ${first.line})` : 'its result is not read');
   const params = header.variables.filter((v) => v.section === 'input');
   const outside = varsOf(out.expr).map((j) => pou.inputs[j]!).find((n) => !params.some((v) => v.name.toLowerCase() === n.toLowerCase()));
-  if (outside !== undefined) return no(`its result reads ${outside}, which is not one of its VAR_INPUTs (a global or undeclared name)`);
+  if (outside !== undefined) return no(`its result reads ${outside}, which is not one of its VAR_INPUTs (a global, an undeclared name or a block's member)`);
   return { ok: true, name: pou.name, params, inputs: pou.inputs, result: out.expr };
 }

@@ -143,7 +143,9 @@ describe('Structured Text: functions of the same file are inlined', () => {
   it('a function that reads a global is not inlined: unchecked, naming the global', () => {
     const fn = 'VAR_GLOBAL gReady : BOOL; END_VAR\nFUNCTION Ready : BOOL\nVAR_INPUT x : BOOL; END_VAR\nReady := x AND gReady;\nEND_FUNCTION\n';
     const pou = pouOf(program('VAR_INPUT a : BOOL; END_VAR', 'q := Ready(a);', fn));
-    expect(whats(pou, 'q')).toEqual(['function Ready(...) at line 14 is not inlined: its result reads gReady, which is not one of its VAR_INPUTs (a global or undeclared name)']);
+    expect(whats(pou, 'q')).toEqual([
+      "function Ready(...) at line 14 is not inlined: its result reads gReady, which is not one of its VAR_INPUTs (a global, an undeclared name or a block's member)",
+    ]);
   });
 
   it('a function with a VAR_IN_OUT is not inlined', () => {
