@@ -10,7 +10,7 @@ import { isReserved } from '../logic/identifiers.js';
 import { blockKind, kindWord } from './constructs.js';
 import { mapVars } from './expr-dag.js';
 import { functionTable } from './functions.js';
-import { fixedPrefix, isElementary, parsePath, pathKey } from './paths.js';
+import { isElementary, parsePath, pathKey } from './paths.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
 import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, CannotJudgeKind, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, StructType, VarSection } from './types.js';
@@ -350,7 +350,7 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
     for (const l of later) {
       for (const lower of l.names) {
         const when = l.what.startsWith('action') ? `it is not called in the body of ${header.name}` : 'it runs when called from outside the scan';
-        writeUnknown(builder, lower, l.line, (name) => builder.cannotJudge('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line), true);
+        builder.writeUnknown(lower, l.line, (name) => builder.cannotJudge('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line), true);
       }
     }
     return ok(builder.finish());
@@ -358,29 +358,6 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
     if (e instanceof LineError) return fail({ message: `${context.file} line ${e.line}: ${e.message}` });
     throw e;
   }
-}
-
-/**
- * A write whose value is not known: a BOOL variable or path takes an opaque value (OR the one
- * it has, when `keep`: the write may not happen); a structure, an array, an instance or a path
- * with a variable index makes every path under it unknown from here on.
- */
-function writeUnknown(b: PouBuilder, target: string, line: number, item: (name: string) => CannotJudge, keep = false): void {
-  const parsed = parsePath(target);
-  if (!parsed) return;
-  const r = parsed.steps.some((x) => 'variableIndex' in x) ? undefined : b.resolve(target, line);
-  if (r?.ok) {
-    const v = r.variable;
-    if (v.source) return;
-    if (v.type === '' || v.type.toUpperCase() === 'BOOL') {
-      const value = b.leafFor(item(v.name), v.name);
-      const now = keep ? b.assignedValue(v.name) : undefined;
-      b.assign(v.name, now ? orFolded(now, value) : value, line);
-    } else if (!isElementary(v.type)) b.writeUnknownUnder(v.name, item(v.name), line);
-    return;
-  }
-  // A path that does not resolve (a type not declared here): all of its base is unknown; a variable index: all of the array.
-  b.writeUnknownUnder(r ? parsed.base : fixedPrefix(parsed), item(target), line);
 }
 
 /** Names of the POU's own variables (and paths under them) that a block (action, method...) assigns. */
@@ -660,7 +637,7 @@ class BodyReader {
       if (x.kind === 'ident' && isOp(inside[k + 1], '(') && !isOp(inside[k - 1], '.')) this.b.instanceCalled(x.text);
     });
     for (const name of names) {
-      writeUnknown(this.b, name, open.line, (v) => this.b.cannotJudge('control-flow', `${word} at line ${open.line} assigns ${v}`, open.line));
+      this.b.writeUnknown(name, open.line, (v) => this.b.cannotJudge('control-flow', `${word} at line ${open.line} assigns ${v}`, open.line));
     }
   }
 
@@ -683,7 +660,7 @@ class BodyReader {
     const otherTarget = (what: string): void => {
       const d = simple ? this.b.variable(first.text, first.line) : undefined;
       if (d && isElementary(d.type)) return;
-      writeUnknown(this.b, target, first.line, (v) => this.b.cannotJudge('unsupported', `${what} ${v} at line ${first.line} is not followed member by member`, first.line));
+      this.b.writeUnknown(target, first.line, (v) => this.b.cannotJudge('unsupported', `${what} ${v} at line ${first.line} is not followed member by member`, first.line));
     };
     if (isOp(after, ':=')) {
       const semi = skipTo(this.tokens, end + 1, (x) => isOp(x, ';'), first.line, 'assignment');
@@ -751,7 +728,7 @@ class BodyReader {
       const close = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
       const callee = calleeAt(this.tokens, k);
       for (const w of this.calls.writes(callee, this.tokens, k + 2, close, this.b)) {
-        writeUnknown(this.b, w.target.text, w.target.line, () => this.b.cannotJudge('function-call', `${w.why} at line ${w.target.line}`, w.target.line));
+        this.b.writeUnknown(w.target.text, w.target.line, () => this.b.cannotJudge('function-call', `${w.why} at line ${w.target.line}`, w.target.line));
       }
     }
   }
@@ -776,8 +753,8 @@ class BodyReader {
       const target = this.b.resolve(out.text, out.line);
       if (name !== undefined && target.ok && isBoolType(target.variable.type) && !target.variable.source) {
         this.b.assign(target.variable.name, this.b.read(name, out.line), out.line);
-      } else if (w.param !== undefined) writeUnknown(this.b, out.text, out.line, () => item);
-      else writeUnknown(this.b, out.text, out.line, () => this.b.cannotJudge(kind, `${w.why} at line ${out.line}`, out.line));
+      } else if (w.param !== undefined) this.b.writeUnknown(out.text, out.line, () => item);
+      else this.b.writeUnknown(out.text, out.line, () => this.b.cannotJudge(kind, `${w.why} at line ${out.line}`, out.line));
     }
   }
 

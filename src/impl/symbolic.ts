@@ -6,7 +6,7 @@ import { postOrder } from '../logic/implcheck.js';
 import { kindWord } from './constructs.js';
 import { mapVars } from './expr-dag.js';
 import { LineError } from './line-error.js';
-import { isPath, parsePath, pathKey, resolvePath, type PathTypes, type Resolved } from './paths.js';
+import { fixedPrefix, isElementary, isPath, parsePath, pathKey, resolvePath, type PathTypes, type Resolved } from './paths.js';
 import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable, VarSection } from './types.js';
 
 type Leaf =
@@ -161,6 +161,34 @@ export class PouBuilder {
       const r = this.resolve(k, line);
       if (r.ok && r.variable.type.toUpperCase() === 'BOOL' && !r.variable.source) this.assign(r.variable.name, this.leafFor(item, r.variable.name), line);
     }
+  }
+
+  /**
+   * A write whose value is not known: a BOOL variable or path takes an opaque value (OR the one
+   * it has, when `keep`: the write may not happen); a structure, an array, an instance or a path
+   * with a variable index makes every path under it unknown from here on. True when more than
+   * the one variable may have changed.
+   */
+  writeUnknown(target: string, line: number, item: (name: string) => CannotJudge, keep = false): boolean {
+    const parsed = parsePath(target);
+    if (!parsed) return false;
+    const r = parsed.steps.some((x) => 'variableIndex' in x) ? undefined : this.resolve(target, line);
+    if (r?.ok) {
+      const v = r.variable;
+      if (v.source) return false;
+      if (v.type === '' || v.type.toUpperCase() === 'BOOL') {
+        const value = this.leafFor(item(v.name), v.name);
+        const now = keep ? this.assignedValue(v.name) : undefined;
+        this.assign(v.name, now ? orFolded(now, value) : value, line);
+        return false;
+      }
+      if (isElementary(v.type)) return false;
+      this.writeUnknownUnder(v.name, item(v.name), line);
+      return true;
+    }
+    // A path that does not resolve (a type not declared here): all of its base is unknown; a variable index: all of the array.
+    this.writeUnknownUnder(r ? parsed.base : fixedPrefix(parsed), item(target), line);
+    return true;
   }
 
   isBool(name: string, line: number): boolean {
