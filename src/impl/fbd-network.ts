@@ -6,7 +6,8 @@
 // a network is capped: the file never decides how deep the call stack goes.
 import { FALSE, TRUE, xor, type Expr } from '../logic/expr/ast.js';
 import type { Result } from '../logic/result.js';
-import { bodyElements, namedValue, readBody, unevaluatedBlock, type BodyElement } from './graphic-parts.js';
+import { bodyElements, namedValue, readBody, unevaluatedBlock, writeNamed, type BodyElement } from './graphic-parts.js';
+import { pathKey } from './paths.js';
 import { LineError } from './line-error.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
@@ -81,9 +82,9 @@ class Network {
     }
     for (const node of this.order) {
       this.inputs.set(node.id, this.inputsOf(node));
-      if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(this.variableOf(node).toLowerCase());
+      if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(pathKey(this.variableOf(node)));
     }
-    const assigned = new Set(this.writers().map((n) => this.variableOf(n).toLowerCase()));
+    const assigned = new Set(this.writers().map((n) => pathKey(this.variableOf(n))));
     this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
@@ -122,10 +123,9 @@ class Network {
     const [input] = this.inputs.get(node.id)!;
     const suffix = node.kind === 'inOutVariable' ? 'In' : '';
     const value = this.modified(node, node.el, suffix, this.valueOf(this.single(node, input!)), `${node.kind} ${name}`);
-    if (/[.[]/.test(name)) this.b.cannotJudge('unsupported', `${node.kind} writes ${name}, localId ${node.id}`, line);
-    else if (this.b.isBool(name, line)) this.b.assign(name, value, line);
+    const wide = writeNamed(this.b, name, value, line, `${node.kind} writes ${name}, localId ${node.id}`);
     // Values computed so far stay true unless some element reads the variable just written.
-    if (this.readNames.has(name.toLowerCase())) this.memo = new Map();
+    if (wide || this.readNames.has(pathKey(name))) this.memo = new Map();
   }
 
   /**

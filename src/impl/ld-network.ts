@@ -4,7 +4,8 @@
 import { TRUE, type Expr } from '../logic/expr/ast.js';
 import { fail, ok, type Result } from '../logic/result.js';
 import { blockKind, kindWord } from './constructs.js';
-import { namedValue } from './graphic-parts.js';
+import { namedValue, writeNamed } from './graphic-parts.js';
+import { pathKey } from './paths.js';
 import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
@@ -62,7 +63,7 @@ class Network {
       const connectorName = el.attrs['name'];
       if (kind === 'connector' && connectorName !== undefined && !this.connectors.has(connectorName)) this.connectors.set(connectorName, node);
     }
-    const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => this.variableOf(n).toLowerCase()));
+    const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => pathKey(this.variableOf(n))));
     this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
@@ -108,11 +109,7 @@ class Network {
       else if (edge !== 'none') value = this.b.opaque('edge', `${edge}-edge coil ${name}, localId ${node.id}`, line);
       else value = node.el.attrs['negated'] === 'true' ? notFolded(power) : power;
     } else value = node.el.attrs['negated'] === 'true' ? notFolded(power) : power;
-    if (/[.[]/.test(name)) {
-      this.b.cannotJudge('unsupported', `${node.kind} writes ${name}, localId ${node.id}`, line);
-    } else if (this.b.isBool(name, line)) {
-      this.b.assign(name, value, line);
-    }
+    writeNamed(this.b, name, value, line, `${node.kind} writes ${name}, localId ${node.id}`);
     this.memo = new Map();
   }
 

@@ -264,14 +264,14 @@ function mappingProblems(tables: readonly SpecTable[], impl: ImplProgram, pairs:
 
 /**
  * Why a program name that is no input of any POU cannot be one: the program assigns it, or
- * reads it only where it is not followed (a member in an LD or FBD body). Undefined for a
+ * reads it only where it is not followed (a block's member in an LD or FBD body). Undefined for a
  * variable the program declares and does not read (a spec input the program ignores).
  */
 function notAnInput(pous: readonly ImplPou[], name: string): string | undefined {
   for (const p of pous) {
     const out = p.outputs.find((o) => samePath(o.name, name));
     if (out) return `${p.name} assigns it (line ${out.line}), so it is no input; map what it is assigned from`;
-    if (p.paths.some((v) => samePath(v.name, name))) return `${p.name} reads it only as a value it does not follow (members in ${p.language} bodies are not read as inputs)`;
+    if (p.paths.some((v) => samePath(v.name, name))) return `${p.name} reads it only where it does not follow it (a block's member in an ${p.language} body is opaque)`;
   }
   return undefined;
 }
