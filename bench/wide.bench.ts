@@ -2,11 +2,11 @@
 // at 16, 20 and 24 inputs, then the symbolic engine alone at 32-64 inputs. Whole analysis
 // in-process (reading the grid included); seeds fixed. Peak memory is the largest RSS sampled
 // during the run (the process's, so it includes what earlier runs left behind).
-import type { CellValue } from '../src/spec/types.js';
-import { analyseTable } from '../src/spec/analyse.js';
-import { analysisJson } from '../src/spec/analysis-json.js';
-import type { TableAnalysis } from '../src/spec/analysis-types.js';
-import { readSpecTables } from '../src/spec/read-tables.js';
+import type { CellValue } from '../src/table/types.js';
+import { analyseTable } from '../src/analysis/analyse.js';
+import { analysisJson } from '../src/report/analysis-json.js';
+import type { TableAnalysis } from '../src/analysis/analysis-types.js';
+import { readSpecTables } from '../src/table/read-tables.js';
 import { now } from '../src/logic/deadline.js';
 
 function random(seed: number): () => number {

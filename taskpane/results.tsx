@@ -1,14 +1,10 @@
 // What the engine found in a spec table: signals, problems, and per output its forms with
 // their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on.
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import type { Combination } from '../src/logic/bits.js';
-import { inputValue } from '../src/logic/bits.js';
-import type { Signal } from '../src/logic/signals.js';
-import { ladderSvg } from '../src/report/ladder-svg.js';
-import type { AndOrForm, OutputAnalysis, XorForm } from '../src/spec/analysis-types.js';
-import { qualifiedAddress } from '../src/spec/grid.js';
-import { describeCube } from '../src/spec/read-tables.js';
-import type { Problem, RoleRule } from '../src/spec/types.js';
+import { inputValue, type Combination, type Signal } from '../src/logic/index.js';
+import { ladderSvg } from '../src/report/index.js';
+import type { AndOrForm, OutputAnalysis, XorForm } from '../src/analysis/index.js';
+import { describeCube, qualifiedAddress, type Problem, type RoleRule } from '../src/table/index.js';
 import { verdictWords, type Permission, type TableView, type Verdict } from '../src/workflow/index.js';
 import { copyText, download, safeFileName } from './files.js';
 
@@ -112,7 +108,18 @@ export function SignalHeads({ signals, extra }: { signals: readonly Pick<Signal,
 }
 
 /** Rows of input values, one column per input (headers written sideways to fit a narrow pane). */
-export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Signal[]; rows: readonly Combination[]; extra?: { titles: string[]; cells: (k: number) => (string | number)[] } }) {
+export function CombinationTable({
+  inputs,
+  rows,
+  extra,
+  rowClass,
+}: {
+  inputs: readonly Signal[];
+  rows: readonly Combination[];
+  extra?: { titles: string[]; cells: (k: number) => (string | number)[] };
+  /** A class for row r (e.g. to mark unsafe counterexamples). */
+  rowClass?: (r: number) => string | undefined;
+}) {
   const n = inputs.length;
   return (
     <div class="scroll">
@@ -120,7 +127,7 @@ export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Sig
         <SignalHeads signals={inputs} extra={extra?.titles} />
         <tbody>
           {rows.map((k, r) => (
-            <tr key={r}>
+            <tr key={r} class={rowClass?.(r)}>
               {inputs.map((_, i) => (
                 <td key={i}>{inputValue(n, k, i)}</td>
               ))}

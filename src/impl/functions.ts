@@ -2,7 +2,7 @@
 // IEC 61131-3 functions keep nothing between calls (their variables start from their initial
 // values at each call), so a function whose result is a BOOL expression over its VAR_INPUTs
 // alone is that expression at every call. Anything else is named, never guessed.
-import type { Result } from '../logic/result.js';
+import type { Result } from '../logic/index.js';
 import { varsOf } from './expr-dag.js';
 import type { PouHeader } from './symbolic.js';
 import type { ImplPou, InlineFunction } from './types.js';

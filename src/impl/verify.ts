@@ -2,17 +2,30 @@
 // implements it, its inputs matched to the program's, and the two functions compared on every
 // input combination. Gaps and conflicts are judged at the safe value, as the spec's functions
 // take them (`gapsFree` leaves gaps unjudged); don't-cares are reported beside, never differences.
-import type { Monomial } from '../logic/anf.js';
-import { count, has, intersect, members, minus, union, type Combination } from '../logic/bits.js';
-import type { BoolFunction } from '../logic/boolfn.js';
-import { cubeContains } from '../logic/cube.js';
-import { variable, type Expr } from '../logic/expr/ast.js';
-import { checkImplementation } from '../logic/implcheck.js';
+import {
+  checkImplementation,
+  count,
+  cubeContains,
+  has,
+  intersect,
+  LISTED,
+  members,
+  minus,
+  sideSentence,
+  signalIndex,
+  SYMBOLIC_FROM_INPUTS,
+  union,
+  variable,
+  type BoolFunction,
+  type Combination,
+  type CounterexampleKind,
+  type Expr,
+  type Monomial,
+  type SideSentence,
+  type Signal,
+} from '../logic/index.js';
 import { mapVars, nodeCount, varsOf } from './expr-dag.js';
-import { LISTED } from '../logic/proof.js';
-import { signalIndex, type Signal } from '../logic/signals.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { SpecTable } from '../spec/types.js';
+import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import type { NameMapping, NamePair } from './mapping.js';
 import { LineError } from './line-error.js';
 import { isPath, parsePath, pathKey, resolvePath } from './paths.js';
@@ -26,6 +39,8 @@ export interface CounterexampleRow {
   readonly inputs: readonly (0 | 1)[];
   readonly expected: 0 | 1;
   readonly actual: 0 | 1;
+  /** Unsafe: the spec requires the safe value and the program gives the other; spurious trip: the other way. */
+  readonly kind: CounterexampleKind;
   /** Where `expected` comes from: a spec row, or the safe value of a gap or a conflict. */
   readonly source: 'row' | 'gap' | 'conflict';
   /** The spec row that asks for `expected` here: its cells, and its cell for this output. */
@@ -51,8 +66,14 @@ export interface OutputVerdict {
   readonly line?: number;
   readonly combinations: number;
   readonly mismatchCount: number;
-  /** The first 50 disagreements. */
+  /** Of the disagreements, over every combination judged: unsafe ones and spurious trips (they add up to `mismatchCount`). */
+  readonly unsafeCount: number;
+  readonly spuriousTripCount: number;
+  /** The first 50 unsafe disagreements, then the first 50 spurious trips. */
   readonly counterexamples: readonly CounterexampleRow[];
+  /** Each side in a sentence, from the minimal AND/OR form of its set (absent when the side is empty). */
+  readonly unsafeWhen?: SideSentence;
+  readonly spuriousTripWhen?: SideSentence;
   /** ANF monomials of spec XOR implementation, printed ("Jog AND Mode_setup"), first 50. */
   readonly differenceMonomials: readonly string[];
   readonly differenceMonomialCount: number;
@@ -115,6 +136,9 @@ export interface VerifyOptions {
  * is unchecked rather than run for minutes.
  */
 const MAX_EVALUATION_WORDS = 2 ** 31;
+
+/** The difference fields of an output that was not compared. */
+export const NO_DIFFERENCE = { mismatchCount: 0, unsafeCount: 0, spuriousTripCount: 0, counterexamples: [], differenceMonomials: [], differenceMonomialCount: 0 } as const;
 
 const same = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase();
 
@@ -303,10 +327,7 @@ function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, pairs: rea
     output: spec.signal,
     cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
     combinations: 2 ** n,
-    mismatchCount: 0,
-    counterexamples: [],
-    differenceMonomials: [],
-    differenceMonomialCount: 0,
+    ...NO_DIFFERENCE,
     dontCare: { count: 0, implementationOn: 0 },
     gaps: { count: 0, implementationOn: 0, safe: spec.safe, unsafe: 0, unsafeExamples: [], judged: !options.gapsFree },
     conflicted: 0,
@@ -386,25 +407,34 @@ function compare(
   table: SpecTable,
   o: number,
   options: VerifyOptions,
-): Pick<OutputVerdict, 'status' | 'mismatchCount' | 'counterexamples' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'> {
+): Pick<
+  OutputVerdict,
+  'status' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'counterexamples' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'
+> {
   const spec = table.outputs[o]!;
   const { fn, gaps, conflicted } = spec.built;
   const n = fn.n;
   // The spec's function already gives gaps and conflicts the safe value; --gaps-free frees gaps.
   const judged: BoolFunction = options.gapsFree ? { n, on: minus(fn.on, gaps), dc: union(fn.dc, gaps) } : fn;
-  const check = checkImplementation(expr, judged);
+  const check = checkImplementation(expr, judged, { safe: spec.safe, symbolicFrom: SYMBOLIC_FROM_INPUTS });
   const values = check.values;
   const dc = minus(fn.dc, union(gaps, conflicted));
   const unsafeGaps = spec.safe === 1 ? minus(gaps, values) : intersect(gaps, values);
   const counterexamples = check.counterexamples.map((c) => {
     const source = has(gaps, c.combination) ? 'gap' : has(conflicted, c.combination) ? 'conflict' : 'row';
     const specRow = source === 'row' ? specRowOf(table, o, c.combination, c.expected) : undefined;
-    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, source, ...(specRow ? { specRow } : {}) } as const;
+    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, kind: c.kind, source, ...(specRow ? { specRow } : {}) } as const;
   });
+  const unsafeWhen = sideSentence('unsafe', n, check.unsafeWhen, table.inputs);
+  const spuriousTripWhen = sideSentence('spurious-trip', n, check.spuriousTripWhen, table.inputs);
   return {
     status: check.equal ? 'equal' : 'differs',
     mismatchCount: check.mismatchCount,
+    unsafeCount: check.unsafeCount,
+    spuriousTripCount: check.spuriousTripCount,
     counterexamples,
+    ...(unsafeWhen ? { unsafeWhen } : {}),
+    ...(spuriousTripWhen ? { spuriousTripWhen } : {}),
     differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
     differenceMonomialCount: check.differenceMonomialCount,
     dontCare: { count: count(dc), implementationOn: count(intersect(dc, values)) },

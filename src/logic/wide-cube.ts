@@ -4,6 +4,9 @@ import { cube as narrowCube, type Cube } from './cube.js';
 /** Inputs the symbolic engine takes (a cube's mask stays within one 64-bit word). */
 export const WIDE_MAX_INPUTS = 64;
 
+/** From this many inputs (up to 24) analysis and verify take the symbolic engine: measured by the wide bench. */
+export const SYMBOLIC_FROM_INPUTS = 20;
+
 /**
  * A cube over n <= 64 inputs: the combinations that agree with `bits` on the inputs in `mask`.
  * The same positions as a Cube (input i of n is bit n-1-i) in BigInt, so the cube algebra of

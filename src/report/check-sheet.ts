@@ -2,19 +2,25 @@
 // counterexamples as rows (inputs 0/1, expected, actual, the spec row they contradict), the
 // ANF monomials by which implementation and spec differ, and the don't-care/gap notes. A pasted
 // expression (one output) and a program file (every output) come to the same sections.
-import { count, has, type Combination } from '../logic/bits.js';
-import type { ImplCheck } from '../logic/implcheck.js';
-import type { Signal } from '../logic/signals.js';
-import { printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/verify.js';
-import { kindWord } from '../impl/constructs.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { SpecTable } from '../spec/types.js';
+import {
+  appendAll,
+  count,
+  has,
+  maxOf,
+  sideSentence,
+  type Combination,
+  type CounterexampleKind,
+  type ImplCheck,
+  type Signal,
+} from '../logic/index.js';
+import { kindWord, printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/index.js';
+import { qualifiedAddress, type SpecTable } from '../table/index.js';
+import { sideCountsText, sideTotals } from './verify-report.js';
 import { CAUTION_LINES } from './caution.js';
 import { CELL_CHARS, code, heading, label } from './results-sheet.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { sheetName } from './test-steps.js';
 import { fit, plural } from './text.js';
-import { appendAll, maxOf } from '../logic/arrays.js';
 
 export type CheckSubject =
   /** An expression typed or pasted for one output of a table, checked by `checkImplementation`. */
@@ -26,10 +32,20 @@ type Row = (BlockCell | null)[];
 
 /** One output's check as the sheet shows it, whichever kind of check it came from. */
 interface Section
-  extends Pick<OutputVerdict, 'output' | 'cell' | 'status' | 'combinations' | 'mismatchCount' | 'differenceMonomials' | 'differenceMonomialCount'> {
+  extends Pick<
+    OutputVerdict,
+    'output' | 'cell' | 'status' | 'combinations' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount'
+  > {
   readonly inputs: readonly Signal[];
+  readonly safe: 0 | 1;
   readonly implementation: BlockCell;
-  readonly counterexamples: readonly { readonly inputs: readonly (0 | 1)[]; readonly expected: 0 | 1; readonly actual: 0 | 1; readonly specRow: string }[];
+  readonly counterexamples: readonly {
+    readonly inputs: readonly (0 | 1)[];
+    readonly expected: 0 | 1;
+    readonly actual: 0 | 1;
+    readonly kind: CounterexampleKind;
+    readonly specRow: string;
+  }[];
   /** Label and text: reasons, don't-cares, gaps, conflicts. */
   readonly notes: readonly (readonly [string, string])[];
 }
@@ -73,22 +89,29 @@ function sectionRows(s: Section): Row[] {
     [label('Implementation'), s.implementation],
     [label('Verdict'), { value: VERDICT_WORD[s.status], style: 'status' }, { value: verdictText(s) }],
   ];
+  if (s.status === 'differs') {
+    rows.push([label('Unsafe combinations'), { value: s.unsafeCount, style: s.unsafeCount > 0 ? 'unsafe' : 'number' }, { value: `the spec requires the safe value ${s.safe}, the implementation gives ${1 - s.safe}` }]);
+    rows.push([label('Spurious trips'), { value: s.spuriousTripCount, style: 'number' }, { value: `the spec requires ${1 - s.safe}, the implementation holds the safe value ${s.safe}` }]);
+    if (s.unsafeWhen) rows.push([label('Unsafe when'), { value: s.unsafeWhen.sentence, style: 'unsafe' }]);
+    if (s.spuriousTripWhen) rows.push([label('Spurious trip when'), { value: s.spuriousTripWhen.sentence }]);
+  }
   if (s.counterexamples.length > 0) {
-    const shown = s.counterexamples.length < s.mismatchCount ? `first ${s.counterexamples.length} of ${s.mismatchCount}` : `all ${s.mismatchCount}`;
+    const shown = s.counterexamples.length < s.mismatchCount ? `${s.counterexamples.length} of ${s.mismatchCount} (the first of each kind, unsafe first)` : `all ${s.mismatchCount}, unsafe first`;
     rows.push([label('Counterexamples'), { value: shown }]);
-    rows.push([...s.inputs.map((i) => heading(i.header)), heading('Expected (spec)'), heading('Actual (implementation)'), heading('Spec row it contradicts')]);
+    rows.push([...s.inputs.map((i) => heading(i.header)), heading('Expected (spec)'), heading('Actual (implementation)'), heading('Kind'), heading('Spec row it contradicts')]);
     for (const c of s.counterexamples) {
       rows.push([
         ...c.inputs.map((v): BlockCell => ({ value: v, style: 'input' })),
         { value: c.expected, style: 'number' },
         { value: c.actual, style: 'number' },
+        c.kind === 'unsafe' ? { value: 'unsafe', style: 'unsafe' } : { value: 'spurious trip' },
         { value: c.specRow },
       ]);
     }
   }
   if (s.differenceMonomialCount > 0) {
     const more = s.differenceMonomialCount > s.differenceMonomials.length ? ` (first ${s.differenceMonomials.length} shown)` : '';
-    rows.push([label('Differs by the XOR of'), { value: `${plural(s.differenceMonomialCount, 'ANF monomial')}${more}` }]);
+    rows.push([label('Detail: XOR of'), { value: `${plural(s.differenceMonomialCount, 'ANF monomial')}${more} by which spec and implementation differ` }]);
     for (const m of s.differenceMonomials) rows.push([null, code(m)]);
   }
   for (const [what, text] of s.notes) rows.push([label(what), { value: text }]);
@@ -123,19 +146,26 @@ function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>):
   if (gapCount > 0) notes.push(['Gaps', `${plural(gapCount, 'combination')} no row covers; they take the safe value ${spec.safe} and are checked against it`]);
   const conflictCount = count(conflicted);
   if (conflictCount > 0) notes.push(['Conflicts', `${plural(conflictCount, 'combination')} the spec asks to be both 1 and 0; they take the safe value ${spec.safe} and are checked against it`]);
+  const unsafeWhen = sideSentence('unsafe', n, check.unsafeWhen, table.inputs);
+  const spuriousTripWhen = sideSentence('spurious-trip', n, check.spuriousTripWhen, table.inputs);
   const section: Section = {
     output: spec.signal,
     cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
     status: check.equal ? 'equal' : 'differs',
     combinations: check.combinations,
     mismatchCount: check.mismatchCount,
+    unsafeCount: check.unsafeCount,
+    spuriousTripCount: check.spuriousTripCount,
+    ...(unsafeWhen ? { unsafeWhen } : {}),
+    ...(spuriousTripWhen ? { spuriousTripWhen } : {}),
+    safe: spec.safe,
     differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
     differenceMonomialCount: check.differenceMonomialCount,
     inputs: table.inputs,
     implementation: { value: 'the expression above' },
     counterexamples: check.counterexamples.map((c) => {
       const row = specRowOf(table, o, c.combination, c.expected);
-      return { inputs: c.inputs, expected: c.expected, actual: c.actual, specRow: row ? specRowText(row) : openNote(c.combination) };
+      return { inputs: c.inputs, expected: c.expected, actual: c.actual, kind: c.kind, specRow: row ? specRowText(row) : openNote(c.combination) };
     }),
     notes,
   };
@@ -172,6 +202,7 @@ function programView(report: VerifyReport): CheckView {
     }
     return {
       ...v,
+      safe: v.gaps.safe,
       inputs: report.inputs[v.table] ?? [],
       implementation: { value: v.variable ? `${v.variable} (line ${v.line})` : 'none found' },
       counterexamples: v.counterexamples.map((c) => ({ ...c, specRow: c.specRow ? specRowText(c.specRow) : '-' })),
@@ -189,6 +220,7 @@ function programView(report: VerifyReport): CheckView {
         'Result',
         { value: `${tally('equal')} equal, ${tally('differs')} differ, ${tally('unchecked')} unchecked, ${tally('not-found')} not found of ${plural(report.outputs.length, 'output')}` },
       ],
+      ...(tally('differs') > 0 ? [['Differences', differencesCell(sideTotals(report.outputs))] as const] : []),
     ],
     sections,
     lists: [
@@ -199,6 +231,11 @@ function programView(report: VerifyReport): CheckView {
       { title: 'Notes', items: report.notes },
     ],
   };
+}
+
+/** Both counts in one cell, marked when any is unsafe. */
+function differencesCell(totals: Pick<OutputVerdict, 'unsafeCount' | 'spuriousTripCount'>): BlockCell {
+  return { value: `${sideCountsText(totals)} in all`, ...(totals.unsafeCount > 0 ? { style: 'unsafe' as const } : {}) };
 }
 
 function specRowText(row: NonNullable<OutputVerdict['counterexamples'][number]['specRow']>): string {

@@ -1,12 +1,22 @@
 // Implementation checks under the workbook's verdicts: an output of a table that was not
 // analysed (it has errors) is UNCHECKED, whatever the program does, with the reason.
-import { parseExpression } from '../logic/expr/parse.js';
-import { checkImplementation, type ImplCheck } from '../logic/implcheck.js';
-import { fail, type Result } from '../logic/result.js';
-import { verifyImplementation, type OutputVerdict, type VerifyReport } from '../impl/verify.js';
-import type { NameMapping } from '../impl/mapping.js';
-import type { ImplProgram } from '../impl/types.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import {
+  checkImplementation,
+  fail,
+  parseExpression,
+  SYMBOLIC_FROM_INPUTS,
+  type ImplCheck,
+  type Result,
+} from '../logic/index.js';
+import {
+  NO_DIFFERENCE,
+  verifyImplementation,
+  type ImplProgram,
+  type NameMapping,
+  type OutputVerdict,
+  type VerifyReport,
+} from '../impl/index.js';
+import { qualifiedAddress } from '../table/index.js';
 import { outputSignals, wideLimit, type TableResult, type Workbook } from './examine.js';
 import { verdictWords } from './verdict.js';
 
@@ -27,13 +37,11 @@ export function verifyProgram(wb: Workbook, program: ImplProgram, mapping?: Name
 
 function unchecked(o: OutputVerdict, t: TableResult | undefined): OutputVerdict {
   if (!t || (o.status !== 'equal' && o.status !== 'differs')) return o;
+  const { unsafeWhen: _u, spuriousTripWhen: _s, ...rest } = o;
   return {
-    ...o,
+    ...rest,
     status: 'unchecked',
-    mismatchCount: 0,
-    counterexamples: [],
-    differenceMonomials: [],
-    differenceMonomialCount: 0,
+    ...NO_DIFFERENCE,
     reasons: [`the spec table is ${verdictWords(t.verdict)}`, ...o.reasons],
   };
 }
@@ -51,10 +59,7 @@ function withWideUnchecked(wb: Workbook, report: VerifyReport): VerifyReport {
       cell: qualifiedAddress(t.table.sheet, t.table.headerCells[n + j]!),
       status: 'unchecked',
       combinations: 0,
-      mismatchCount: 0,
-      counterexamples: [],
-      differenceMonomials: [],
-      differenceMonomialCount: 0,
+      ...NO_DIFFERENCE,
       dontCare: { count: 0, implementationOn: 0 },
       gaps: { count: 0, implementationOn: 0, safe: t.table.wide!.outputs[j]!.safe, unsafe: 0, unsafeExamples: [], judged: false },
       conflicted: 0,
@@ -79,5 +84,6 @@ export function checkExpression(wb: Workbook, tableId: number, output: number, t
   if (!t.analysis) return fail({ message: `not checked: the spec table is ${verdictWords(t.verdict)}` });
   const parsed = parseExpression(text, t.table.inputs);
   if (!parsed.ok) return parsed;
-  return { ok: true, value: checkImplementation(parsed.value, t.table.outputs[output].built.fn) };
+  const spec = t.table.outputs[output];
+  return { ok: true, value: checkImplementation(parsed.value, spec.built.fn, { safe: spec.safe, symbolicFrom: SYMBOLIC_FROM_INPUTS }) };
 }

@@ -5,7 +5,7 @@
 import { readMappingCsv, type NameMapping } from '../../src/impl/mapping.js';
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyImplementation, type OutputVerdict } from '../../src/impl/verify.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { eachExpr, refsOf, type FuzzCase } from './generate.js';
 import { expectedVerdicts, TooManyStates, type Expected } from './interpreter.js';
 import { programFile } from './print.js';
