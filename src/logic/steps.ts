@@ -108,17 +108,17 @@ export function fullTableSteps(fn: BoolFunction): TestStep[] {
   );
 }
 
-/** Steps unique by combination, reasons merged, in the order first added. */
-class StepList {
-  private readonly byCombination = new Map<Combination, { expected: 0 | 1; reasons: string[] }>();
+/** Steps unique by combination, reasons merged, in the order first added (BigInt combinations in wide-steps.ts). */
+export class StepList<K = Combination> {
+  private readonly byCombination = new Map<K, { expected: 0 | 1; reasons: string[] }>();
 
-  add(combination: Combination, expected: 0 | 1, reason: string): void {
+  add(combination: K, expected: 0 | 1, reason: string): void {
     const step = this.byCombination.get(combination);
     if (!step) this.byCombination.set(combination, { expected, reasons: [reason] });
     else if (!step.reasons.includes(reason)) step.reasons.push(reason);
   }
 
-  list(): TestStep[] {
+  list(): { combination: K; expected: 0 | 1; reason: string }[] {
     return [...this.byCombination].map(([combination, s]) => ({ combination, expected: s.expected, reason: s.reasons.join('; ') }));
   }
 }

@@ -30,7 +30,7 @@ export function exprToBdd(dd: Dd, expr: Expr): Node {
     case 'or':
       return dd.orAll(expr.args.map((a) => exprToBdd(dd, a)));
     case 'xor':
-      return expr.args.reduce((f, a) => dd.xor(f, exprToBdd(dd, a)), FALSE);
+      return dd.xorAll(expr.args.map((a) => exprToBdd(dd, a)));
   }
 }
 

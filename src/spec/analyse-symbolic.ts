@@ -9,9 +9,9 @@ import type { BoolFunction } from '../logic/boolfn.js';
 import { cubeToSet } from '../logic/cube.js';
 import { anfToExpr } from '../logic/expr/forms.js';
 import { printSt } from '../logic/expr/print-st.js';
-import { uniqueCauseSteps } from '../logic/steps.js';
 import { analyseWideOutput, wideResolved, type WideXor } from '../logic/wide-analysis.js';
 import { toNarrow } from '../logic/wide-cube.js';
+import { wideUniqueCauseSteps } from '../logic/wide-steps.js';
 import type { WideFunction } from '../logic/wide-fn.js';
 import { exprToBdd, proveWide, type WideProof } from '../logic/wide-proof.js';
 import type { Signal } from '../logic/signals.js';
@@ -80,7 +80,7 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
       gapCount: count(gapSet),
       conflicts: conflictReports(table, output.built.conflicts),
       dontCareCount: count(spec.dc),
-      steps: uniqueCauseSteps(cubes, resolved, table.inputs),
+      steps: wideUniqueCauseSteps(wide.dd, forms.andOr.cubes, on, table.inputs).map((s) => ({ ...s, combination: Number(s.combination) })),
     };
     problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));
     progress(`${output.signal.header}: forms`);
