@@ -1,13 +1,27 @@
 // Wide tables: the bit-set engine and the symbolic (BDD) engine on the same structured tables
 // at 16, 20 and 24 inputs, then the symbolic engine alone at 32-64 inputs. Whole analysis
 // in-process (reading the grid included); seeds fixed. Peak memory is the largest RSS sampled
-// during the run (the process's, so it includes what earlier runs left behind).
+// during the run (the process's, so it includes what earlier runs left behind). Beside each
+// symbolic figure: the same table on the baseline commit (bench/wide-baseline.json: that
+// commit's bench, run on this machine, with its load average).
+import { readFileSync } from 'node:fs';
 import type { CellValue } from '../src/spec/types.js';
 import { analyseTable } from '../src/spec/analyse.js';
 import { analysisJson } from '../src/spec/analysis-json.js';
 import type { TableAnalysis } from '../src/spec/analysis-types.js';
 import { readSpecTables } from '../src/spec/read-tables.js';
 import { now } from '../src/logic/deadline.js';
+import { wideDisjoint } from '../src/logic/wide-cube.js';
+import { wideRowCube } from '../src/spec/read-wide.js';
+
+interface Baseline {
+  readonly source: string;
+  /** Per table label: the symbolic engine's ms and what it gave. */
+  readonly symbolic: Record<string, string>;
+}
+
+const baseline = JSON.parse(readFileSync(new URL('./wide-baseline.json', import.meta.url), 'utf8')) as Baseline;
+const before = (label: string): string => `; baseline ${baseline.symbolic[label] ?? 'not measured'}`;
 
 function random(seed: number): () => number {
   let state = seed >>> 0;
@@ -99,7 +113,25 @@ function summary(a: TableAnalysis): string {
   const w = a.wide?.outputs[0];
   if (o) return `${o.andOr.terms} terms${o.andOr.proven ? ' proven' : ''}, XOR ${o.xor.terms} terms, gaps ${o.gapCount}`;
   if (w) return `${w.andOr.terms} terms${w.andOr.proven ? ' proven' : ' heuristic'}, XOR ${w.xor.terms} terms, best ${w.bestXor.terms}, gaps ${a.wide!.gapCount}`;
-  return 'no output';
+  const error = a.problems.find((p) => p.severity === 'error');
+  return error ? `${error.code}: ${error.message.split(', so ')[0]}` : 'no output';
+}
+
+/** ON rows and OFF rows sharing a combination: where a table's rows contradict each other. */
+function conflictingPairs(cells: CellValue[][]): string {
+  const rows = cells.slice(2);
+  const n = cells[0]!.length - 1;
+  const cubes = rows.map((r) => wideRowCube(r.slice(0, n) as (0 | 1 | '-')[]));
+  let pairs = 0;
+  let all = 0;
+  rows.forEach((a, i) =>
+    rows.forEach((b, j) => {
+      if (a[n] !== 1 || b[n] !== 0) return;
+      all++;
+      if (!wideDisjoint(cubes[i]!, cubes[j]!)) pairs++;
+    }),
+  );
+  return `${pairs} of ${all} ON/OFF row pairs overlap`;
 }
 
 export async function run(): Promise<void> {
@@ -108,9 +140,10 @@ export async function run(): Promise<void> {
     const cells = permitTable(n, 1000 + n);
     const symbolic = timed(cells, 'symbolic');
     const bitSet = timed(cells, 'bit-set');
+    const label = `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows`;
     console.log(
-      `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
-        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})`,
+      `${label}: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
+        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${before(label)}`,
     );
   }
   const wide: [string, CellValue[][]][] = [
@@ -122,6 +155,8 @@ export async function run(): Promise<void> {
   ];
   for (const [what, cells] of wide) {
     const r = timed(cells, 'symbolic');
-    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})`);
+    const rows = what.includes(' x 300 ') ? ` (${conflictingPairs(cells)})` : '';
+    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${before(what)}`);
   }
+  console.log(`baseline: ${baseline.source}`);
 }
