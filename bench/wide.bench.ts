@@ -2,9 +2,14 @@
 // at 16, 20 and 24 inputs, then the symbolic engine alone at 32-64 inputs. Whole analysis
 // in-process (reading the grid included); seeds fixed. Peak memory is the largest RSS sampled
 // during the run (the process's, so it includes what earlier runs left behind). Beside each
-// symbolic figure: the same table on the baseline commit (bench/wide-baseline.json: that
-// commit's bench, run on this machine, with its load average).
-import { readFileSync } from 'node:fs';
+// symbolic figure: the same table through the baseline commit's engine in the same run (its
+// `src` taken from git into a temporary folder; bench/wide-baseline.json names the commit and
+// holds its figures from an earlier run, printed instead when git cannot give the tree).
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { CellValue } from '../src/spec/types.js';
 import { analyseTable } from '../src/spec/analyse.js';
 import { analysisJson } from '../src/spec/analysis-json.js';
@@ -15,13 +20,44 @@ import { wideDisjoint } from '../src/logic/wide-cube.js';
 import { wideRowCube } from '../src/spec/read-wide.js';
 
 interface Baseline {
+  readonly commit: string;
   readonly source: string;
-  /** Per table label: the symbolic engine's ms and what it gave. */
+  /** Per table label: the symbolic engine's figure in an earlier run. */
   readonly symbolic: Record<string, string>;
 }
 
-const baseline = JSON.parse(readFileSync(new URL('./wide-baseline.json', import.meta.url), 'utf8')) as Baseline;
-const before = (label: string): string => `; baseline ${baseline.symbolic[label] ?? 'not measured'}`;
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+const baseline = JSON.parse(readFileSync(join(ROOT, 'bench/wide-baseline.json'), 'utf8')) as Baseline;
+
+/** The three calls the bench makes, from one tree of the sources. */
+interface Engine {
+  readonly readSpecTables: typeof readSpecTables;
+  readonly analyseTable: typeof analyseTable;
+  readonly analysisJson: typeof analysisJson;
+}
+
+const current: Engine = { readSpecTables, analyseTable, analysisJson };
+
+/** The baseline commit's engine, or why there is none. */
+async function baselineEngine(): Promise<{ engine: Engine; dispose: () => void } | string> {
+  const archive = spawnSync('git', ['archive', baseline.commit, 'src'], { cwd: ROOT, maxBuffer: 1 << 28 });
+  if (archive.error || archive.status !== 0) return `git cannot give commit ${baseline.commit} (${(archive.error?.message ?? archive.stderr.toString()).trim()})`;
+  const dir = mkdtempSync(join(tmpdir(), 'wide-baseline-'));
+  const dispose = (): void => rmSync(dir, { recursive: true, force: true });
+  const untar = spawnSync('tar', ['-x', '-C', dir], { input: archive.stdout });
+  if (untar.error || untar.status !== 0) {
+    dispose();
+    return 'tar cannot unpack the baseline sources';
+  }
+  symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'));
+  const load = async <T>(path: string): Promise<T> => (await import(pathToFileURL(join(dir, path)).href)) as T;
+  const engine: Engine = {
+    readSpecTables: (await load<Engine>('src/spec/read-tables.ts')).readSpecTables,
+    analyseTable: (await load<Engine>('src/spec/analyse.ts')).analyseTable,
+    analysisJson: (await load<Engine>('src/spec/analysis-json.ts')).analysisJson,
+  };
+  return { engine, dispose };
+}
 
 function random(seed: number): () => number {
   let state = seed >>> 0;
@@ -93,15 +129,15 @@ const sample = (): void => {
   peak = Math.max(peak, process.memoryUsage.rss());
 };
 
-function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic'): { ms: number; mb: number; a: TableAnalysis } {
+function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic', code: Engine = current): { ms: number; mb: number; a: TableAnalysis } {
   peak = 0;
   const timer = setInterval(sample, 5);
   sample();
   const t0 = now();
-  const read = readSpecTables({ sheet: 'Bench', origin: 'A1', cells });
+  const read = code.readSpecTables({ sheet: 'Bench', origin: 'A1', cells });
   const table = read.tables[0]!;
-  const a = analyseTable(table, { engine });
-  JSON.stringify(analysisJson(a));
+  const a = code.analyseTable(table, { engine });
+  JSON.stringify(code.analysisJson(a));
   const ms = now() - t0;
   sample();
   clearInterval(timer);
@@ -136,6 +172,15 @@ function conflictingPairs(cells: CellValue[][]): string {
 
 export async function run(): Promise<void> {
   console.log('whole analysis in-process (read, forms, proofs, JSON); peak = largest RSS sampled');
+  const base = await baselineEngine();
+  const before = (label: string, cells: CellValue[][]): string => {
+    if (typeof base === 'string') return `; baseline (earlier run) ${baseline.symbolic[label] ?? 'not measured'}`;
+    const r = timed(cells, 'symbolic', base.engine);
+    return `; baseline ${r.ms.toFixed(0)} ms (${summary(r.a)})`;
+  };
+  // Both engines' code compiled once before anything is timed.
+  timed(permitTable(16, 1), 'symbolic');
+  if (typeof base !== 'string') timed(permitTable(16, 1), 'symbolic', base.engine);
   for (const n of [16, 20, 24]) {
     const cells = permitTable(n, 1000 + n);
     const symbolic = timed(cells, 'symbolic');
@@ -143,7 +188,7 @@ export async function run(): Promise<void> {
     const label = `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows`;
     console.log(
       `${label}: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
-        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${before(label)}`,
+        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${before(label, cells)}`,
     );
   }
   const wide: [string, CellValue[][]][] = [
@@ -156,7 +201,11 @@ export async function run(): Promise<void> {
   for (const [what, cells] of wide) {
     const r = timed(cells, 'symbolic');
     const rows = what.includes(' x 300 ') ? ` (${conflictingPairs(cells)})` : '';
-    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${before(what)}`);
+    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${before(what, cells)}`);
   }
-  console.log(`baseline: ${baseline.source}`);
+  if (typeof base === 'string') console.log(`baseline: ${baseline.source}; not run now: ${base}`);
+  else {
+    console.log(`baseline: commit ${baseline.commit}, symbolic engine, run just after each figure in this process`);
+    base.dispose();
+  }
 }
