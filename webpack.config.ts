@@ -110,6 +110,9 @@ export default (_env: unknown, argv: { mode?: string }): webpack.Configuration &
         {
           test: /\.tsx?$/,
           exclude: /node_modules/,
+          // Our TypeScript modules run nothing when imported (the entries and workers are
+          // entries): a module of a layer's index.ts whose exports are not used is left out.
+          sideEffects: false,
           loader: 'esbuild-loader',
           options: { loader: 'tsx', target: 'es2020', jsx: 'automatic', jsxImportSource: 'preact' },
         },

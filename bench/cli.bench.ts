@@ -11,9 +11,9 @@ import XLSX from 'xlsx';
 import { main } from '../src/cli/main.js';
 import { openFile } from '../src/hosts/file-host.js';
 import { sheetFromCells } from '../src/hosts/xlsx-write.js';
-import { analyseTable } from '../src/spec/analyse.js';
-import { readSpecTables } from '../src/spec/read-tables.js';
-import type { CellValue } from '../src/spec/types.js';
+import { analyseTable } from '../src/analysis/analyse.js';
+import { readSpecTables } from '../src/table/read-tables.js';
+import type { CellValue } from '../src/table/types.js';
 
 const N = 16;
 /** The machine running the bench may be shared: a generous parse limit keeps the figures coming. */

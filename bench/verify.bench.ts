@@ -5,7 +5,7 @@ import { buildFunction, type TableRow } from '../src/logic/boolfn.js';
 import { cube, cubeContains, type Cube } from '../src/logic/cube.js';
 import { readImplementation } from '../src/impl/read.js';
 import { verifyImplementation } from '../src/impl/verify.js';
-import type { SpecRow, SpecTable } from '../src/spec/types.js';
+import type { SpecRow, SpecTable } from '../src/table/types.js';
 
 const N = 16;
 const TERMS = 24;

@@ -10,17 +10,19 @@ import { mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import type { CellValue } from '../src/spec/types.js';
-import { analyseTable } from '../src/spec/analyse.js';
-import { analysisJson } from '../src/spec/analysis-json.js';
-import type { TableAnalysis } from '../src/spec/analysis-types.js';
-import { readSpecTables } from '../src/spec/read-tables.js';
+import type { CellValue } from '../src/table/types.js';
+import { analyseTable } from '../src/analysis/analyse.js';
+import { analysisJson } from '../src/report/analysis-json.js';
+import type { TableAnalysis } from '../src/analysis/analysis-types.js';
+import { readSpecTables } from '../src/table/read-tables.js';
 import { now } from '../src/logic/deadline.js';
 import { wideDisjoint } from '../src/logic/wide-cube.js';
-import { wideRowCube } from '../src/spec/read-wide.js';
+import { wideRowCube } from '../src/table/read-wide.js';
 
 interface Baseline {
   readonly commit: string;
+  /** Where that commit keeps the three modules the bench calls. */
+  readonly modules: { readonly readSpecTables: string; readonly analyseTable: string; readonly analysisJson: string };
   readonly source: string;
   /** Per table label: the symbolic engine's figure in an earlier run. */
   readonly symbolic: Record<string, string>;
@@ -52,9 +54,9 @@ async function baselineEngine(): Promise<{ engine: Engine; dispose: () => void }
   symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'));
   const load = async <T>(path: string): Promise<T> => (await import(pathToFileURL(join(dir, path)).href)) as T;
   const engine: Engine = {
-    readSpecTables: (await load<Engine>('src/spec/read-tables.ts')).readSpecTables,
-    analyseTable: (await load<Engine>('src/spec/analyse.ts')).analyseTable,
-    analysisJson: (await load<Engine>('src/spec/analysis-json.ts')).analysisJson,
+    readSpecTables: (await load<Engine>(baseline.modules.readSpecTables)).readSpecTables,
+    analyseTable: (await load<Engine>(baseline.modules.analyseTable)).analyseTable,
+    analysisJson: (await load<Engine>(baseline.modules.analysisJson)).analysisJson,
   };
   return { engine, dispose };
 }

@@ -6,7 +6,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import XLSX from 'xlsx';
 import { sheetFromCells } from '../src/hosts/xlsx-write.js';
-import type { CellValue, Grid } from '../src/spec/types.js';
+import type { CellValue, Grid } from '../src/table/types.js';
 import { burnerWorkbook, conveyorWorkbook, pressWorkbook, type LayoutSheet, type LayoutWorkbook } from '../sample-workbooks/source/layouts.js';
 import {
   capperCell,

@@ -2,13 +2,16 @@
 // show the results, check an implementation, and hand the logic over. The same component runs
 // inside Excel (live workbook) and on the standalone page (a workbook file opened in the page).
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { BrowserFileHost } from '../src/hosts/browser-file-host.js';
-import type { ExcelHost, NamedTable } from '../src/hosts/excel-host.js';
-import type { RememberedValues } from '../src/hosts/excel-settings.js';
-import type { WorkbookHost, WriteReport } from '../src/hosts/workbook-host.js';
-import { CAUTION_LINES } from '../src/report/caution.js';
-import type { SheetBlock } from '../src/report/sheet-block.js';
-import { qualifiedAddress } from '../src/spec/grid.js';
+import type {
+  BrowserFileHost,
+  ExcelHost,
+  NamedTable,
+  RememberedValues,
+  WorkbookHost,
+  WriteReport,
+} from '../src/hosts/index.js';
+import { CAUTION_LINES, type SheetBlock } from '../src/report/index.js';
+import { qualifiedAddress } from '../src/table/index.js';
 import { readGrids, writeSheets, type HandOverKind, type WorkbookChoice, type WorkbookView } from '../src/workflow/index.js';
 import { CompareCard } from './compare.js';
 import { ExpressionCheck, FileCheck, Outcome, type WriteSheet } from './check.js';

@@ -1,12 +1,9 @@
 // Implementation check: an expression typed or pasted by the user, or an .st / PLCopen .xml file
 // (standalone page), checked against the spec on every input combination.
 import { useState } from 'preact/hooks';
-import type { Monomial } from '../src/logic/anf.js';
-import type { ImplCheck } from '../src/logic/implcheck.js';
-import type { EngineError } from '../src/logic/result.js';
-import { verifyReportText } from '../src/impl/verify-report.js';
-import { printMonomial } from '../src/impl/verify.js';
-import type { SheetBlock } from '../src/report/sheet-block.js';
+import type { EngineError, ImplCheck, Monomial } from '../src/logic/index.js';
+import { verifyReportText, type SheetBlock } from '../src/report/index.js';
+import { printMonomial } from '../src/impl/index.js';
 import { implementationWord, type TableView } from '../src/workflow/index.js';
 import type { Answers } from './engine-protocol.js';
 import { Cancelled, type Engine } from './engine.js';

@@ -3,9 +3,8 @@
 // output the kinds of change, "now permits" first and marked (the dangerous direction), the
 // steps to retest, and the change record and new test record written as new sheets.
 import { useState } from 'preact/hooks';
-import type { BrowserFileHost } from '../src/hosts/browser-file-host.js';
-import type { WorkbookHost } from '../src/hosts/workbook-host.js';
-import type { Result } from '../src/logic/result.js';
+import type { BrowserFileHost, WorkbookHost } from '../src/hosts/index.js';
+import type { Result } from '../src/logic/index.js';
 import { readGrids, writeSheets, type CompareView, type WorkbookChoice } from '../src/workflow/index.js';
 import { Outcome } from './check.js';
 import { Cancelled, type Engine } from './engine.js';

@@ -2,9 +2,9 @@
 // tables, analyse, verdicts), checks, sheets and hand-over files. It keeps the workbook it
 // examined, so requests name tables by id; test records are judged on their own. Tests drive
 // it with the requests the pane sends.
-import { readImplementation } from '../src/impl/read.js';
-import { fail, ok } from '../src/logic/result.js';
-import { checkSheet } from '../src/report/check-sheet.js';
+import { readImplementation } from '../src/impl/index.js';
+import { fail, ok } from '../src/logic/index.js';
+import { checkSheet } from '../src/report/index.js';
 import { checkExpression, compareView, compareWorkbooks, examine, handOverFiles, judgeRecords, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
 import type { EngineAnswer, EngineRequest } from './engine-protocol.js';
 

@@ -2,10 +2,9 @@
 // its answer type, and every answer is tagged with the kind it answers. The worker keeps the
 // workbook it examined; later requests name its tables by id instead of sending them again.
 // Everything is plain data (structured clone).
-import type { ImplCheck } from '../src/logic/implcheck.js';
-import type { Result } from '../src/logic/result.js';
-import type { VerifyReport } from '../src/impl/verify.js';
-import type { SheetBlock } from '../src/report/sheet-block.js';
+import type { ImplCheck, Result } from '../src/logic/index.js';
+import type { VerifyReport } from '../src/impl/index.js';
+import type { SheetBlock } from '../src/report/index.js';
 import type { CompareView, GridsRead, HandOverFile, HandOverRequest, ReadFailure, RecordGrids, RecordVerdict, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
 
 export interface Requests {

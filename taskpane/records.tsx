@@ -3,7 +3,7 @@
 // the same judgement as the command line's `record`. The cells are read here; the worker
 // re-reads and analyses the tables.
 import { useState } from 'preact/hooks';
-import type { WorkbookHost } from '../src/hosts/workbook-host.js';
+import type { WorkbookHost } from '../src/hosts/index.js';
 import { readRecordGrids, type RecordVerdict } from '../src/workflow/index.js';
 import { Outcome } from './check.js';
 import { Cancelled, type Engine } from './engine.js';

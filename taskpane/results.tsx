@@ -1,14 +1,10 @@
 // What the engine found in a spec table: signals, problems, and per output its forms with
 // their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on.
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import type { Combination } from '../src/logic/bits.js';
-import { inputValue } from '../src/logic/bits.js';
-import type { Signal } from '../src/logic/signals.js';
-import { ladderSvg } from '../src/report/ladder-svg.js';
-import type { AndOrForm, OutputAnalysis, XorForm } from '../src/spec/analysis-types.js';
-import { qualifiedAddress } from '../src/spec/grid.js';
-import { describeCube } from '../src/spec/read-tables.js';
-import type { Problem, RoleRule } from '../src/spec/types.js';
+import { inputValue, type Combination, type Signal } from '../src/logic/index.js';
+import { ladderSvg } from '../src/report/index.js';
+import type { AndOrForm, OutputAnalysis, XorForm } from '../src/analysis/index.js';
+import { describeCube, qualifiedAddress, type Problem, type RoleRule } from '../src/table/index.js';
 import { verdictWords, type Permission, type TableView, type Verdict } from '../src/workflow/index.js';
 import { copyText, download, safeFileName } from './files.js';
 

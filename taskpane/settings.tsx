@@ -2,9 +2,9 @@
 // or separator column decides), the safe value of each output, the X reading and the don't-care
 // policy. Remembered per reading target (the sheet, selection, Excel table or range read): with
 // the workbook in Excel (its document settings), while the page stays open on the standalone
-// page. The labels are the words src/spec/settings.ts quotes in problems: keep them together.
+// page. The labels are the words src/table/settings.ts quotes in problems: keep them together.
 import { useState } from 'preact/hooks';
-import type { DontCarePolicy } from '../src/spec/types.js';
+import type { DontCarePolicy } from '../src/table/index.js';
 import type { TableView } from '../src/workflow/index.js';
 import { DEFAULT_SETTINGS, type TableSettings } from './table-settings.js';
 

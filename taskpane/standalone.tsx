@@ -1,7 +1,7 @@
 // Entry of the standalone page (standalone.html): the same pane over a workbook file opened in
 // the browser. It does not load office.js.
 import { render } from 'preact';
-import { openBrowserFile } from '../src/hosts/browser-file-host.js';
+import { openBrowserFile } from '../src/hosts/index.js';
 import { App } from './app.js';
 import { applyTheme } from './theme.js';
 

@@ -1,8 +1,8 @@
 // The settings of a reading as plain data: what the settings card (settings.tsx) edits, how it
 // becomes the reader's options, and how it is read back from where it was remembered (the
 // workbook's document settings may hold anything).
-import type { RememberedValues } from '../src/hosts/excel-settings.js';
-import type { DontCarePolicy, HostKind, SpecOptions } from '../src/spec/types.js';
+import type { RememberedValues } from '../src/hosts/index.js';
+import type { DontCarePolicy, HostKind, SpecOptions } from '../src/table/index.js';
 
 export interface TableSettings {
   /** Leftmost columns that are inputs; absent = the table decides (role row, separator column). */

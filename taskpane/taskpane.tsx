@@ -1,8 +1,6 @@
 // Entry of the Excel task pane (taskpane.html, loaded by Excel from the manifest).
 import { render } from 'preact';
-import { openBrowserFile } from '../src/hosts/browser-file-host.js';
-import { officeExcelHost } from '../src/hosts/excel-host.js';
-import { officeStart } from '../src/hosts/excel-office.js';
+import { officeExcelHost, officeStart, openBrowserFile } from '../src/hosts/index.js';
 import { App } from './app.js';
 import { applyTheme } from './theme.js';
 

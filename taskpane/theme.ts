@@ -1,6 +1,6 @@
 // Light or dark: the Office theme when Excel reports one, else the system's colour scheme.
 // The palette itself is in styles.css (:root and :root[data-theme='dark']).
-import type { OfficeTheme } from '../src/hosts/excel-office.js';
+import type { OfficeTheme } from '../src/hosts/index.js';
 
 /** Relative luminance of "#rrggbb" (WCAG 2.x definition), 1 for anything unreadable. */
 function luminance(hex: string): number {

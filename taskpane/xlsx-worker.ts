@@ -2,7 +2,7 @@
 // One job per worker (as on the command line): the page posts the job, this realm answers
 // with plain grids (or the appended workbook's bytes) and is then thrown away.
 // A CSV job is answered by our own reader here, so that the page's main thread never parses.
-import { csvAnswer } from '../src/hosts/parsed-workbook.js';
+import { csvAnswer } from '../src/hosts/index.js';
 import { setWorkerData } from './worker-threads-shim.js';
 
 self.onmessage = async (event: MessageEvent) => {

@@ -3,14 +3,14 @@
 // The verdicts and the sheets written are the workflow's; this file brings the file I/O.
 import { mkdir } from 'node:fs/promises';
 import { dirname, resolve } from 'node:path';
-import { sameFile } from '../hosts/file-host.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import { sameFile } from '../hosts/node.js';
+import { qualifiedAddress } from '../table/index.js';
 import { allCleared, sheetsToWrite, verdictWords, workbookJson, workbookVerdictText, writeSheets, type TableResult, type Workbook } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { examineLoaded, loadTables } from './load.js';
 import type { Progress } from './progress.js';
-import { analysisReport, problemLine, tableReport } from './report-text.js';
+import { analysisReport, problemLine, tableReport } from '../report/index.js';
 
 type AnalyzeCommand = Extract<Command, { name: 'analyze' }>;
 

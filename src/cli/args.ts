@@ -1,9 +1,7 @@
 // Command-line words -> a command, or the usage error to print (exit status 2).
-import type { SafeValue } from '../logic/boolfn.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import type { FormChoice } from '../report/st-export.js';
-import { parseRange } from '../spec/grid.js';
-import type { DontCarePolicy } from '../spec/types.js';
+import { fail, ok, type Result, type SafeValue } from '../logic/index.js';
+import type { FormChoice } from '../report/index.js';
+import { parseRange, type DontCarePolicy } from '../table/index.js';
 
 /** Which tables to read, and how (the options of every command that reads a workbook). */
 export interface SpecChoice {

@@ -4,16 +4,15 @@
 import { mkdir } from 'node:fs/promises';
 import { basename, dirname, resolve } from 'node:path';
 import { comparisonJson, comparisonReport, problemJson } from '../compare/index.js';
-import { openFile, sameFile } from '../hosts/file-host.js';
-import { readTestRecord, type FilledRecord } from '../report/record-read.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import type { Problem } from '../spec/types.js';
+import { openFile, sameFile } from '../hosts/node.js';
+import { problemLine, readTestRecord, type FilledRecord } from '../report/index.js';
+import { fail, ok, type Result } from '../logic/index.js';
+import type { Problem } from '../table/index.js';
 import { compareWorkbooks, writeSheets, type TableCompared } from '../workflow/index.js';
 import type { CompareCommand } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { loadTables } from './load.js';
 import type { Progress } from './progress.js';
-import { problemLine } from './report-text.js';
 
 /** Every record sheet of a filled-in record workbook. */
 async function readRecords(file: string, progress: Progress): Promise<Result<FilledRecord[], string>> {

@@ -2,13 +2,13 @@
 // spec table read, written only when the workflow allows it (every table cleared).
 import { mkdir } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
-import { sameFile, writeOutputFile } from '../hosts/file-host.js';
+import { sameFile, writeOutputFile } from '../hosts/node.js';
 import { errorsOf, handOverFiles, workbookVerdictText, type HandOverKind } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { examineLoaded, loadTables } from './load.js';
 import type { Progress } from './progress.js';
-import { problemLine } from './report-text.js';
+import { problemLine } from '../report/index.js';
 
 type ExportCommand = Extract<Command, { name: 'export' }>;
 

@@ -1,9 +1,9 @@
 // Open the file and read its spec tables through the workflow, as the options say: shared by
 // analyze, export, verify. The file host and its messages are the command line's own.
 import { basename } from 'node:path';
-import { fail, ok, type Result } from '../logic/result.js';
-import { openFile, type FileHost } from '../hosts/file-host.js';
-import type { SpecTable } from '../spec/types.js';
+import { fail, ok, type Result } from '../logic/index.js';
+import { openFile, type FileHost } from '../hosts/node.js';
+import type { SpecTable } from '../table/index.js';
 import { examine, readGrids, readTables, type ReadFailure, type TablesRead, type Workbook, type WorkbookChoice } from '../workflow/index.js';
 import type { SpecChoice } from './args.js';
 import type { Progress } from './progress.js';

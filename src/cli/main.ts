@@ -1,7 +1,7 @@
 // interlock-algebra: the command line over the file host (DESIGN.md section 4).
 // `main(argv, io)` returns the exit status, so that tests run the CLI in-process.
 import { pathToFileURL } from 'node:url';
-import { fileSystemErrorText, isFileSystemError } from '../hosts/fs-errors.js';
+import { fileSystemErrorText, isFileSystemError } from '../hosts/node.js';
 import { parseArgs, USAGE, type Command } from './args.js';
 import { EXIT, processIo, type CliIo, type ExitCode } from './io.js';
 import { Progress } from './progress.js';

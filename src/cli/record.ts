@@ -2,14 +2,13 @@
 // the settings it was read with; the table is read again the same way, and the record is
 // current only when its revision stamp still matches (src/workflow/records.ts, shared with the
 // pane and the page). The workbook is only read, never written.
-import { openFile } from '../hosts/file-host.js';
-import { CAUTION_LINES } from '../report/caution.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import { openFile } from '../hosts/node.js';
+import { CAUTION_LINES, problemLine } from '../report/index.js';
+import { qualifiedAddress } from '../table/index.js';
 import { checkRecords, recordsCleared, type RecordVerdict } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import type { Progress } from './progress.js';
-import { problemLine } from './report-text.js';
 
 type RecordCommand = Extract<Command, { name: 'record' }>;
 

@@ -2,17 +2,15 @@
 // every input combination, with counterexamples where it differs.
 import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
-import type { Result } from '../logic/result.js';
-import { readMappingCsv } from '../impl/mapping.js';
-import { readImplementation } from '../impl/read.js';
-import { verifyReportJson, verifyReportText } from '../impl/verify-report.js';
+import type { Result } from '../logic/index.js';
+import { readImplementation, readMappingCsv } from '../impl/index.js';
+import { problemLine, verifyReportJson, verifyReportText } from '../report/index.js';
 import { errorsOf, programCleared, verifyProgram } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { examineLoaded, loadTables } from './load.js';
 import type { Progress } from './progress.js';
-import { problemLine } from './report-text.js';
-import { fileSystemReason } from '../hosts/fs-errors.js';
+import { fileSystemReason } from '../hosts/node.js';
 
 type VerifyCommand = Extract<Command, { name: 'verify' }>;
 

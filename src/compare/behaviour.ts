@@ -1,12 +1,24 @@
 // The behaviour of one output before and after an edit, compared on every combination of the
 // joint inputs (those of the new table, in its order) with bit sets: what is ON, OFF or
 // don't-care in each revision, where the rows leave gaps and where they conflict.
-import { count, emptySet, equals, flipBit, intersect, minus, symmetricDifference, union, type BitSet } from '../logic/bits.js';
-import { offSet, type BoolFunction } from '../logic/boolfn.js';
-import { cube, cubeToSet, type Cube } from '../logic/cube.js';
-import { setToCubes } from '../logic/primes.js';
-import type { OutputSpec } from '../spec/types.js';
-import { gapCubes } from '../spec/uncovered.js';
+import {
+  count,
+  cube,
+  cubeToSet,
+  emptySet,
+  equals,
+  flipBit,
+  intersect,
+  minus,
+  offSet,
+  setToCubes,
+  symmetricDifference,
+  union,
+  type BitSet,
+  type BoolFunction,
+  type Cube,
+} from '../logic/index.js';
+import { gapCubes, type OutputSpec } from '../table/index.js';
 
 /**
  * How the old table's inputs sit among the joint inputs: `oldToJoint[i]` is the joint position

@@ -1,8 +1,8 @@
 // The comparison as plain JSON data: combinations as patterns over the joint inputs, leftmost
 // first ('-' = any), as the analysis JSON writes them.
-import { cubeToPattern } from '../logic/cube.js';
-import { CAUTION } from '../report/caution.js';
-import type { Problem } from '../spec/types.js';
+import { cubeToPattern } from '../logic/index.js';
+import { CAUTION } from '../report/index.js';
+import type { Problem } from '../table/index.js';
 import type { ChangeSet } from './behaviour.js';
 import type { TableComparison } from './compare.js';
 import type { Retest } from './retest.js';

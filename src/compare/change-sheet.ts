@@ -1,17 +1,21 @@
 // The change record: what a management-of-change review signs. Both revision stamps, per output
 // what changed (now permits first), the retest, and fields for the people who sign it.
-import { CAUTION_LINES } from '../report/caution.js';
-import type { BlockCell, SheetBlock } from '../report/sheet-block.js';
-import { printSetup } from '../report/sheet-looks.js';
-import { sheetName } from '../report/test-steps.js';
-import { plural } from '../report/text.js';
-import { TOOL_NAME, TOOL_VERSION } from '../report/version.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import {
+  CAUTION_LINES,
+  plural,
+  printSetup,
+  sheetName,
+  TOOL_NAME,
+  TOOL_VERSION,
+  type BlockCell,
+  type SheetBlock,
+} from '../report/index.js';
+import { qualifiedAddress } from '../table/index.js';
 import { CHANGE_KINDS } from './change-json.js';
 import { kindTitle } from './change-text.js';
 import type { OutputComparison, TableComparison } from './compare.js';
 import type { Retest } from './retest.js';
-import { cubeToPattern } from '../logic/cube.js';
+import { cubeToPattern } from '../logic/index.js';
 
 type Row = (BlockCell | null)[];
 

@@ -2,12 +2,9 @@
 // output the combinations that now permit (the dangerous direction, first and marked), now trip,
 // changed don't-care, opened or closed gaps, as small tables with one column per input; the
 // rows that differ, the AND/OR forms before and after, and the retest.
-import { cubeToPattern, type Cube } from '../logic/cube.js';
-import type { Signal } from '../logic/signals.js';
-import { CAUTION_LINES } from '../report/caution.js';
-import { plural } from '../report/text.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { Problem } from '../spec/types.js';
+import { cubeToPattern, type Cube, type Signal } from '../logic/index.js';
+import { CAUTION_LINES, plural } from '../report/index.js';
+import { qualifiedAddress, type Problem } from '../table/index.js';
 import type { ChangeSet } from './behaviour.js';
 import { CHANGE_KINDS, type ChangeKind } from './change-json.js';
 import type { OutputComparison, TableComparison } from './compare.js';

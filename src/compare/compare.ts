@@ -1,12 +1,10 @@
 // Two revisions of a spec table compared by behaviour: signals matched (renamed, added,
 // removed), per output the exact change over every joint combination, the rows that differ as
 // context, and the AND/OR forms before and after.
-import { cubeToPattern, type Cube } from '../logic/cube.js';
-import { signalIndex, type Signal } from '../logic/signals.js';
-import { revisionStamp } from '../report/revision.js';
-import { analyseTable, type AnalyseOptions } from '../spec/analyse.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
-import type { Problem, SpecTable } from '../spec/types.js';
+import { cubeToPattern, signalIndex, type Cube, type Signal } from '../logic/index.js';
+import { revisionStamp } from '../report/index.js';
+import { analyseTable, type AnalyseOptions, type TableAnalysis } from '../analysis/index.js';
+import type { Problem, SpecTable } from '../table/index.js';
 import { behaviourChange, behaviourChanged, remapCube, removedInputsUsed, type BehaviourChange, type JointInputs } from './behaviour.js';
 import { matchSignals, type Rename, type SignalMatch } from './match.js';
 

@@ -1,8 +1,8 @@
 // Which signal of the new table is which of the old, and which table is which: by identifier,
 // then by header (case-insensitive), nothing guessed. A signal matched by identifier whose
 // header text changed is reported as renamed.
-import { signalIndex, type Signal } from '../logic/signals.js';
-import type { SpecTable } from '../spec/types.js';
+import { signalIndex, type Signal } from '../logic/index.js';
+import type { SpecTable } from '../table/index.js';
 
 export interface SignalPair {
   readonly old: Signal;

@@ -1,18 +1,29 @@
 // Which steps of the old commissioning test record still hold after an edit, which must be
 // repeated (a value they expect changed, or a product term they test is not in the new form),
 // and which steps of the new record are new. The new record marks each step.
-import { has, popcount, type Combination } from '../logic/bits.js';
-import { cube, cubeContains, type Cube } from '../logic/cube.js';
-import { sopToExpr } from '../logic/expr/forms.js';
-import { printSt } from '../logic/expr/print-st.js';
-import { cubeMeetsSet } from '../logic/primes.js';
-import type { SheetBlock, BlockCell } from '../report/sheet-block.js';
-import { stepTable, testRecordSheet, type RecordOptions } from '../report/test-steps.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { Problem } from '../spec/types.js';
+import {
+  cube,
+  cubeContains,
+  cubeMeetsSet,
+  has,
+  popcount,
+  printSt,
+  sopToExpr,
+  type Combination,
+  type Cube,
+} from '../logic/index.js';
+import {
+  stepTable,
+  testRecordSheet,
+  type BlockCell,
+  type FilledRecord,
+  type RecordOptions,
+  type SheetBlock,
+  type StepResult,
+} from '../report/index.js';
+import { qualifiedAddress, type Problem } from '../table/index.js';
 import { remapCube } from './behaviour.js';
 import type { TableComparison } from './compare.js';
-import type { FilledRecord, StepResult } from '../report/record-read.js';
 
 /** One step of the old record: its test ID, its combination of the old inputs, the outputs it tests. */
 export interface OldStep {

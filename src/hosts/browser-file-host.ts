@@ -5,7 +5,7 @@
 // text goes through our own parser (csv.ts), in that worker too (the page stays responsive).
 // Results are new sheets added to a copy of the workbook's package (xlsx-package.ts), offered
 // as a download: the user's file is never changed.
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, type Result } from '../logic/index.js';
 import { inflateRawWeb } from './zip-package.mjs';
 import { fileKind, ParsedWorkbook, readSheets, type FileKind, type FileRead, type RunParseJob, type UnpackBudget } from './parsed-workbook.js';
 

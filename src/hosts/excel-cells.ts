@@ -1,6 +1,6 @@
 // Cells between Office.js and our types, and the split of big ranges into requests that fit.
-import type { BlockCell } from '../report/sheet-block.js';
-import type { CellValue } from '../spec/types.js';
+import type { BlockCell } from '../report/index.js';
+import type { CellValue } from '../table/index.js';
 import type { XlValue } from './excel-api.js';
 
 /**

@@ -1,10 +1,17 @@
 // WorkbookHost over Office.js: the live workbook in Excel. Big ranges go in blocks of rows that
 // keep each request under Excel on the web's 5 MB limit; values and formulas are written
 // before any format; results always go to a new sheet, checked empty before writing.
-import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
-import { LOOKS, PAGE_FOOTER, STATUS_LOOKS, footerText, type Look } from '../report/sheet-looks.js';
-import { cellAddress, columnLetters } from '../spec/grid.js';
-import type { CellValue, Grid } from '../spec/types.js';
+import {
+  footerText,
+  LOOKS,
+  PAGE_FOOTER,
+  STATUS_LOOKS,
+  type BlockCell,
+  type CellStyle,
+  type Look,
+  type SheetBlock,
+} from '../report/index.js';
+import { cellAddress, columnLetters, type CellValue, type Grid } from '../table/index.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
 import { XL_ERROR, xlErrorCode, type XlContext, type XlRange, type XlRun, type XlSupports, type XlWorksheet } from './excel-api.js';
 import {
@@ -18,7 +25,7 @@ import {
   topLeftOf,
 } from './excel-cells.js';
 import { freeSheetName } from './xlsx-write.js';
-import { appendAll, maxOf } from '../logic/arrays.js';
+import { appendAll, maxOf } from '../logic/index.js';
 
 /** An Excel table (ListObject) the user may pick instead of a selection. */
 export interface NamedTable {

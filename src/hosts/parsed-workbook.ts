@@ -2,12 +2,19 @@
 // sheets queued for a copy of it. Neutral about where it runs (no node: imports): the command
 // line (file-host.ts) and the standalone page (browser-file-host.ts) each bring the file's bytes
 // and their own way of running parse-worker.mjs, the only place SheetJS parses a user's file.
-import { maxOf } from '../logic/arrays.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import type { SheetBlock } from '../report/sheet-block.js';
-import { parseCsv } from '../spec/csv.js';
-import { cellAddress, intersectRanges, parseRange, restrictGrid } from '../spec/grid.js';
-import type { CellValue, Grid, Problem, Severity } from '../spec/types.js';
+import { fail, maxOf, ok, type Result } from '../logic/index.js';
+import type { SheetBlock } from '../report/index.js';
+import {
+  cellAddress,
+  intersectRanges,
+  parseCsv,
+  parseRange,
+  restrictGrid,
+  type CellValue,
+  type Grid,
+  type Problem,
+  type Severity,
+} from '../table/index.js';
 import type { WorkbookHost, WriteReport } from './workbook-host.js';
 import type { ZipBudget } from './zip-package.mjs';
 import { addSheets, newWorkbook, type InflateRaw, type NamedBlock } from './xlsx-package.js';

@@ -1,6 +1,6 @@
 // One interface over the workbook, whether it is the live sheet in Excel or an .xlsx file.
-import type { SheetBlock } from '../report/sheet-block.js';
-import type { Grid, Problem } from '../spec/types.js';
+import type { SheetBlock } from '../report/index.js';
+import type { Grid, Problem } from '../table/index.js';
 
 export interface WriteReport {
   /** The sheet actually written (a suffix is added when the wanted name is taken). */

@@ -4,13 +4,19 @@
 // the styles part only grows (nothing in it is changed). SheetJS is never asked to write the
 // user's workbook, so nothing it cannot keep (styles, Tables, validation) is lost, and no
 // crafted part is parsed on the way out. Browser-safe (no node:); the host brings inflate.
-import { fail, ok, type Result } from '../logic/result.js';
-import { cellAddress, parseA1 } from '../spec/grid.js';
-import type { CellValue } from '../spec/types.js';
-import type { BlockCell, CellStyle, SheetBlock } from '../report/sheet-block.js';
-import { LOOKS, PAGE_FOOTER, STATUS_LOOKS, footerText, type Look } from '../report/sheet-looks.js';
+import { fail, maxOf, ok, type Result } from '../logic/index.js';
+import { cellAddress, parseA1, type CellValue } from '../table/index.js';
+import {
+  footerText,
+  LOOKS,
+  PAGE_FOOTER,
+  STATUS_LOOKS,
+  type BlockCell,
+  type CellStyle,
+  type Look,
+  type SheetBlock,
+} from '../report/index.js';
 import { readZip, storedEntry, writeZip, type ZipEntry } from './zip-package.mjs';
-import { maxOf } from '../logic/arrays.js';
 
 /** Raw inflate of one entry, refusing output over `maxBytes` (the host's own, bounded). */
 export type InflateRaw = (data: Uint8Array, maxBytes: number) => Promise<Uint8Array>;

@@ -2,8 +2,7 @@
 // Runs in the main thread: it only builds objects from our own data, it never parses a file.
 // Types only from SheetJS (addresses are ours): loading the library costs about a second, so
 // the command line never loads it in its main thread (the parse worker does).
-import { cellAddress, parseA1, rangeAddress } from '../spec/grid.js';
-import type { CellValue } from '../spec/types.js';
+import { cellAddress, parseA1, rangeAddress, type CellValue } from '../table/index.js';
 import type { CellObject, WorkSheet } from 'xlsx';
 
 /** Excel's error codes as stored in a file (SheetJS writes `{ t: 'e', v: code }`). */

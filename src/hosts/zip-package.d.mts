@@ -1,5 +1,5 @@
 // Types of zip-package.mjs (plain JavaScript, so that the parsing worker runs without a build).
-import type { Result } from '../logic/result.js';
+import type { Result } from '../logic/index.js';
 
 export interface ZipEntry {
   readonly name: string;

@@ -1,8 +1,7 @@
 // Walks over the expressions a program is read back into. They are DAGs: an intermediate
 // variable used twice is one shared subtree, and a chain of assignments is as deep as the
 // program is long. So every walk goes once per distinct node and none recurses.
-import { not, type Expr } from '../logic/expr/ast.js';
-import { postOrder } from '../logic/implcheck.js';
+import { not, postOrder, type Expr } from '../logic/index.js';
 
 type Var = Extract<Expr, { kind: 'var' }>;
 

@@ -4,8 +4,7 @@
 // truth table cannot judge. Output variables are taken in execution order, so a variable
 // written above and read further down is substituted. Every walk is iterative and the depth of
 // a network is capped: the file never decides how deep the call stack goes.
-import { FALSE, TRUE, xor, type Expr } from '../logic/expr/ast.js';
-import type { Result } from '../logic/result.js';
+import { FALSE, TRUE, xor, type Expr, type Result } from '../logic/index.js';
 import { bodyElements, namedValue, readBody, unevaluatedBlock, type BodyElement } from './graphic-parts.js';
 import { LineError } from './line-error.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';

@@ -1,7 +1,6 @@
 // What the two graphical readers (LD and FBD networks) share: the body's elements by localId,
 // errors as values, reading a variable an element names, recording a block not evaluated.
-import type { Expr } from '../logic/expr/ast.js';
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, type Expr, type Result } from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
 import { LineError } from './line-error.js';
 import type { PouBuilder } from './symbolic.js';

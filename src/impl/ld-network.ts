@@ -1,8 +1,7 @@
 // A PLCopen Ladder Diagram body read back: power flows from the left rail through contacts
 // (series = AND; several connections into one input = OR) into coils. Coils are taken in
 // execution order, so a coil's variable used as a contact further down is substituted.
-import { TRUE, type Expr } from '../logic/expr/ast.js';
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, TRUE, type Expr, type Result } from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
 import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';

@@ -1,10 +1,8 @@
 // An explicit name mapping between spec signals and program variables: plant tags rarely
 // equal spec headings (`I_GuardA_Closed` for "Guard A closed"). Two columns: spec signal,
 // program variable; read from a CSV file or from a sheet.
-import { fail, ok, type Result } from '../logic/result.js';
-import { csvRecords } from '../spec/csv.js';
-import { cellAddress, gridOrigin, qualifiedAddress } from '../spec/grid.js';
-import type { CellValue, Grid } from '../spec/types.js';
+import { fail, ok, type Result } from '../logic/index.js';
+import { cellAddress, csvRecords, gridOrigin, qualifiedAddress, type CellValue, type Grid } from '../table/index.js';
 
 export interface NamePair {
   /** The spec signal: its header or its identifier. */

@@ -1,6 +1,6 @@
 // PLCopen XML (TC6 2.0 and 2.01) read back: each POU's interface, and its body in Structured
 // Text, Ladder Diagram or FBD. Element names as in the published schemas (tc6_xml_v201.xsd).
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, type Result } from '../logic/index.js';
 import { readFbdBody } from './fbd-network.js';
 import { readLdBody } from './ld-network.js';
 import { tokenize, type Token } from './st-lexer.js';

@@ -1,5 +1,5 @@
 // One entry point for any implementation file: Structured Text or PLCopen XML.
-import type { Result } from '../logic/result.js';
+import type { Result } from '../logic/index.js';
 import { readPlcopen } from './plcopen-reader.js';
 import { readStFile } from './st-reader.js';
 import type { ImplProgram } from './types.js';

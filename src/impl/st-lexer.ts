@@ -1,7 +1,7 @@
 // Statement-level tokens of Structured Text (IEC 61131-3). Expressions themselves are parsed
 // by the engine's parser: these tokens only find statements, their extents and the parts of
 // an expression a truth table cannot judge.
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, type Result } from '../logic/index.js';
 
 export type TokenKind =
   | 'ident'

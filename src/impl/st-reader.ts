@@ -1,12 +1,17 @@
 // Structured Text read back: POUs, their declarations, and their statements executed
 // symbolically into one Boolean expression per assigned BOOL. Expressions go to the engine's
 // parser; this file only finds statements and the parts a truth table cannot judge.
-import type { Expr } from '../logic/expr/ast.js';
-import { FALSE, TRUE } from '../logic/expr/ast.js';
-import { parseExpression } from '../logic/expr/parse.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import type { Signal } from '../logic/signals.js';
-import { isReserved } from '../logic/identifiers.js';
+import {
+  fail,
+  FALSE,
+  isReserved,
+  ok,
+  parseExpression,
+  TRUE,
+  type Expr,
+  type Result,
+  type Signal,
+} from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
 import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';

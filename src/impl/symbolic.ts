@@ -1,8 +1,7 @@
 // Symbolic execution of one POU's scan: every variable's current value as an expression over
 // leaves (inputs, previous-scan values, and opaque values a truth table cannot judge). Both
 // the ST and the LD readers drive it; at the end each assigned BOOL becomes an ImplOutput.
-import { FALSE, TRUE, and, not, or, variable, type Expr } from '../logic/expr/ast.js';
-import { postOrder } from '../logic/implcheck.js';
+import { and, FALSE, not, or, postOrder, TRUE, variable, type Expr } from '../logic/index.js';
 import { mapVars } from './expr-dag.js';
 import { LineError } from './line-error.js';
 import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable, VarSection } from './types.js';

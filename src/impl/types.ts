@@ -1,6 +1,6 @@
 // Implemented PLC logic as read back from a file: per POU, the Boolean expression each
 // assigned variable ends a scan with, and what a truth table cannot judge.
-import type { Expr } from '../logic/expr/ast.js';
+import type { Expr } from '../logic/index.js';
 
 /** Why an output cannot be checked against a truth table. */
 export type CannotJudgeKind =

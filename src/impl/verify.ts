@@ -2,17 +2,26 @@
 // implements it, its inputs matched to the program's, and the two functions compared on every
 // input combination. Gaps and conflicts are judged at the safe value, as the spec's functions
 // take them (`gapsFree` leaves gaps unjudged); don't-cares are reported beside, never differences.
-import type { Monomial } from '../logic/anf.js';
-import { count, has, intersect, members, minus, union, type Combination } from '../logic/bits.js';
-import type { BoolFunction } from '../logic/boolfn.js';
-import { cubeContains } from '../logic/cube.js';
-import { variable, type Expr } from '../logic/expr/ast.js';
-import { checkImplementation } from '../logic/implcheck.js';
+import {
+  checkImplementation,
+  count,
+  cubeContains,
+  has,
+  intersect,
+  LISTED,
+  members,
+  minus,
+  signalIndex,
+  union,
+  variable,
+  type BoolFunction,
+  type Combination,
+  type Expr,
+  type Monomial,
+  type Signal,
+} from '../logic/index.js';
 import { mapVars, nodeCount, varsOf } from './expr-dag.js';
-import { LISTED } from '../logic/proof.js';
-import { signalIndex, type Signal } from '../logic/signals.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { SpecTable } from '../spec/types.js';
+import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import type { NameMapping, NamePair } from './mapping.js';
 import type { CannotJudge, ImplOutput, ImplPou, ImplProgram } from './types.js';
 

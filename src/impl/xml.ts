@@ -2,7 +2,7 @@
 // user-defined entities: a DOCTYPE that declares entities is refused outright (this closes
 // external-entity reads and entity-expansion bombs), and only the five predefined entities
 // and numeric character references are decoded.
-import { fail, ok, type Result } from '../logic/result.js';
+import { fail, ok, type Result } from '../logic/index.js';
 import { LineError } from './line-error.js';
 
 export interface XmlElement {

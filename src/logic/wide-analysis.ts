@@ -58,7 +58,7 @@ export interface WideOutputForms {
   readonly permitsAlsoCount: bigint;
 }
 
-/** As `DontCarePolicy` (spec/types.ts): `minimal` as the minimal AND/OR form uses them, `safe` at the safe value. */
+/** As `DontCarePolicy` (table/types.ts): `minimal` as the minimal AND/OR form uses them, `safe` at the safe value. */
 export type WidePolicy = 'minimal' | 'safe';
 
 /** The spec with its don't-cares at the safe value (none left). */

@@ -2,19 +2,14 @@
 // counterexamples as rows (inputs 0/1, expected, actual, the spec row they contradict), the
 // ANF monomials by which implementation and spec differ, and the don't-care/gap notes. A pasted
 // expression (one output) and a program file (every output) come to the same sections.
-import { count, has, type Combination } from '../logic/bits.js';
-import type { ImplCheck } from '../logic/implcheck.js';
-import type { Signal } from '../logic/signals.js';
-import { printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/verify.js';
-import { kindWord } from '../impl/constructs.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { SpecTable } from '../spec/types.js';
+import { appendAll, count, has, maxOf, type Combination, type ImplCheck, type Signal } from '../logic/index.js';
+import { kindWord, printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/index.js';
+import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import { CAUTION_LINES } from './caution.js';
 import { CELL_CHARS, code, heading, label } from './results-sheet.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { sheetName } from './test-steps.js';
 import { fit, plural } from './text.js';
-import { appendAll, maxOf } from '../logic/arrays.js';
 
 export type CheckSubject =
   /** An expression typed or pasted for one output of a table, checked by `checkImplementation`. */

@@ -6,9 +6,7 @@
 // line through an IEC 61131-3 connector (end of the line) and a continuation of the same name
 // (start of the next line), never through a drawn wire that could be read as a branch: the
 // only vertical wires are the bus that joins the ends of the parallel branches.
-import type { Cube } from '../logic/cube.js';
-import type { Signal } from '../logic/signals.js';
-import { maxOf } from '../logic/arrays.js';
+import { maxOf, type Cube, type Signal } from '../logic/index.js';
 
 export type LadderNodeKind = 'left-rail' | 'right-rail' | 'contact' | 'coil' | 'connector' | 'continuation';
 

@@ -3,8 +3,8 @@
 // connector / continuation pair >n> where a branch continues on the next line.
 // Plain black on white, text no smaller than 11 px; labels wrap, never cut; as wide as the
 // rung needs, up to the width asked for.
-import type { Signal } from '../logic/signals.js';
-import type { OutputAnalysis } from '../spec/analysis-types.js';
+import type { Signal } from '../logic/index.js';
+import type { OutputAnalysis } from '../analysis/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import { LADDER, ladderGraph, wrapWhole, type LadderGraph, type LadderNode, type LadderWire } from './ladder-graph.js';
 import { escapeXml, plural } from './text.js';

@@ -1,8 +1,7 @@
 // The results sheet of a spec table that was not analysed because it has errors: which table,
 // why nothing was derived, each problem at its cell, and the signals read. No form, no proof,
 // no test step: nothing here can be mistaken for a cleared result.
-import type { SpecTable } from '../spec/types.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import { CAUTION_LINES } from './caution.js';
 import { code, heading, label } from './results-sheet.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';

@@ -3,8 +3,8 @@
 // Element order and required attributes follow the published schema tc6_xml_v201.xsd
 // (PLCopen, namespace http://www.plcopen.org/xml/tc6_0201); test/report/plcopen-export.test.ts
 // checks them.
-import type { Signal } from '../logic/signals.js';
-import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
+import type { Signal } from '../logic/index.js';
+import type { OutputAnalysis, TableAnalysis } from '../analysis/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import { ladderGraph, type LadderGraph, type LadderNode } from './ladder-graph.js';
 import {

@@ -1,9 +1,19 @@
 // A commissioning test record read back once filled in: each step passed, failed or not run,
 // every cell we cannot read a problem at its address, and whether the table in the workbook is
 // still the revision the record was made from. Nothing here writes: the record stays as it is.
-import { gridCell, gridOrigin, gridWidth, cellAddress } from '../spec/grid.js';
-import type { CellValue, Grid, Problem, ProblemCode, SpecOptions, SpecTable } from '../spec/types.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
+import {
+  cellAddress,
+  gridCell,
+  gridOrigin,
+  gridWidth,
+  type CellValue,
+  type Grid,
+  type Problem,
+  type ProblemCode,
+  type SpecOptions,
+  type SpecTable,
+} from '../table/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
 import { revisionStamp, parseSettingsLine } from './revision.js';
 import { RECORD_TITLE, stepTable, type Expected } from './test-steps.js';
 

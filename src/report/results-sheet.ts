@@ -2,21 +2,25 @@
 // inputs that do not matter, gaps, conflicts and don't-cares turned on; the signal names; the
 // test steps; and, for up to 12 inputs, a live check that recomputes every form with Excel
 // formulas from the input cells, one row per combination, with a status that reads OK/DIFFERS.
-import { has, type Combination } from '../logic/bits.js';
-import { cubeToPattern } from '../logic/cube.js';
-import { printExcel } from '../logic/expr/print-excel.js';
-import type { Expr } from '../logic/expr/ast.js';
-import { truthTable } from '../logic/expr/evaluate.js';
-import { ok, type Result } from '../logic/result.js';
-import type { OutputAnalysis, TableAnalysis } from '../spec/analysis-types.js';
-import { cellAddress, qualifiedAddress } from '../spec/grid.js';
+import {
+  appendAll,
+  cubeToPattern,
+  has,
+  ok,
+  printExcel,
+  truthTable,
+  type Combination,
+  type Expr,
+  type Result,
+} from '../logic/index.js';
+import type { OutputAnalysis, TableAnalysis } from '../analysis/index.js';
+import { cellAddress, qualifiedAddress } from '../table/index.js';
 import { CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { printSetup } from './sheet-looks.js';
 import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
 import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
 import { plural } from './text.js';
-import { appendAll } from '../logic/arrays.js';
 
 /** The live check writes one row per combination up to this many inputs (4,096 rows). */
 export const LIVE_CHECK_MAX_INPUTS = 12;

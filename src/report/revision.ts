@@ -2,8 +2,8 @@
 // a test record can tell whether the table in the workbook is still the one it was made from.
 // Only what the table means is hashed (signals, roles, rows as patterns and values, safe values,
 // the X reading, the don't-care policy): a cell re-typed with the same meaning (TRUE for 1) keeps the stamp.
-import { cubeToPattern } from '../logic/cube.js';
-import type { SpecOptions, SpecTable } from '../spec/types.js';
+import { cubeToPattern } from '../logic/index.js';
+import type { SpecOptions, SpecTable } from '../table/index.js';
 import { sha256Hex } from './sha256.js';
 
 /** "sha256:" and 64 hex digits. */

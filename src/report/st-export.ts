@@ -1,11 +1,10 @@
 // Structured Text hand-over: one FUNCTION_BLOCK (or PROGRAM) per spec table, BOOL inputs and
 // outputs named by the header -> identifier map, one assignment per output, and a header of
 // (* *) comments that says where the logic came from, how it was proven, and the caution.
-import { toIdentifiers } from '../logic/identifiers.js';
-import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../spec/analysis-types.js';
+import { appendAll, toIdentifiers } from '../logic/index.js';
+import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../analysis/index.js';
 import { CAUTION_LINES } from './caution.js';
 import { plural, stCommentText, wrap } from './text.js';
-import { appendAll } from '../logic/arrays.js';
 
 export type FormChoice = 'andOr' | 'xor' | 'bestXor';
 export type PouKind = 'FUNCTION_BLOCK' | 'PROGRAM';

@@ -2,9 +2,9 @@
 // to expect) with columns a commissioning engineer fills in and signs, under the caution, the
 // source and the revision stamp of the table. By default the unique-cause selection (each step
 // shows one input deciding an output); the full table on request. record-read.ts reads it back.
-import { has, inputValue, type Combination } from '../logic/bits.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import { has, inputValue, type Combination } from '../logic/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
+import { qualifiedAddress } from '../table/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { revisionStamp, settingsLine } from './revision.js';

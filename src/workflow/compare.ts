@@ -16,12 +16,9 @@ import {
   problemJson,
   type TableComparison,
 } from '../compare/index.js';
-import type { FilledRecord } from '../report/record-read.js';
-import type { SheetBlock } from '../report/sheet-block.js';
-import { analyseTable } from '../spec/analyse.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { Problem, SpecTable } from '../spec/types.js';
+import type { FilledRecord, SheetBlock } from '../report/index.js';
+import { analyseTable, type TableAnalysis } from '../analysis/index.js';
+import { qualifiedAddress, type Problem, type SpecTable } from '../table/index.js';
 import type { TablesRead } from './read.js';
 
 export interface CompareWorkbooksOptions {

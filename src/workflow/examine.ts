@@ -1,12 +1,9 @@
 // Read -> analyse -> verdicts -> what may be written and handed over: the one path every host
 // takes. Tables with errors are not analysed; their verdict says so, with the first error.
-import { MAX_INPUTS } from '../logic/bits.js';
-import type { Signal } from '../logic/signals.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
-import { analyseTable } from '../spec/analyse.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { Problem, SpecTable } from '../spec/types.js';
-import { plural } from '../report/text.js';
+import { MAX_INPUTS, type Signal } from '../logic/index.js';
+import { analyseTable, type TableAnalysis } from '../analysis/index.js';
+import { qualifiedAddress, type Problem, type SpecTable } from '../table/index.js';
+import { plural } from '../report/index.js';
 import type { TablesRead } from './read.js';
 import { cleared, errorsOf, notAnalysed, outputVerdict, verdictWords, weakest, type Verdict } from './verdict.js';
 

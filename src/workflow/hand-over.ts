@@ -1,12 +1,8 @@
 // The hand-over pack: built only when the workbook's verdicts allow it, otherwise refused with
 // the reason. Files are named here so that every host offers the same names.
-import { appendAll } from '../logic/arrays.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import { ladderSvg } from '../report/ladder-svg.js';
-import { exportPlcopen } from '../report/plcopen-export.js';
-import { exportSt, type FormChoice } from '../report/st-export.js';
-import { stepsCsv } from '../report/test-steps.js';
-import type { TableAnalysis } from '../spec/analysis-types.js';
+import { appendAll, fail, ok, type Result } from '../logic/index.js';
+import { exportPlcopen, exportSt, ladderSvg, stepsCsv, type FormChoice } from '../report/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
 import type { Workbook } from './examine.js';
 
 export type HandOverKind = 'st' | 'plcopen' | 'steps' | 'ladder';

@@ -1,12 +1,14 @@
 // Implementation checks under the workbook's verdicts: an output of a table that was not
 // analysed (it has errors) is UNCHECKED, whatever the program does, with the reason.
-import { parseExpression } from '../logic/expr/parse.js';
-import { checkImplementation, type ImplCheck } from '../logic/implcheck.js';
-import { fail, type Result } from '../logic/result.js';
-import { verifyImplementation, type OutputVerdict, type VerifyReport } from '../impl/verify.js';
-import type { NameMapping } from '../impl/mapping.js';
-import type { ImplProgram } from '../impl/types.js';
-import { qualifiedAddress } from '../spec/grid.js';
+import { checkImplementation, fail, parseExpression, type ImplCheck, type Result } from '../logic/index.js';
+import {
+  verifyImplementation,
+  type ImplProgram,
+  type NameMapping,
+  type OutputVerdict,
+  type VerifyReport,
+} from '../impl/index.js';
+import { qualifiedAddress } from '../table/index.js';
 import { outputSignals, wideLimit, type TableResult, type Workbook } from './examine.js';
 import { verdictWords } from './verdict.js';
 

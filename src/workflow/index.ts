@@ -1,7 +1,7 @@
 // The workflow every host shares (DESIGN.md sections 8 and 9): read the tables of a workbook
 // through a WorkbookHost with the user's settings -> analyse -> verdicts -> what may be
 // written and handed over -> the sheets to write. Hosts take every decision from here and use
-// the report and spec layers only to print and show.
+// the lower layers only to print and show.
 export { readGrids, readTables, type GridsRead, type ReadFailure, type TablesRead, type WorkbookChoice } from './read.js';
 export { allCleared, examine, examineTable, workbookVerdictText, type ExamineOptions, type Permission, type TableResult, type Workbook } from './examine.js';
 export { errorsOf, verdictWords, type Verdict } from './verdict.js';

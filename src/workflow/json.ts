@@ -1,10 +1,8 @@
 // The `--json` document of a run (DESIGN.md section 4) with each table's and output's verdict.
 // A table that was not analysed carries its signals, gaps, conflicts and problems, and no form.
-import { count } from '../logic/bits.js';
-import { cube, cubeToPattern } from '../logic/cube.js';
-import { analysisJson, problemJson, type ProblemJson } from '../spec/analysis-json.js';
-import type { Problem } from '../spec/types.js';
-import { gapCubes } from '../spec/uncovered.js';
+import { count, cube, cubeToPattern } from '../logic/index.js';
+import { analysisJson, problemJson, type ProblemJson } from '../report/index.js';
+import { gapCubes, type Problem } from '../table/index.js';
 import { outputSignals, type TableResult, type Workbook } from './examine.js';
 import { verdictWords, type Verdict } from './verdict.js';
 

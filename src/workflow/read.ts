@@ -2,12 +2,9 @@
 // the host brings the cells, the spec reader finds the tables. Split in two so that a host whose
 // engine runs elsewhere (the pane's worker) reads the grids where its workbook lives and hands
 // them over; both halves are the same in every host.
-import { appendAll } from '../logic/arrays.js';
-import { fail, ok, type Result } from '../logic/result.js';
-import { signalIndex } from '../logic/signals.js';
-import type { WorkbookHost } from '../hosts/workbook-host.js';
-import { readSpecTables } from '../spec/read-tables.js';
-import type { Grid, Problem, SpecOptions, SpecTable } from '../spec/types.js';
+import { appendAll, fail, ok, signalIndex, type Result } from '../logic/index.js';
+import type { WorkbookHost } from '../hosts/index.js';
+import { readSpecTables, type Grid, type Problem, type SpecOptions, type SpecTable } from '../table/index.js';
 
 /** The user's settings: which sheet (all when absent), and how to read it. */
 export interface WorkbookChoice extends SpecOptions {

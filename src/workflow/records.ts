@@ -3,13 +3,12 @@
 // way and analysed, and the record is current only while its revision stamp still matches.
 // Split like reading and examining: the cells are read where the workbook lives, the judgement
 // (which analyses) runs wherever the host runs its engine. Nothing here writes.
-import type { WorkbookHost } from '../hosts/workbook-host.js';
-import { judgeRecord, readTestRecord, type RecordVerdict } from '../report/record-read.js';
-import { analyseTable } from '../spec/analyse.js';
-import { readSpecTables } from '../spec/read-tables.js';
-import type { Grid } from '../spec/types.js';
+import type { WorkbookHost } from '../hosts/index.js';
+import { judgeRecord, readTestRecord, type RecordVerdict } from '../report/index.js';
+import { analyseTable } from '../analysis/index.js';
+import { readSpecTables, type Grid } from '../table/index.js';
 
-export type { RecordVerdict } from '../report/record-read.js';
+export type { RecordVerdict } from '../report/index.js';
 
 /** The record sheets of a workbook, and the sheets their tables are on. */
 export interface RecordGrids {

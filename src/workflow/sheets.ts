@@ -1,11 +1,8 @@
 // The sheets a run writes, the same set in every host: per table its results sheet (a
 // not-analysed sheet for a table with errors), and the commissioning test record of each
 // cleared table; none for a table of more than 24 inputs.
-import type { WorkbookHost, WriteReport } from '../hosts/workbook-host.js';
-import { notAnalysedSheet } from '../report/not-analysed-sheet.js';
-import { resultsSheet } from '../report/results-sheet.js';
-import type { SheetBlock } from '../report/sheet-block.js';
-import { testRecordSheet } from '../report/test-steps.js';
+import type { WorkbookHost, WriteReport } from '../hosts/index.js';
+import { notAnalysedSheet, resultsSheet, testRecordSheet, type SheetBlock } from '../report/index.js';
 import { wideLimit, type TableResult, type Workbook } from './examine.js';
 import { cleared, verdictWords } from './verdict.js';
 

@@ -1,11 +1,9 @@
 // The verdict of a table and of each of its outputs: one word per claim, never stronger than
 // what was read. A table with an error is not analysed at all, so no form of it can be shown
 // as proven and no proof line can be printed for it.
-import type { OutputAnalysis } from '../spec/analysis-types.js';
-import type { WideOutputAnalysis } from '../spec/wide-types.js';
-import { qualifiedAddress } from '../spec/grid.js';
-import type { Problem } from '../spec/types.js';
-import { plural } from '../report/text.js';
+import type { OutputAnalysis, WideOutputAnalysis } from '../analysis/index.js';
+import { qualifiedAddress, type Problem } from '../table/index.js';
+import { plural } from '../report/index.js';
 
 export type Verdict =
   /** Every form agrees with the spec on every combination; the AND/OR form is a proven minimum. */

@@ -1,8 +1,8 @@
 // What a host shows of a workbook read, without the truth tables behind it: small enough to
 // cross from the pane's worker on every read (a 24-input table's bit sets are 16.8 MB).
-import type { Signal } from '../logic/signals.js';
-import type { OutputAnalysis } from '../spec/analysis-types.js';
-import type { Problem, RoleRule, XReading } from '../spec/types.js';
+import type { Signal } from '../logic/index.js';
+import type { OutputAnalysis } from '../analysis/index.js';
+import type { Problem, RoleRule, XReading } from '../table/index.js';
 import { wideLimit, type TableResult, type Workbook } from './examine.js';
 import type { Verdict } from './verdict.js';
 

@@ -9,7 +9,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { has } from '../../src/logic/bits.js';
 import { parseExpression } from '../../src/logic/expr/parse.js';
 import { truthTable } from '../../src/logic/expr/evaluate.js';
-import type { OutputJson, TableJson } from '../../src/spec/analysis-json.js';
+import type { OutputJson, TableJson } from '../../src/report/analysis-json.js';
 import { capperCell, type SampleTable } from '../../sample-workbooks/source/capper-cell.js';
 import { BROKEN, CAPPER, CSV, runCli, scratch, type Run } from './run-cli.js';
 

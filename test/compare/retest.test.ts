@@ -9,8 +9,8 @@ import { readTestRecord } from '../../src/report/record-read.js';
 import { openFile, type FileHost } from '../../src/hosts/file-host.js';
 import { has } from '../../src/logic/bits.js';
 import { stepTable } from '../../src/report/test-steps.js';
-import { analyseTable } from '../../src/spec/analyse.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { analyseTable } from '../../src/analysis/analyse.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { CAPPER, runCli, scratch } from '../cli/run-cli.js';
 import { CHUCK, writeRevision } from './sample-revision.js';
 

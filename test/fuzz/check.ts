@@ -4,7 +4,7 @@
 // listed counterexample it does not confirm, or a valid program the reader rejects.
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyImplementation, type OutputVerdict } from '../../src/impl/verify.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import type { FuzzCase } from './generate.js';
 import { expectedVerdicts, TooManyStates, type Expected } from './interpreter.js';
 import { programFile } from './print.js';

@@ -1,6 +1,6 @@
 // Random spec tables, their meaning computed here from the rows (not by the product), and the
 // sheet grid the product reads them from.
-import type { CellValue, Grid } from '../../src/spec/types.js';
+import type { CellValue, Grid } from '../../src/table/types.js';
 import type { Prng } from './prng.js';
 
 export type Cell = '0' | '1' | '-';

@@ -7,7 +7,7 @@
 //   with the request measured as the JSON of its commands.
 // - members of a requirement set above `excelApi` (pageLayout 1.9, freezePanes 1.7) throw ApiNotFound.
 // Formulas are stored, not calculated. Error codes and messages follow office-js dist (excel-web-16.00.js).
-import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/spec/grid.js';
+import { columnIndex, parseRange, rangeAddress, sheetPrefix, type RangeRef } from '../../src/table/grid.js';
 import type { XlContext, XlPageLayout, XlRangeFormat, XlRun, XlSupports, XlValue } from '../../src/hosts/excel-api.js';
 
 export const LIMIT = 5 * 1024 * 1024;

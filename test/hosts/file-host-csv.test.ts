@@ -2,7 +2,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { readSheets } from '../../src/hosts/parsed-workbook.js';
-import { csvValue, detectDelimiter, parseCsv, type Delimiter } from '../../src/spec/csv.js';
+import { csvValue, detectDelimiter, parseCsv, type Delimiter } from '../../src/table/csv.js';
 
 function rows(text: string): unknown {
   const r = parseCsv(text);

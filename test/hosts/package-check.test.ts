@@ -4,8 +4,8 @@ import XLSX from 'xlsx';
 import { describe, expect, it } from 'vitest';
 import { openFile, type FileHostOptions } from '../../src/hosts/file-host.js';
 import { checkZip, crc32, storedEntry, writeZip } from '../../src/hosts/zip-package.mjs';
-import { readSpecTables } from '../../src/spec/read-tables.js';
-import type { Problem } from '../../src/spec/types.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
+import type { Problem } from '../../src/table/types.js';
 import { AND_TABLE, deflatedEntry, pack, partsOf, patch, put, saved, workbook } from './packages.js';
 
 const SHEET1 = 'xl/worksheets/sheet1.xml';

@@ -4,7 +4,7 @@ import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import XLSX from 'xlsx';
 import { writeZip } from '../../src/hosts/zip-package.mjs';
-import type { CellValue } from '../../src/spec/types.js';
+import type { CellValue } from '../../src/table/types.js';
 import { scratch } from '../cli/run-cli.js';
 import { deflatedEntry } from './workbook-parts.js';
 

@@ -6,8 +6,8 @@ import { capperCell } from '../../sample-workbooks/source/capper-cell.js';
 import { sheetCells } from '../../scripts/make-samples.js';
 import { readImplementation } from '../../src/impl/read.js';
 import type { ImplProgram } from '../../src/impl/types.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
-import type { SpecTable } from '../../src/spec/types.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
+import type { SpecTable } from '../../src/table/types.js';
 
 export function capperTables(): SpecTable[] {
   return capperCell.sheets.flatMap((sheet) => readSpecTables({ sheet: sheet.name, origin: 'A1', cells: sheetCells(sheet) }).tables);

@@ -7,8 +7,8 @@ import type { ImplOutput, ImplPou } from '../../src/impl/types.js';
 import { verifyImplementation } from '../../src/impl/verify.js';
 import { expectFunction, kinds, output } from './pou-checks.js';
 import { exportPlcopen } from '../../src/report/plcopen-export.js';
-import { analyseTable } from '../../src/spec/analyse.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { analyseTable } from '../../src/analysis/analyse.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { specGrid } from '../report/fixtures.js';
 
 // Small LD networks written element by element, as a PLCopen editor stores them (TC6 2.01).

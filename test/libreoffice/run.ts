@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import XLSX from 'xlsx';
 import { main } from '../../src/cli/main.js';
 import { fileFormula } from '../../src/hosts/xlsx-package.js';
-import { csvRecords } from '../../src/spec/csv.js';
+import { csvRecords } from '../../src/table/csv.js';
 
 const work = mkdtempSync(join(tmpdir(), 'interlock-lo-'));
 let passed = 0;

@@ -8,7 +8,7 @@ import { verifyImplementation } from '../../src/impl/verify.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { checkSheet } from '../../src/report/check-sheet.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
-import type { SpecTable } from '../../src/spec/types.js';
+import type { SpecTable } from '../../src/table/types.js';
 import { capperTables, implementation } from '../impl/capper.js';
 import { GUARD, tinyTable, VOTE } from './fixtures.js';
 

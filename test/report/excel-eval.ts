@@ -4,7 +4,7 @@
 // of each function, from memory): `=` between a number and text or a logical value is FALSE;
 // AND/OR/XOR take logical values, numbers (0 = FALSE) and ignore text in referenced cells;
 // `--` turns TRUE/FALSE and numeric text into numbers; a blank cell is 0.
-import { parseA1, parseRange } from '../../src/spec/grid.js';
+import { parseA1, parseRange } from '../../src/table/grid.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
 
 export type Value = number | string | boolean;

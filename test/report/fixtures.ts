@@ -1,9 +1,9 @@
 // Small spec tables for the report tests, read the way a sheet is read and analysed by the
 // engine (readSpecTables, then analyseTable).
-import type { TableAnalysis } from '../../src/spec/analysis-types.js';
-import { analyseTable } from '../../src/spec/analyse.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
-import type { CellValue, Grid, SpecTable } from '../../src/spec/types.js';
+import type { TableAnalysis } from '../../src/analysis/analysis-types.js';
+import { analyseTable } from '../../src/analysis/analyse.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
+import type { CellValue, Grid, SpecTable } from '../../src/table/types.js';
 
 export interface TinySpec {
   readonly sheet?: string;

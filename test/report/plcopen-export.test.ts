@@ -7,7 +7,7 @@ import { truthTable } from '../../src/logic/expr/evaluate.js';
 import { parseExpression } from '../../src/logic/expr/parse.js';
 import { prove } from '../../src/logic/proof.js';
 import { childNamed, childrenNamed, localName, parseXml, textContent, type XmlElement } from '../../src/impl/xml.js';
-import type { TableAnalysis } from '../../src/spec/analysis-types.js';
+import type { TableAnalysis } from '../../src/analysis/analysis-types.js';
 import { CAUTION, CAUTION_LINES } from '../../src/report/caution.js';
 import { exportPlcopen, PLCOPEN_NAMESPACE } from '../../src/report/plcopen-export.js';
 import { analysisOf, GUARD, VOTE } from './fixtures.js';

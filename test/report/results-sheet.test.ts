@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { has } from '../../src/logic/bits.js';
 import { truthTable } from '../../src/logic/expr/evaluate.js';
 import { printExcel } from '../../src/logic/expr/print-excel.js';
-import { cellAddress, parseRange } from '../../src/spec/grid.js';
+import { cellAddress, parseRange } from '../../src/table/grid.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { LIVE_CHECK_MAX_INPUTS, resultsSheet } from '../../src/report/results-sheet.js';
 import type { BlockCell, SheetBlock } from '../../src/report/sheet-block.js';

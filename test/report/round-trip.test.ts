@@ -3,8 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyExitCode, verifyImplementation } from '../../src/impl/verify.js';
-import { analyseTable } from '../../src/spec/analyse.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { analyseTable } from '../../src/analysis/analyse.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { exportPlcopen } from '../../src/report/plcopen-export.js';
 import { exportSt, type FormChoice } from '../../src/report/st-export.js';
 import { SAMPLE_WORKBOOKS, sheetCells } from '../../scripts/make-samples.js';

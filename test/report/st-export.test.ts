@@ -3,7 +3,7 @@ import { truthTable } from '../../src/logic/expr/evaluate.js';
 import { parseExpression } from '../../src/logic/expr/parse.js';
 import { isValidIdentifier } from '../../src/logic/identifiers.js';
 import { prove } from '../../src/logic/proof.js';
-import type { TableAnalysis } from '../../src/spec/analysis-types.js';
+import type { TableAnalysis } from '../../src/analysis/analysis-types.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { exportSt, type FormChoice } from '../../src/report/st-export.js';
 import { analysisOf, GUARD, VOTE } from './fixtures.js';

@@ -1,7 +1,7 @@
 // The settings of a reading: read back from wherever they were remembered (anything else reads
 // as the defaults), and turned into the reader's options worded for the pane or the page.
 import { describe, expect, it } from 'vitest';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { DEFAULT_SETTINGS, pageValues, settingsFrom, specOptions } from '../../taskpane/table-settings.js';
 import { gridOf } from '../workflow/workbooks.js';
 

@@ -4,8 +4,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
-import type { OutputAnalysis } from '../../src/spec/analysis-types.js';
-import type { Problem } from '../../src/spec/types.js';
+import type { OutputAnalysis } from '../../src/analysis/analysis-types.js';
+import type { Problem } from '../../src/table/types.js';
 import {
   checkExpression,
   examine,

@@ -2,7 +2,7 @@
 // every host that takes at most 24 inputs says so instead of showing nothing.
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
-import { readSpecTables } from '../../src/spec/read-tables.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import {
   allCleared,
   checkExpression,

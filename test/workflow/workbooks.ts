@@ -6,8 +6,8 @@ import { join } from 'node:path';
 import XLSX from 'xlsx';
 import type { WorkbookHost, WriteReport } from '../../src/hosts/workbook-host.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
-import { cellAddress, parseRange, restrictGrid } from '../../src/spec/grid.js';
-import type { CellValue, Grid } from '../../src/spec/types.js';
+import { cellAddress, parseRange, restrictGrid } from '../../src/table/grid.js';
+import type { CellValue, Grid } from '../../src/table/types.js';
 import { runCli, scratch } from '../cli/run-cli.js';
 
 export type Rows = readonly (readonly (string | number | null)[])[];

@@ -1,0 +1,80 @@
+// `analyze --json` for a table of more than 24 inputs: the fields of analysis-json.ts, with
+// counts that may pass 2^53 written as decimal strings, and what the symbolic engine adds.
+import { combinationPattern, countJson, inputBit, widePattern, XOR_PRINT_LIMIT, type WideXor } from '../logic/index.js';
+import type { TableAnalysis, WideOutputAnalysis, WideTableAnalysis } from '../analysis/index.js';
+import type { DontCarePolicy } from '../table/index.js';
+import { formHead, namedForms, type MismatchJson, type OutputJson, type TableJson } from './analysis-json.js';
+
+/** A count: a number while exact, else decimal digits. */
+type Count = number | string;
+
+/** `xor` is Structured Text, or "N terms: not printed (more than 64)". */
+export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
+  readonly xorTerms: Count;
+  /** Terms are printed up to this many. */
+  readonly xorPrintLimit: number;
+  /** What the XOR proofs checked: the printed expression, or the computed terms when not printed. */
+  readonly xorProofOf: WideXor['proofOf'];
+  readonly check: { readonly combinations: Count; readonly mismatchCount: Count; readonly mismatches: MismatchJson[] };
+  readonly permitsAlso: string[];
+  readonly permitsAlsoCount: Count;
+  readonly safeValue: 0 | 1;
+  readonly dontCares: DontCarePolicy;
+  readonly bestXor: { readonly expr: string; readonly terms: Count; readonly complemented: string[]; readonly exhaustive: boolean; readonly proofOf: WideXor['proofOf'] };
+  readonly degree: number;
+  readonly unusedInputs: string[];
+  readonly gaps: string[];
+  readonly gapCount: Count;
+  readonly dontCareCount: Count;
+  readonly conflicts: { readonly rows: [string, string]; readonly notes?: [string | null, string | null]; readonly example: string; readonly combinations: Count }[];
+  /** Not chosen above 24 inputs (none listed). */
+  readonly steps: [];
+}
+
+export interface WideTableJson extends Omit<TableJson, 'outputs'> {
+  readonly engine: 'symbolic';
+  readonly outputs: WideOutputJson[];
+}
+
+export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysis, table: Omit<TableJson, 'outputs'>): WideTableJson {
+  const { n } = wide;
+  const headers = analysis.inputs.map((s) => s.header);
+  const output = (o: WideOutputAnalysis): WideOutputJson => {
+    const forms = namedForms<{ proof: WideXor['proof'] }>(o);
+    return {
+      ...formHead(o),
+      xorTerms: countJson(o.xor.terms),
+      xorPrintLimit: XOR_PRINT_LIMIT,
+      xorProofOf: o.xor.proofOf,
+      check: {
+        combinations: countJson(o.andOr.proof.combinations),
+        mismatchCount: countJson(forms.reduce((k, [, f]) => k + f.proof.mismatchCount, 0n)),
+        mismatches: forms.flatMap(([form, f]) => f.proof.mismatches.map((k) => ({ form, combination: combinationPattern(n, k) }))),
+      },
+      permitsAlso: o.permitsAlso.map((k) => combinationPattern(n, k)),
+      permitsAlsoCount: countJson(o.permitsAlsoCount),
+      safeValue: o.safe,
+      dontCares: o.dontCares,
+      bestXor: {
+        expr: o.bestXor.text,
+        terms: countJson(o.bestXor.terms),
+        complemented: headers.filter((_, i) => o.bestXor.polarity & inputBit(n, i)),
+        exhaustive: o.bestXor.exhaustive,
+        proofOf: o.bestXor.proofOf,
+      },
+      degree: o.degree,
+      unusedInputs: o.unusedInputs.map((i) => headers[i]!),
+      gaps: wide.gaps.map((c) => widePattern(n, c)),
+      gapCount: countJson(wide.gapCount),
+      dontCareCount: countJson(o.dontCareCount),
+      conflicts: o.conflicts.map((c) => ({
+        rows: [c.rowCellsA, c.rowCellsB],
+        ...(c.notes ? { notes: [c.notes[0] ?? null, c.notes[1] ?? null] } : {}),
+        example: combinationPattern(n, c.example),
+        combinations: countJson(c.combinations),
+      })),
+      steps: [],
+    };
+  };
+  return { ...table, engine: 'symbolic', outputs: wide.outputs.map(output) };
+}
