@@ -1,10 +1,11 @@
 // Wide tables: the bit-set engine and the symbolic (BDD) engine on the same structured tables
 // at 16, 20 and 24 inputs, then the symbolic engine alone at 32-64 inputs. Whole analysis
 // in-process (reading the grid included); seeds fixed. Peak memory is the largest RSS sampled
-// during the run (the process's, so it includes what earlier runs left behind). Beside each
-// symbolic figure: the same table through the baseline commit's engine in the same run (its
-// `src` taken from git into a temporary folder; bench/wide-baseline.json names the commit and
-// holds its figures from an earlier run, printed instead when git cannot give the tree).
+// during the run (the process's, so it includes what earlier runs left behind; the 5 ms timer
+// cannot fire inside the synchronous analysis, so in effect it is the RSS at the run's end).
+// Beside each symbolic figure: the same table through the baseline commit's engine in the same
+// run (its `src` taken from git into a temporary folder; bench/wide-baseline.json names the
+// commit and holds its figures from an earlier run, printed instead when git cannot give it).
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -131,7 +132,13 @@ const sample = (): void => {
   peak = Math.max(peak, process.memoryUsage.rss());
 };
 
-function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic', code: Engine = current): { ms: number; mb: number; a: TableAnalysis } {
+interface Timed {
+  readonly ms: number;
+  readonly mb: number;
+  readonly a: TableAnalysis;
+}
+
+function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic', code: Engine = current): Timed {
   peak = 0;
   const timer = setInterval(sample, 5);
   sample();
@@ -175,26 +182,28 @@ function conflictingPairs(cells: CellValue[][]): string {
 export async function run(): Promise<void> {
   console.log('whole analysis in-process (read, forms, proofs, JSON); peak = largest RSS sampled');
   const base = await baselineEngine();
-  const before = (label: string, cells: CellValue[][]): string => {
-    if (typeof base === 'string') return `; baseline (earlier run) ${baseline.symbolic[label] ?? 'not measured'}`;
-    const r = timed(cells, 'symbolic', base.engine);
-    return `; baseline ${r.ms.toFixed(0)} ms (${summary(r.a)})`;
+  // Symbolic runs, ours then the baseline's, twice, the faster of each: whichever runs first
+  // after a large run pays for collecting it.
+  const symbolicRuns = (label: string, cells: CellValue[][]): { ours: Timed; before: string } => {
+    if (typeof base === 'string') return { ours: timed(cells, 'symbolic'), before: `; baseline (earlier run) ${baseline.symbolic[label] ?? 'not measured'}` };
+    const [a, b, c, d] = [timed(cells, 'symbolic'), timed(cells, 'symbolic', base.engine), timed(cells, 'symbolic'), timed(cells, 'symbolic', base.engine)];
+    const theirs = b.ms <= d.ms ? b : d;
+    return { ours: a.ms <= c.ms ? a : c, before: `; baseline ${theirs.ms.toFixed(0)} ms (${summary(theirs.a)})` };
   };
   // Both engines' code compiled once before anything is timed.
   timed(permitTable(16, 1), 'symbolic');
   if (typeof base !== 'string') timed(permitTable(16, 1), 'symbolic', base.engine);
   for (const n of [16, 20, 24]) {
     const cells = permitTable(n, 1000 + n);
-    const symbolic = timed(cells, 'symbolic');
-    const bitSet = timed(cells, 'bit-set');
     const label = `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows`;
+    const runs = symbolicRuns(label, cells);
+    const symbolic = runs.ours;
+    const bitSet = timed(cells, 'bit-set');
     console.log(
       `${label}: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
-        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${before(label, cells)}`,
+        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${runs.before}`,
     );
   }
-  // The bit-set run at 24 inputs leaves ~1 GB to collect: let an untimed run pay for it.
-  timed(permitTable(16, 1), 'symbolic');
   const wide: [string, CellValue[][]][] = [
     ['32 inputs, 8 ON rows of 8 literals + 2 OFF rows', permitTable(32, 1032)],
     ['48 inputs, 8 ON rows of 8 literals + 2 OFF rows', permitTable(48, 1048)],
@@ -203,13 +212,14 @@ export async function run(): Promise<void> {
     ['64 inputs x 300 rows of 3-10 literals', randomRowsTable(64, 300, 64300)],
   ];
   for (const [what, cells] of wide) {
-    const r = timed(cells, 'symbolic');
+    const runs = symbolicRuns(what, cells);
+    const r = runs.ours;
     const rows = what.includes(' x 300 ') ? ` (${conflictingPairs(cells)})` : '';
-    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${before(what, cells)}`);
+    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${runs.before}`);
   }
   if (typeof base === 'string') console.log(`baseline: ${baseline.source}; not run now: ${base}`);
   else {
-    console.log(`baseline: commit ${baseline.commit}, symbolic engine, run just after each figure in this process`);
+    console.log(`baseline: commit ${baseline.commit}, symbolic engine, in this process: each symbolic figure and its baseline the faster of two alternating runs`);
     base.dispose();
   }
 }
