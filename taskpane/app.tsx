@@ -484,7 +484,7 @@ export function App({ mode }: { mode: PaneMode }) {
               <>
                 <SpecTableView table={tables[current]} handOver={analysed.handOver} selectCell={selectCell} />
                 {tables[current].analysed && <ExpressionCheck key={current} table={tables[current]} engine={engine} write={sheetWriter(mode, file)} />}
-                {mode.kind === 'file' && <FileCheck engine={engine} write={sheetWriter(mode, file)} />}
+                <FileCheck engine={engine} write={sheetWriter(mode, file)} host={host} />
                 <HandOver view={analysed} engine={engine} mode={mode} file={file} />
                 {host && reading && (
                   <CompareCard

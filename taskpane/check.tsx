@@ -1,15 +1,26 @@
 // Implementation check: an expression typed or pasted by the user, or an .st / PLCopen .xml file
-// (standalone page), checked against the spec on every input combination.
-import { useState } from 'preact/hooks';
-import type { EngineError, ImplCheck, Monomial } from '../src/logic/index.js';
+// (with a mapping file or sheet when names differ), checked against the spec on every input
+// combination. Differences are split into unsafe ones (marked) and spurious trips, each with
+// its count and a plain sentence; the ANF terms are a detail below.
+import { useEffect, useState } from 'preact/hooks';
+import {
+  sideSentence,
+  type Counterexample,
+  type EngineError,
+  type ImplCheck,
+  type Monomial,
+  type SideSentence,
+  type Signal,
+} from '../src/logic/index.js';
 import { verifyReportText, type SheetBlock } from '../src/report/index.js';
-import { printMonomial } from '../src/impl/index.js';
-import { implementationWord, type TableView } from '../src/workflow/index.js';
+import { printMonomial, type OutputVerdict } from '../src/impl/index.js';
+import { implementationWord, readMappingSheet, type MappingSource, type TableView } from '../src/workflow/index.js';
+import type { WorkbookHost } from '../src/hosts/index.js';
 import type { Answers } from './engine-protocol.js';
 import { Cancelled, type Engine } from './engine.js';
 import { CombinationTable } from './results.js';
 
-const count = (n: number) => n.toLocaleString('en');
+const count = (n: number | bigint) => n.toLocaleString('en');
 
 /** Writes a new sheet and answers what it wrote and where (from app.tsx: Excel, or the results workbook). */
 export type WriteSheet = (block: SheetBlock) => Promise<string>;
@@ -75,6 +86,55 @@ function ParseError({ error, text }: { error: EngineError; text: string }) {
   );
 }
 
+/** A count with its unit, the unsafe one marked when there is any. */
+function SideCounts({ unsafe, trips }: { unsafe: number | bigint; trips: number | bigint }) {
+  return (
+    <p class="side-counts">
+      <span class={unsafe > 0 ? 'badge bad unsafe-count' : 'badge'}>
+        {count(unsafe)} unsafe combination{Number(unsafe) === 1 ? '' : 's'}
+      </span>{' '}
+      <span class="badge spurious-count">
+        {count(trips)} spurious trip{Number(trips) === 1 ? '' : 's'}
+      </span>
+    </p>
+  );
+}
+
+/** The sentence of each side, unsafe first and marked. */
+function SideSentences({ unsafe, trips }: { unsafe: SideSentence | undefined; trips: SideSentence | undefined }) {
+  return (
+    <>
+      {unsafe && <p class="side unsafe">{unsafe.sentence}</p>}
+      {trips && <p class="side spurious">{trips.sentence}</p>}
+    </>
+  );
+}
+
+const KIND_WORD = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' } as const;
+
+/** Counterexamples as a table, one column per input, the kind beside; unsafe rows marked. */
+function Counterexamples({ inputs, rows }: { inputs: readonly Signal[]; rows: readonly Pick<Counterexample, 'combination' | 'expected' | 'actual' | 'kind'>[] }) {
+  return (
+    <CombinationTable
+      inputs={inputs}
+      rows={rows.map((c) => c.combination)}
+      rowClass={(r) => (rows[r]!.kind === 'unsafe' ? 'unsafe' : undefined)}
+      extra={{ titles: ['spec', 'yours', 'kind'], cells: (r) => [rows[r]!.expected, rows[r]!.actual, KIND_WORD[rows[r]!.kind]] }}
+    />
+  );
+}
+
+/** The ANF terms by which they differ: a detail under the sentences. */
+function AnfDetail({ terms, total }: { terms: readonly string[]; total: number }) {
+  return (
+    <details class="anf-detail">
+      <summary>Detail: the XOR of {count(total)} ANF term{total === 1 ? '' : 's'} by which spec and program differ</summary>
+      <code>{terms.join(' XOR ')}</code>
+      {total > terms.length ? ' …' : ''}
+    </details>
+  );
+}
+
 function CheckResult({ result, table }: { result: ImplCheck; table: TableView }) {
   const inputs = table.inputs;
   if (result.equal) {
@@ -85,23 +145,18 @@ function CheckResult({ result, table }: { result: ImplCheck; table: TableView })
       </p>
     );
   }
+  const n = inputs.length;
   const monos = result.differenceMonomials.map((m: Monomial) => printMonomial(m, inputs));
   return (
     <div class="verdict differs" role="status">
       <p>
         Differs on {count(result.mismatchCount)} of {count(result.combinations)} combinations. Counterexamples
-        {result.counterexamples.length < result.mismatchCount ? ` (first ${result.counterexamples.length})` : ''}:
+        {result.counterexamples.length < result.mismatchCount ? ` (the first of each kind)` : ''}, unsafe first:
       </p>
-      <CombinationTable
-        inputs={inputs}
-        rows={result.counterexamples.map((c) => c.combination)}
-        extra={{ titles: ['spec', 'yours'], cells: (r) => [result.counterexamples[r]!.expected, result.counterexamples[r]!.actual] }}
-      />
-      <p class="meta">
-        The difference is the XOR of {count(result.differenceMonomialCount)} term{result.differenceMonomialCount === 1 ? '' : 's'}:{' '}
-        <code>{monos.join(' XOR ')}</code>
-        {result.differenceMonomialCount > monos.length ? ' …' : ''}
-      </p>
+      <SideCounts unsafe={result.unsafeCount} trips={result.spuriousTripCount} />
+      <SideSentences unsafe={sideSentence('unsafe', n, result.unsafeWhen, inputs)} trips={sideSentence('spurious-trip', n, result.spuriousTripWhen, inputs)} />
+      <Counterexamples inputs={inputs} rows={result.counterexamples} />
+      <AnfDetail terms={monos} total={result.differenceMonomialCount} />
     </div>
   );
 }
@@ -166,23 +221,79 @@ export function ExpressionCheck({ table, engine, write }: { table: TableView; en
   );
 }
 
-/** An implementation file (.st or PLCopen .xml) checked against every table read (by the worker, which keeps them). */
-export function FileCheck({ engine, write }: { engine: Engine; write: WriteSheet | undefined }) {
+/** What the user gave to map names: a mapping file, and/or a sheet of the workbook. */
+interface MappingChoice {
+  readonly file?: { readonly fileName: string; readonly text: string };
+  readonly sheet?: string;
+}
+
+/** One output's verdict line, its counts and sentences. */
+function OutputLine({ o }: { o: OutputVerdict }) {
+  return (
+    <li class={`verdict-line ${o.status}${o.unsafeCount > 0 ? ' has-unsafe' : ''}`} data-output={o.output.identifier}>
+      <strong>{o.output.identifier}</strong>: {o.status === 'not-found' ? 'NOT FOUND' : implementationWord(o)}
+      {o.status === 'differs' ? ` on ${count(o.mismatchCount)} of ${count(o.combinations)} combinations` : ''}
+      {o.variable ? ` (${o.variable})` : ''}
+      {(o.status === 'unchecked' || o.status === 'not-found') && o.reasons[0] ? `: ${o.reasons[0]}` : ''}
+      {o.status === 'differs' && (
+        <>
+          <SideCounts unsafe={o.unsafeCount} trips={o.spuriousTripCount} />
+          <SideSentences unsafe={o.unsafeWhen} trips={o.spuriousTripWhen} />
+        </>
+      )}
+    </li>
+  );
+}
+
+/**
+ * An implementation file (.st or PLCopen .xml) checked against every table read (by the
+ * worker, which keeps them). Names are matched by identifier, header or tag row, or by a
+ * mapping file (spec signal, program variable: the CSV the command line's --map takes) and/or
+ * a mapping sheet of the workbook (the same two columns); changing the mapping checks again.
+ */
+export function FileCheck({ engine, write, host }: { engine: Engine; write: WriteSheet | undefined; host: WorkbookHost | undefined }) {
   const [report, setReport] = useState<{ run: number; file: string; result: Answers['verify'] }>();
+  const [program, setProgram] = useState<{ fileName: string; text: string }>();
+  const [mapping, setMapping] = useState<MappingChoice>({});
+  const [sheets, setSheets] = useState<string[]>([]);
   const [busy, setBusy] = useState(false);
-  const pick = async (e: Event) => {
-    const file = (e.currentTarget as HTMLInputElement).files?.[0];
-    if (!file) return;
+  useEffect(() => void host?.listSheets().then(setSheets), [host]);
+  const run = async (p: { fileName: string; text: string } | undefined, m: MappingChoice) => {
+    if (!p) return;
     setBusy(true);
-    const run = (report?.run ?? 0) + 1;
+    const next = (report?.run ?? 0) + 1;
     try {
-      const result = await engine.verify({ fileName: file.name, text: await file.text() });
-      setReport({ run, file: file.name, result });
+      const mappings: MappingSource[] = [];
+      if (m.file) mappings.push({ kind: 'file', ...m.file });
+      if (m.sheet && host) mappings.push(await readMappingSheet(host, m.sheet));
+      const result = await engine.verify({ fileName: p.fileName, text: p.text, mappings });
+      setReport({ run: next, file: p.fileName, result });
     } catch (err) {
-      setReport({ run, file: file.name, result: { ok: false, error: { message: (err as Error).message } } });
+      setReport({ run: next, file: p.fileName, result: { ok: false, error: { message: err instanceof Cancelled ? 'The check was stopped.' : (err as Error).message } } });
     } finally {
       setBusy(false);
     }
+  };
+  const pickProgram = async (e: Event) => {
+    const file = (e.currentTarget as HTMLInputElement).files?.[0];
+    if (!file) return;
+    const p = { fileName: file.name, text: await file.text() };
+    setProgram(p);
+    await run(p, mapping);
+  };
+  const changeMapping = async (m: MappingChoice) => {
+    setMapping(m);
+    await run(program, m);
+  };
+  const pickMappingFile = async (e: Event) => {
+    const file = (e.currentTarget as HTMLInputElement).files?.[0];
+    const { file: _old, ...rest } = mapping;
+    await changeMapping(file ? { ...rest, file: { fileName: file.name, text: await file.text() } } : rest);
+  };
+  const pickMappingSheet = (e: Event) => {
+    const sheet = (e.currentTarget as HTMLSelectElement).value;
+    const { sheet: _old, ...rest } = mapping;
+    void changeMapping(sheet ? { ...rest, sheet } : rest);
   };
   const verified = report?.result.ok ? { run: report.run, ...report.result.value } : undefined;
   return (
@@ -190,22 +301,57 @@ export function FileCheck({ engine, write }: { engine: Engine; write: WriteSheet
       <h2 id="file-check-title">Check a program file</h2>
       <label class="file">
         Structured Text (.st) or PLCopen XML (.xml)
-        <input type="file" accept=".st,.xml,.txt" onChange={pick} disabled={busy} />
+        <input type="file" accept=".st,.xml,.txt" onChange={pickProgram} disabled={busy} />
       </label>
+      <fieldset class="mapping">
+        <legend>Names that differ (optional)</legend>
+        <p class="meta">
+          Without a mapping, program variables match the spec's headers, identifiers or tag row. A mapping has two columns: spec signal,
+          program variable (<code>Name</code>, <code>Pou.Name</code> or <code>%IX0.1</code>); a first row “spec signal, program variable” is a
+          header.
+        </p>
+        <label class="file">
+          Mapping file (.csv)
+          <input type="file" accept=".csv,.txt" data-mapping onChange={pickMappingFile} disabled={busy} />
+        </label>
+        {host && (
+          <label>
+            Mapping sheet
+            <select value={mapping.sheet ?? ''} onChange={pickMappingSheet} disabled={busy}>
+              <option value="">none</option>
+              {sheets.map((s) => (
+                <option key={s} value={s}>
+                  {s}
+                </option>
+              ))}
+            </select>
+          </label>
+        )}
+      </fieldset>
       {busy && <p role="status">Checking…</p>}
-      {report && !report.result.ok && <p class="error">{report.result.error.message}</p>}
+      {report && !report.result.ok && (
+        <p class="error" role="alert">
+          {report.result.error.message}
+        </p>
+      )}
       {verified && (
         <>
+          {verified.report.mapping && <p class="meta">Names mapped by {verified.report.mapping}.</p>}
           <ul class="verdicts">
             {verified.report.outputs.map((o, i) => (
-              <li key={i} class={`verdict-line ${o.status}`}>
-                <strong>{o.output.identifier}</strong>: {implementationWord(o)}
-                {o.status === 'differs' ? ` on ${count(o.mismatchCount)} of ${count(o.combinations)} combinations` : ''}
-                {o.variable ? ` (${o.variable})` : ''}
-                {o.status === 'unchecked' && o.reasons[0] ? `: ${o.reasons[0]}` : ''}
-              </li>
+              <OutputLine key={i} o={o} />
             ))}
           </ul>
+          {verified.report.unusedMapping.length > 0 && (
+            <div class="mapping-unused" role="alert">
+              <p>Mapping entries not used:</p>
+              <ul>
+                {verified.report.unusedMapping.map((u) => (
+                  <li key={u}>{u}</li>
+                ))}
+              </ul>
+            </div>
+          )}
           {write && (
             <WriteCheckSheet
               key={verified.run}

@@ -5,7 +5,20 @@
 import { readImplementation } from '../src/impl/index.js';
 import { fail, ok } from '../src/logic/index.js';
 import { checkSheet } from '../src/report/index.js';
-import { checkExpression, compareView, compareWorkbooks, examine, handOverFiles, judgeRecords, readTables, sheetsToWrite, verifyProgram, workbookView, type Workbook } from '../src/workflow/index.js';
+import {
+  checkExpression,
+  compareView,
+  compareWorkbooks,
+  examine,
+  handOverFiles,
+  judgeRecords,
+  readMappings,
+  readTables,
+  sheetsToWrite,
+  verifyProgram,
+  workbookView,
+  type Workbook,
+} from '../src/workflow/index.js';
 import type { EngineAnswer, EngineRequest } from './engine-protocol.js';
 
 export type ProgressReport = (done: number, total: number, what: string) => void;
@@ -40,7 +53,9 @@ export class EngineCore {
         if (!workbook) return { kind: 'verify', value: fail({ message: NOTHING_READ }) };
         const program = readImplementation(request.fileName, request.text);
         if (!program.ok) return { kind: 'verify', value: program };
-        const report = verifyProgram(workbook, program.value);
+        const mapping = readMappings(request.mappings ?? []);
+        if (!mapping.ok) return { kind: 'verify', value: mapping };
+        const report = verifyProgram(workbook, program.value, mapping.value);
         return { kind: 'verify', value: ok({ report, sheet: checkSheet({ kind: 'program', report }) }) };
       }
       case 'sheets':

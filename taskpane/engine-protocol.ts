@@ -5,15 +5,26 @@
 import type { ImplCheck, Result } from '../src/logic/index.js';
 import type { VerifyReport } from '../src/impl/index.js';
 import type { SheetBlock } from '../src/report/index.js';
-import type { CompareView, GridsRead, HandOverFile, HandOverRequest, ReadFailure, RecordGrids, RecordVerdict, WorkbookChoice, WorkbookView } from '../src/workflow/index.js';
+import type {
+  CompareView,
+  GridsRead,
+  HandOverFile,
+  HandOverRequest,
+  MappingSource,
+  ReadFailure,
+  RecordGrids,
+  RecordVerdict,
+  WorkbookChoice,
+  WorkbookView,
+} from '../src/workflow/index.js';
 
 export interface Requests {
   /** Find the spec tables in the grids the host read, analyse them, keep the result. */
   readonly examine: { readonly grids: GridsRead; readonly choice: WorkbookChoice; readonly source: string };
   /** A typed expression against one output of a table examined. */
   readonly check: { readonly table: number; readonly output: number; readonly text: string };
-  /** A program file against every table examined. */
-  readonly verify: { readonly fileName: string; readonly text: string };
+  /** A program file against every table examined, names mapped by a mapping file and/or sheet (none: by name and tag row). */
+  readonly verify: { readonly fileName: string; readonly text: string; readonly mappings?: readonly MappingSource[] };
   /** The results sheets and test records of every table examined. */
   readonly sheets: Record<never, never>;
   /** Files of the hand-over pack. */

@@ -108,7 +108,18 @@ export function SignalHeads({ signals, extra }: { signals: readonly Pick<Signal,
 }
 
 /** Rows of input values, one column per input (headers written sideways to fit a narrow pane). */
-export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Signal[]; rows: readonly Combination[]; extra?: { titles: string[]; cells: (k: number) => (string | number)[] } }) {
+export function CombinationTable({
+  inputs,
+  rows,
+  extra,
+  rowClass,
+}: {
+  inputs: readonly Signal[];
+  rows: readonly Combination[];
+  extra?: { titles: string[]; cells: (k: number) => (string | number)[] };
+  /** A class for row r (e.g. to mark unsafe counterexamples). */
+  rowClass?: (r: number) => string | undefined;
+}) {
   const n = inputs.length;
   return (
     <div class="scroll">
@@ -116,7 +127,7 @@ export function CombinationTable({ inputs, rows, extra }: { inputs: readonly Sig
         <SignalHeads signals={inputs} extra={extra?.titles} />
         <tbody>
           {rows.map((k, r) => (
-            <tr key={r}>
+            <tr key={r} class={rowClass?.(r)}>
               {inputs.map((_, i) => (
                 <td key={i}>{inputValue(n, k, i)}</td>
               ))}

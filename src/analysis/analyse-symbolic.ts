@@ -31,8 +31,6 @@ import { conflictReports, wideOptions, wideSpecOf } from './analyse-wide.js';
 import type { FormProof, OutputAnalysis, TableAnalysis, XorForm } from './analysis-types.js';
 import { gapCubes, wideBuilt, type Problem, type SpecTable } from '../table/index.js';
 
-/** From this many inputs (up to 24) `analyseTable` takes the symbolic engine. */
-export const SYMBOLIC_FROM_INPUTS = 20;
 
 /** Null when the diagrams grow too large (the bit-set path then takes the table). */
 export function analyseSymbolically(table: SpecTable, options: AnalyseOptions = {}): TableAnalysis | null {
@@ -89,6 +87,7 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
       gapCount: count(gapSet),
       conflicts: conflictReports(table, output.built.conflicts),
       dontCareCount: count(spec.dc),
+      // The one plan of steps.ts (causeSteps) on the BDDs: the same steps, without the truth tables.
       steps: wideUniqueCauseSteps(wide.dd, forms.andOr.cubes, on, table.inputs).map((s) => ({ ...s, combination: Number(s.combination) })),
     };
     problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));

@@ -1,7 +1,19 @@
 // A spec table of more than 24 inputs (up to 64) analysed by the symbolic engine: per output
 // its forms, each proven on every combination from BDDs, and the same problems as analyse.ts.
-import { analyseWideOutput, combinationPattern, DdTooLarge, toWide, type WideOutputForms } from '../logic/index.js';
-import type { AnalyseOptions } from './analyse.js';
+import {
+  analyseWideOutput,
+  combinationPattern,
+  DdTooLarge,
+  exprToBdd,
+  toWide,
+  wideResolved,
+  wideUniqueCauseSteps,
+  type Dd,
+  type Node,
+  type WideBuilt,
+  type WideOutputForms,
+} from '../logic/index.js';
+import { POLICY_WORDS, type AnalyseOptions } from './analyse.js';
 import type { TableAnalysis } from './analysis-types.js';
 import {
   settingName,
@@ -13,8 +25,7 @@ import {
   type SpecTable,
   type WideSpec,
 } from '../table/index.js';
-import { POLICY_WORDS } from './analyse.js';
-import type { WideOutputAnalysis } from './wide-types.js';
+import type { WideOutputAnalysis, WideStepFacts } from './wide-types.js';
 
 /** Disjoint gap cubes listed in an analysis (the count is complete). */
 export const WIDE_GAP_CUBES_LISTED = 1000;
@@ -25,7 +36,7 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   let done = 0;
   const progress = (what: string): void => options.onProgress?.(++done, total, what);
   const problems: Problem[] = [...table.problems];
-  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n } };
+  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n, stepFacts: [] } };
   // Reading has already said so at the table.
   if (wide.tooLarge !== undefined) return nothing;
   let made: ReturnType<typeof wideBuilt>;
@@ -41,6 +52,8 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   const gaps = dd.pathCubes(gapSet, WIDE_GAP_CUBES_LISTED).cubes;
   const gapCount = dd.satCount(gapSet);
   progress('gaps');
+  const resolvedOf: Node[] = [];
+  const builtOf: WideBuilt[] = [];
   const outputs = wide.outputs.flatMap((o, j): WideOutputAnalysis[] => {
     const b = built[j]!;
     const cell = table.headerCells[n + j]!;
@@ -53,17 +66,43 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
       progress(`${o.signal.header}: too large`);
       return [];
     }
+    // The one function every form equals, as the steps expect it.
+    const resolved = wideResolved(b.fn, o.safe, forms.dontCares, exprToBdd(dd, forms.andOr.expr));
+    resolvedOf.push(resolved);
+    builtOf.push(b);
     const analysed: WideOutputAnalysis = {
       ...forms,
       signal: o.signal,
       safe: o.safe,
       conflicts: conflictReports(table, b.conflicts),
+      steps: wideUniqueCauseSteps(dd, forms.andOr.cubes, resolved, table.inputs),
     };
     problems.push(...wideProblems(table, analysed, cell));
     progress(`${o.signal.header}: forms`);
     return [analysed];
   });
-  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount } };
+  const stepFacts = factsOf(dd, outputs, resolvedOf, builtOf, gapSet);
+  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount, stepFacts } };
+}
+
+/** Per combination of any output's steps: every output's expected value, gap, conflict and don't-care. */
+function factsOf(dd: Dd, outputs: readonly WideOutputAnalysis[], resolved: readonly Node[], built: readonly WideBuilt[], gapSet: Node): WideStepFacts[] {
+  const seen = new Set<bigint>();
+  const out: WideStepFacts[] = [];
+  for (const o of outputs)
+    for (const s of o.steps) {
+      const k = s.combination;
+      if (seen.has(k)) continue;
+      seen.add(k);
+      out.push({
+        combination: k,
+        expected: resolved.map((f) => (dd.evaluate(f, k) ? 1 : 0)),
+        gap: dd.evaluate(gapSet, k),
+        conflicted: built.map((b) => dd.evaluate(b.conflicted, k)),
+        dontCare: built.map((b) => dd.evaluate(b.fn.dc, k)),
+      });
+    }
+  return out;
 }
 
 /** The symbolic engine's options from the table's don't-care policy and the analysis options. */

@@ -2,6 +2,7 @@
 // combination, with gaps, conflicts and commissioning test steps.
 import {
   anfDegree,
+  SYMBOLIC_FROM_INPUTS,
   anfOf,
   anfSupport,
   anfToExpr,
@@ -37,7 +38,7 @@ import {
   type SpecTable,
 } from '../table/index.js';
 import { analyseWide, conflictReports } from './analyse-wide.js';
-import { SYMBOLIC_FROM_INPUTS, analyseSymbolically } from './analyse-symbolic.js';
+import { analyseSymbolically } from './analyse-symbolic.js';
 
 export interface AnalyseOptions {
   /** Time for each output's AND/OR form (minimisation and proof of minimality). */

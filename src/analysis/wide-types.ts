@@ -1,6 +1,6 @@
 // What the analysis of a spec table of more than 24 inputs gives (what such a table carries is
 // `WideSpec` in types.ts). Plain data (BigInt included), so that it crosses a worker boundary.
-import type { SafeValue, Signal, WideCombination, WideCube, WideOutputForms } from '../logic/index.js';
+import type { SafeValue, Signal, WideCombination, WideCube, WideOutputForms, WideTestStep } from '../logic/index.js';
 
 export interface WideConflictReport {
   readonly rowCellsA: string;
@@ -14,6 +14,19 @@ export interface WideOutputAnalysis extends WideOutputForms {
   readonly signal: Signal;
   readonly safe: SafeValue;
   readonly conflicts: readonly WideConflictReport[];
+  /** The unique-cause test steps of its AND/OR form, expecting the resolved function. */
+  readonly steps: readonly WideTestStep[];
+}
+
+/** A test step's combination as the table has it, for every output analysed (the record's expected values and notes). */
+export interface WideStepFacts {
+  readonly combination: WideCombination;
+  /** Per output of `WideTableAnalysis.outputs`: the resolved function's value. */
+  readonly expected: readonly (0 | 1)[];
+  /** No row covers it. */
+  readonly gap: boolean;
+  readonly conflicted: readonly boolean[];
+  readonly dontCare: readonly boolean[];
 }
 
 export interface WideTableAnalysis {
@@ -22,4 +35,6 @@ export interface WideTableAnalysis {
   /** Combinations no row covers, as disjoint cubes (the first GAP_CUBES_LISTED). */
   readonly gaps: readonly WideCube[];
   readonly gapCount: bigint;
+  /** Every combination some output's steps use, in the order first used. */
+  readonly stepFacts: readonly WideStepFacts[];
 }

@@ -3,9 +3,9 @@
 import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import type { Result } from '../logic/index.js';
-import { readImplementation, readMappingCsv } from '../impl/index.js';
+import { readImplementation } from '../impl/index.js';
 import { problemLine, verifyReportJson, verifyReportText } from '../report/index.js';
-import { errorsOf, programCleared, verifyProgram } from '../workflow/index.js';
+import { errorsOf, programCleared, readMappings, verifyProgram } from '../workflow/index.js';
 import type { Command } from './args.js';
 import { EXIT, type CliIo, type ExitCode } from './io.js';
 import { examineLoaded, loadTables } from './load.js';
@@ -52,14 +52,14 @@ export async function verifyCommand(cmd: VerifyCommand, io: CliIo, progress: Pro
     io.err(`error: ${program.error.message}\n`);
     return EXIT.failed;
   }
-  const mapping = mapText?.ok ? readMappingCsv(basename(cmd.map!), mapText.value) : undefined;
-  if (mapping && !mapping.ok) {
+  const mapping = readMappings(mapText?.ok ? [{ kind: 'file', fileName: basename(cmd.map!), text: mapText.value }] : []);
+  if (!mapping.ok) {
     io.err(`error: ${mapping.error.message}\n`);
     return EXIT.failed;
   }
   progress.note(`checking ${cmd.impl} against ${wb.tables.length} spec table(s)`);
   // Outputs of a table with errors come back UNCHECKED: the workflow's rule, as in every host.
-  const report = verifyProgram(wb, program.value, mapping?.value, { gapsFree: cmd.gapsFree });
+  const report = verifyProgram(wb, program.value, mapping.value, { gapsFree: cmd.gapsFree });
   if (cmd.json) io.out(JSON.stringify(verifyReportJson(report), null, 2) + '\n');
   else io.out(verifyReportText(report));
   for (const p of errorsOf([...wb.problems, ...wb.tables.flatMap((t) => t.problems)])) io.err(problemLine(p) + '\n');

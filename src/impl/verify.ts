@@ -7,19 +7,27 @@ import {
   count,
   cubeContains,
   has,
+  inputBit,
   intersect,
   LISTED,
   members,
   minus,
+  sideSentence,
   signalIndex,
+  SYMBOLIC_FROM_INPUTS,
   union,
   variable,
+  wideContains,
   type BoolFunction,
   type Combination,
+  type CounterexampleKind,
   type Expr,
   type Monomial,
+  type SideSentence,
   type Signal,
+  type WideCombination,
 } from '../logic/index.js';
+import { compareSymbolically, symbolicSpec, type SymbolicSpec } from './verify-wide.js';
 import { mapVars, nodeCount, varsOf } from './expr-dag.js';
 import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import type { NameMapping, NamePair } from './mapping.js';
@@ -27,12 +35,18 @@ import type { CannotJudge, ImplOutput, ImplPou, ImplProgram } from './types.js';
 
 export type VerifyStatus = 'equal' | 'differs' | 'unchecked' | 'not-found';
 
+/** A count: a number up to 24 inputs, BigInt over (a table of 64 inputs has 2^64 combinations). */
+export type Count = number | bigint;
+
 export interface CounterexampleRow {
-  readonly combination: Combination;
+  /** A number up to 24 inputs, BigInt over. */
+  readonly combination: Combination | WideCombination;
   /** Spec input values, leftmost input first. */
   readonly inputs: readonly (0 | 1)[];
   readonly expected: 0 | 1;
   readonly actual: 0 | 1;
+  /** Unsafe: the spec requires the safe value and the program gives the other; spurious trip: the other way. */
+  readonly kind: CounterexampleKind;
   /** Where `expected` comes from: a spec row, or the safe value of a gap or a conflict. */
   readonly source: 'row' | 'gap' | 'conflict';
   /** The spec row that asks for `expected` here: its cells, and its cell for this output. */
@@ -41,9 +55,9 @@ export interface CounterexampleRow {
 
 /** Combinations the spec leaves open, and what the implementation does with them. */
 export interface OpenCombinations {
-  readonly count: number;
+  readonly count: Count;
   /** Of them, how many the implementation turns ON. */
-  readonly implementationOn: number;
+  readonly implementationOn: Count;
 }
 
 export interface OutputVerdict {
@@ -56,21 +70,27 @@ export interface OutputVerdict {
   /** The implementing variable, "Pou.Variable", and the line of its last assignment. */
   readonly variable?: string;
   readonly line?: number;
-  readonly combinations: number;
-  readonly mismatchCount: number;
-  /** The first 50 disagreements. */
+  readonly combinations: Count;
+  readonly mismatchCount: Count;
+  /** Of the disagreements, over every combination judged: unsafe ones and spurious trips (they add up to `mismatchCount`). */
+  readonly unsafeCount: Count;
+  readonly spuriousTripCount: Count;
+  /** The first 50 unsafe disagreements, then the first 50 spurious trips. */
   readonly counterexamples: readonly CounterexampleRow[];
+  /** Each side in a sentence, from the minimal AND/OR form of its set (absent when the side is empty). */
+  readonly unsafeWhen?: SideSentence;
+  readonly spuriousTripWhen?: SideSentence;
   /** ANF monomials of spec XOR implementation, printed ("Jog AND Mode_setup"), first 50. */
   readonly differenceMonomials: readonly string[];
-  readonly differenceMonomialCount: number;
+  readonly differenceMonomialCount: Count;
   readonly dontCare: OpenCombinations;
   /**
    * Gaps take the safe value in the spec; those where the implementation is not safe are
    * counted, and are differences unless `judged` is false (`gapsFree`).
    */
-  readonly gaps: OpenCombinations & { readonly safe: 0 | 1; readonly unsafe: number; readonly unsafeExamples: readonly Combination[]; readonly judged: boolean };
+  readonly gaps: OpenCombinations & { readonly safe: 0 | 1; readonly unsafe: Count; readonly unsafeExamples: readonly (Combination | WideCombination)[]; readonly judged: boolean };
   /** Combinations the spec asks to be both 1 and 0. */
-  readonly conflicted: number;
+  readonly conflicted: Count;
   /** Why the output is unchecked or not found. */
   readonly reasons: readonly string[];
   readonly cannotJudge: readonly CannotJudge[];
@@ -104,6 +124,9 @@ export interface VerifyOptions {
  */
 const MAX_EVALUATION_WORDS = 2 ** 31;
 
+/** The difference fields of an output that was not compared. */
+export const NO_DIFFERENCE = { mismatchCount: 0, unsafeCount: 0, spuriousTripCount: 0, counterexamples: [], differenceMonomials: [], differenceMonomialCount: 0 } as const;
+
 const same = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase();
 
 /** Split "Pou.Var" into its POU and variable; a plain name has no POU. */
@@ -134,8 +157,9 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
   for (const table of tables) {
     const where = qualifiedAddress(table.sheet, table.range);
     inputs[where] = table.inputs;
-    table.outputs.forEach((spec, o) => {
-      const verdict = verifyOutput(table, o, impl, mapping, options);
+    const symbolic = table.wide ? symbolicSpec(table) : undefined;
+    specOutputs(table).forEach((spec, o) => {
+      const verdict = verifyOutput(table, o, impl, mapping, options, symbolic);
       outputs.push(verdict);
       if (verdict.variable) usedProgram.add(verdict.variable.toLowerCase());
       if (verdict.status === 'not-found') unmatchedSpec.push(`${where}: output ${spec.signal.header}`);
@@ -168,7 +192,7 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
 }
 
 function unusedPairs(tables: readonly SpecTable[], impl: ImplProgram, mapping: NameMapping): string[] {
-  const signals = tables.flatMap((t) => [...t.inputs, ...t.outputs.map((o) => o.signal)]);
+  const signals = tables.flatMap((t) => [...t.inputs, ...specOutputs(t).map((o) => o.signal)]);
   const out: string[] = [];
   for (const pair of mapping.pairs) {
     if (signalIndex(signals, pair.spec) < 0) out.push(`${pair.where}: no spec table has a signal '${pair.spec}'`);
@@ -183,18 +207,27 @@ function unusedPairs(tables: readonly SpecTable[], impl: ImplProgram, mapping: N
   return out;
 }
 
-function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: NameMapping | undefined, options: VerifyOptions): OutputVerdict {
-  const spec = table.outputs[o]!;
+/** The outputs with their safe values, whichever engine takes the table. */
+function specOutputs(table: SpecTable): readonly { readonly signal: Signal; readonly safe: 0 | 1 }[] {
+  return table.wide?.outputs ?? table.outputs;
+}
+
+function verifyOutput(
+  table: SpecTable,
+  o: number,
+  impl: ImplProgram,
+  mapping: NameMapping | undefined,
+  options: VerifyOptions,
+  symbolic: SymbolicSpec | undefined,
+): OutputVerdict {
+  const spec = specOutputs(table)[o]!;
   const n = table.inputs.length;
   const base = {
     table: qualifiedAddress(table.sheet, table.range),
     output: spec.signal,
     cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
-    combinations: 2 ** n,
-    mismatchCount: 0,
-    counterexamples: [],
-    differenceMonomials: [],
-    differenceMonomialCount: 0,
+    combinations: table.wide ? 1n << BigInt(n) : 2 ** n,
+    ...NO_DIFFERENCE,
     dontCare: { count: 0, implementationOn: 0 },
     gaps: { count: 0, implementationOn: 0, safe: spec.safe, unsafe: 0, unsafeExamples: [], judged: !options.gapsFree },
     conflicted: 0,
@@ -219,6 +252,10 @@ function verifyOutput(table: SpecTable, o: number, impl: ImplProgram, mapping: N
   }
   const remapped = toSpecInputs(out, pou, table, mapping);
   if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons, cannotJudge: remapped.cannotJudge };
+  if (symbolic) {
+    const judged = compareSymbolically(remapped.expr, table, o, options, symbolic);
+    return 'tooLarge' in judged ? { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}): ${judged.tooLarge}`] } : { ...found, ...judged };
+  }
   const work = nodeCount(remapped.expr) * Math.ceil(2 ** n / 32);
   if (work > MAX_EVALUATION_WORDS) {
     return { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}) is too large to evaluate over ${n} inputs (${nodeCount(remapped.expr)} distinct operations)`] };
@@ -269,25 +306,34 @@ function compare(
   table: SpecTable,
   o: number,
   options: VerifyOptions,
-): Pick<OutputVerdict, 'status' | 'mismatchCount' | 'counterexamples' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'> {
+): Pick<
+  OutputVerdict,
+  'status' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'counterexamples' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'
+> {
   const spec = table.outputs[o]!;
   const { fn, gaps, conflicted } = spec.built;
   const n = fn.n;
   // The spec's function already gives gaps and conflicts the safe value; --gaps-free frees gaps.
   const judged: BoolFunction = options.gapsFree ? { n, on: minus(fn.on, gaps), dc: union(fn.dc, gaps) } : fn;
-  const check = checkImplementation(expr, judged);
+  const check = checkImplementation(expr, judged, { safe: spec.safe, symbolicFrom: SYMBOLIC_FROM_INPUTS });
   const values = check.values;
   const dc = minus(fn.dc, union(gaps, conflicted));
   const unsafeGaps = spec.safe === 1 ? minus(gaps, values) : intersect(gaps, values);
   const counterexamples = check.counterexamples.map((c) => {
     const source = has(gaps, c.combination) ? 'gap' : has(conflicted, c.combination) ? 'conflict' : 'row';
     const specRow = source === 'row' ? specRowOf(table, o, c.combination, c.expected) : undefined;
-    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, source, ...(specRow ? { specRow } : {}) } as const;
+    return { combination: c.combination, inputs: c.inputs, expected: c.expected, actual: c.actual, kind: c.kind, source, ...(specRow ? { specRow } : {}) } as const;
   });
+  const unsafeWhen = sideSentence('unsafe', n, check.unsafeWhen, table.inputs);
+  const spuriousTripWhen = sideSentence('spurious-trip', n, check.spuriousTripWhen, table.inputs);
   return {
     status: check.equal ? 'equal' : 'differs',
     mismatchCount: check.mismatchCount,
+    unsafeCount: check.unsafeCount,
+    spuriousTripCount: check.spuriousTripCount,
     counterexamples,
+    ...(unsafeWhen ? { unsafeWhen } : {}),
+    ...(spuriousTripWhen ? { spuriousTripWhen } : {}),
     differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
     differenceMonomialCount: check.differenceMonomialCount,
     dontCare: { count: count(dc), implementationOn: count(intersect(dc, values)) },
@@ -305,15 +351,18 @@ function compare(
 }
 
 /** The first spec row that asks output `o` for `expected` on combination `k`: its cells and its output cell. */
-export function specRowOf(table: SpecTable, o: number, k: Combination, expected: 0 | 1): CounterexampleRow['specRow'] {
-  const row = table.rows.find((r) => cubeContains(r.cube, k) && r.values[o] === expected);
+export function specRowOf(table: SpecTable, o: number, k: Combination | WideCombination, expected: 0 | 1): CounterexampleRow['specRow'] {
+  const cubes = table.wide?.cubes;
+  const covers = (r: SpecTable['rows'][number], i: number): boolean => (cubes ? wideContains(cubes[i]!, BigInt(k)) : cubeContains(r.cube, Number(k)));
+  const row = table.rows.find((r, i) => covers(r, i) && r.values[o] === expected);
   return row ? { cells: qualifiedAddress(table.sheet, row.cells), outputCell: qualifiedAddress(table.sheet, row.outputCells[o] ?? '') } : undefined;
 }
 
-/** A monomial as an AND of identifiers (TRUE for the constant monomial). */
-export function printMonomial(m: Monomial, inputs: readonly Signal[]): string {
+/** A monomial (a number up to 24 inputs, BigInt over) as an AND of identifiers (TRUE for the constant monomial). */
+export function printMonomial(m: Monomial | bigint, inputs: readonly Signal[]): string {
   const n = inputs.length;
-  const names = inputs.filter((_, i) => (m >>> (n - 1 - i)) & 1).map((s) => s.identifier);
+  const mask = BigInt(m);
+  const names = inputs.filter((_, i) => mask & inputBit(n, i)).map((s) => s.identifier);
   return names.length === 0 ? 'TRUE' : names.join(' AND ');
 }
 

@@ -1,7 +1,8 @@
 // Implementation check: logic already written (parsed to an expression) against the spec.
 import { anfDifference, type Monomial } from './anf.js';
-import { complement, emptySet, fullSet, has, inputSet, intersect, symmetricDifference, union, type BitSet, type Combination } from './bits.js';
-import type { BoolFunction } from './boolfn.js';
+import { complement, count, emptySet, fullSet, inputSet, intersect, symmetricDifference, union, type BitSet, type Combination } from './bits.js';
+import type { BoolFunction, SafeValue } from './boolfn.js';
+import { differenceSides, listedSides, sideForm, type CounterexampleKind, type SideForm, type SideFormOptions } from './difference.js';
 import type { Expr } from './expr/ast.js';
 import { LISTED, inputValues, prove } from './proof.js';
 
@@ -13,6 +14,8 @@ export interface Counterexample {
   readonly expected: 0 | 1;
   /** What the implementation gives. */
   readonly actual: 0 | 1;
+  /** Unsafe: the spec requires the safe value here; spurious trip: it requires the other value. */
+  readonly kind: CounterexampleKind;
 }
 
 export interface ImplCheck {
@@ -21,8 +24,14 @@ export interface ImplCheck {
   /** 2^n: every combination was checked. */
   readonly combinations: number;
   readonly mismatchCount: number;
-  /** The first LISTED disagreements, in increasing order of combination. */
+  /** Of the disagreements (all 2^n judged), how many are unsafe and how many spurious trips. */
+  readonly unsafeCount: number;
+  readonly spuriousTripCount: number;
+  /** The first LISTED unsafe disagreements, then the first LISTED spurious trips, each in increasing order of combination. */
   readonly counterexamples: Counterexample[];
+  /** Minimal AND/OR forms of the unsafe set and of the spurious-trip set: the plain sentences. */
+  readonly unsafeWhen: SideForm;
+  readonly spuriousTripWhen: SideForm;
   /**
    * The first LISTED monomials of the ANF of (spec XOR implementation), where the spec's
    * don't-cares take the implementation's value: so only real disagreements show. Their XOR
@@ -36,13 +45,20 @@ export interface ImplCheck {
   readonly values: BitSet;
 }
 
+export interface CheckOptions extends SideFormOptions {
+  /** The output's safe value (default 0): which side of a disagreement is unsafe. */
+  readonly safe?: SafeValue;
+}
+
 /** Check an implementation (an expression over fn's inputs) against the spec fn. */
-export function checkImplementation(expr: Expr, fn: BoolFunction): ImplCheck {
+export function checkImplementation(expr: Expr, fn: BoolFunction, options: CheckOptions = {}): ImplCheck {
+  const safe = options.safe ?? 0;
   const impl = sharedTruthTable(expr, fn.n);
   const proof = prove(fn, impl);
-  const counterexamples = proof.mismatches.map((k) => {
-    const expected: 0 | 1 = has(fn.on, k) ? 1 : 0;
-    return { combination: k, inputs: inputValues(fn.n, k), expected, actual: (1 - expected) as 0 | 1 };
+  const sides = differenceSides(fn, impl, safe);
+  const counterexamples = listedSides(sides, LISTED).map(({ combination: k, kind }) => {
+    const expected: 0 | 1 = kind === 'unsafe' ? safe : ((1 - safe) as 0 | 1);
+    return { combination: k, inputs: inputValues(fn.n, k), expected, actual: (1 - expected) as 0 | 1, kind };
   });
   // Don't-cares take the implementation's value, so they never count as a difference.
   const completed = union(fn.on, intersect(impl, fn.dc));
@@ -51,7 +67,11 @@ export function checkImplementation(expr: Expr, fn: BoolFunction): ImplCheck {
     equal: proof.mismatchCount === 0,
     combinations: proof.combinations,
     mismatchCount: proof.mismatchCount,
+    unsafeCount: count(sides.unsafe),
+    spuriousTripCount: count(sides.spuriousTrip),
     counterexamples,
+    unsafeWhen: sideForm(fn.n, sides.unsafe, fn.dc, options),
+    spuriousTripWhen: sideForm(fn.n, sides.spuriousTrip, fn.dc, options),
     differenceMonomials: difference.slice(0, LISTED),
     differenceMonomialCount: difference.length,
     dontCareOn: proof.permitsAlsoCount,

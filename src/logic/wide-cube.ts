@@ -4,6 +4,9 @@ import { cube as narrowCube, type Cube } from './cube.js';
 /** Inputs the symbolic engine takes (a cube's mask stays within one 64-bit word). */
 export const WIDE_MAX_INPUTS = 64;
 
+/** From this many inputs (up to 24) analysis and verify take the symbolic engine: measured by the wide bench. */
+export const SYMBOLIC_FROM_INPUTS = 20;
+
 /**
  * A cube over n <= 64 inputs: the combinations that agree with `bits` on the inputs in `mask`.
  * The same positions as a Cube (input i of n is bit n-1-i) in BigInt, so the cube algebra of
@@ -88,4 +91,12 @@ export function compareWidePrinted(n: number): (a: WideCube, b: WideCube) => num
 /** A count for JSON: a number while exact (<= 2^53), else its decimal digits. */
 export function countJson(k: bigint): number | string {
   return k <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(k) : k.toString();
+}
+
+/** Plain data with every BigInt inside it (arrays and plain objects, any depth) made `countJson`. */
+export function jsonCounts<T>(value: T): unknown {
+  if (typeof value === 'bigint') return countJson(value);
+  if (Array.isArray(value)) return value.map(jsonCounts);
+  if (value !== null && typeof value === 'object') return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, jsonCounts(v)]));
+  return value;
 }

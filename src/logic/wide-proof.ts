@@ -3,6 +3,7 @@
 import { FALSE, TRUE, type Dd, type Node } from './bdd.js';
 import type { Expr } from './expr/ast.js';
 import { LISTED } from './proof.js';
+import { postOrder } from './implcheck.js';
 import type { WideFunction } from './wide-fn.js';
 import type { WideCombination } from './wide-cube.js';
 
@@ -16,22 +17,26 @@ export interface WideProof {
   readonly permitsAlsoCount: bigint;
 }
 
-/** The BDD of an expression over the Dd's inputs. */
+/**
+ * The BDD of an expression over the Dd's inputs. Each distinct node once, operands first, no
+ * recursion: programs read back share subtrees and chain them as deep as the program is long.
+ */
 export function exprToBdd(dd: Dd, expr: Expr): Node {
-  switch (expr.kind) {
-    case 'const':
-      return expr.value ? TRUE : FALSE;
-    case 'var':
-      return dd.variable(expr.input);
-    case 'not':
-      return dd.not(exprToBdd(dd, expr.arg));
-    case 'and':
-      return expr.args.reduce((f, a) => dd.and(f, exprToBdd(dd, a)), TRUE);
-    case 'or':
-      return dd.orAll(expr.args.map((a) => exprToBdd(dd, a)));
-    case 'xor':
-      return dd.xorAll(expr.args.map((a) => exprToBdd(dd, a)));
+  const values = new Map<Expr, Node>();
+  for (const x of postOrder([expr])) {
+    let f: Node;
+    if (x.kind === 'const') f = x.value ? TRUE : FALSE;
+    else if (x.kind === 'var') {
+      if (!Number.isInteger(x.input) || x.input < 0 || x.input >= dd.n) throw new Error(`bug: expression uses input ${x.input} of ${dd.n}`);
+      f = dd.variable(x.input);
+    } else if (x.kind === 'not') f = dd.not(values.get(x.arg)!);
+    else {
+      const args = x.args.map((a) => values.get(a)!);
+      f = x.kind === 'and' ? args.reduce((g, a) => dd.and(g, a), TRUE) : x.kind === 'or' ? dd.orAll(args) : dd.xorAll(args);
+    }
+    values.set(x, f);
   }
+  return values.get(expr)!;
 }
 
 /**

@@ -1,6 +1,7 @@
-// Commissioning test steps of steps.ts from BDDs: the same steps (each set's first combination
-// is its smallest on both engines), without the 2^n-bit sets that cost ~1 s per output at 24
-// inputs.
+// Commissioning test steps over up to 64 inputs: the unique-cause plan of steps.ts (one
+// algorithm, `causeSteps`) worked on BDDs instead of bit sets, so that a table of 40 or 64
+// inputs gets one step per test that matters, never 2^n, and 24 inputs no 2^24-bit sets (~1 s
+// an output). Each set's first combination is its smallest on both engines: the same steps.
 import { FALSE, type Dd, type Node } from './bdd.js';
 import { printSt } from './expr/print-st.js';
 import type { Signal } from './signals.js';
@@ -13,6 +14,11 @@ export interface WideTestStep {
   readonly combination: WideCombination;
   readonly expected: 0 | 1;
   readonly reason: string;
+}
+
+/** The most steps the plan gives a form: one ON step per term, and per literal an ON and an OFF step. */
+export function wideStepBound(terms: number, literals: number): number {
+  return Math.max(1, terms + 2 * literals);
 }
 
 /**

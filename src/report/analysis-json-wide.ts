@@ -27,8 +27,8 @@ export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' |
   readonly gapCount: Count;
   readonly dontCareCount: Count;
   readonly conflicts: { readonly rows: [string, string]; readonly notes?: [string | null, string | null]; readonly example: string; readonly combinations: Count }[];
-  /** Not chosen above 24 inputs (none listed). */
-  readonly steps: [];
+  /** The unique-cause test steps, combinations as patterns. */
+  readonly steps: { readonly combination: string; readonly expected: 0 | 1; readonly reason: string }[];
 }
 
 export interface WideTableJson extends Omit<TableJson, 'outputs'> {
@@ -73,7 +73,7 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
         example: combinationPattern(n, c.example),
         combinations: countJson(c.combinations),
       })),
-      steps: [],
+      steps: o.steps.map((s) => ({ combination: combinationPattern(n, s.combination), expected: s.expected, reason: s.reason })),
     };
   };
   return { ...table, engine: 'symbolic', outputs: wide.outputs.map(output) };

@@ -2,9 +2,20 @@
 // counterexamples as rows (inputs 0/1, expected, actual, the spec row they contradict), the
 // ANF monomials by which implementation and spec differ, and the don't-care/gap notes. A pasted
 // expression (one output) and a program file (every output) come to the same sections.
-import { appendAll, count, has, maxOf, type Combination, type ImplCheck, type Signal } from '../logic/index.js';
+import {
+  appendAll,
+  count,
+  has,
+  maxOf,
+  sideSentence,
+  type Combination,
+  type CounterexampleKind,
+  type ImplCheck,
+  type Signal,
+} from '../logic/index.js';
 import { kindWord, printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/index.js';
 import { qualifiedAddress, type SpecTable } from '../table/index.js';
+import { sideCountsText, sideTotals } from './verify-report.js';
 import { CAUTION_LINES } from './caution.js';
 import { CELL_CHARS, code, heading, label } from './results-sheet.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
@@ -21,10 +32,20 @@ type Row = (BlockCell | null)[];
 
 /** One output's check as the sheet shows it, whichever kind of check it came from. */
 interface Section
-  extends Pick<OutputVerdict, 'output' | 'cell' | 'status' | 'combinations' | 'mismatchCount' | 'differenceMonomials' | 'differenceMonomialCount'> {
+  extends Pick<
+    OutputVerdict,
+    'output' | 'cell' | 'status' | 'combinations' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount'
+  > {
   readonly inputs: readonly Signal[];
+  readonly safe: 0 | 1;
   readonly implementation: BlockCell;
-  readonly counterexamples: readonly { readonly inputs: readonly (0 | 1)[]; readonly expected: 0 | 1; readonly actual: 0 | 1; readonly specRow: string }[];
+  readonly counterexamples: readonly {
+    readonly inputs: readonly (0 | 1)[];
+    readonly expected: 0 | 1;
+    readonly actual: 0 | 1;
+    readonly kind: CounterexampleKind;
+    readonly specRow: string;
+  }[];
   /** Label and text: reasons, don't-cares, gaps, conflicts. */
   readonly notes: readonly (readonly [string, string])[];
 }
@@ -68,22 +89,29 @@ function sectionRows(s: Section): Row[] {
     [label('Implementation'), s.implementation],
     [label('Verdict'), { value: VERDICT_WORD[s.status], style: 'status' }, { value: verdictText(s) }],
   ];
+  if (s.status === 'differs') {
+    rows.push([label('Unsafe combinations'), { value: countValue(s.unsafeCount), style: s.unsafeCount > 0 ? 'unsafe' : 'number' }, { value: `the spec requires the safe value ${s.safe}, the implementation gives ${1 - s.safe}` }]);
+    rows.push([label('Spurious trips'), { value: countValue(s.spuriousTripCount), style: 'number' }, { value: `the spec requires ${1 - s.safe}, the implementation holds the safe value ${s.safe}` }]);
+    if (s.unsafeWhen) rows.push([label('Unsafe when'), { value: s.unsafeWhen.sentence, style: 'unsafe' }]);
+    if (s.spuriousTripWhen) rows.push([label('Spurious trip when'), { value: s.spuriousTripWhen.sentence }]);
+  }
   if (s.counterexamples.length > 0) {
-    const shown = s.counterexamples.length < s.mismatchCount ? `first ${s.counterexamples.length} of ${s.mismatchCount}` : `all ${s.mismatchCount}`;
+    const shown = s.counterexamples.length < s.mismatchCount ? `${s.counterexamples.length} of ${s.mismatchCount} (the first of each kind, unsafe first)` : `all ${s.mismatchCount}, unsafe first`;
     rows.push([label('Counterexamples'), { value: shown }]);
-    rows.push([...s.inputs.map((i) => heading(i.header)), heading('Expected (spec)'), heading('Actual (implementation)'), heading('Spec row it contradicts')]);
+    rows.push([...s.inputs.map((i) => heading(i.header)), heading('Expected (spec)'), heading('Actual (implementation)'), heading('Kind'), heading('Spec row it contradicts')]);
     for (const c of s.counterexamples) {
       rows.push([
         ...c.inputs.map((v): BlockCell => ({ value: v, style: 'input' })),
         { value: c.expected, style: 'number' },
         { value: c.actual, style: 'number' },
+        c.kind === 'unsafe' ? { value: 'unsafe', style: 'unsafe' } : { value: 'spurious trip' },
         { value: c.specRow },
       ]);
     }
   }
   if (s.differenceMonomialCount > 0) {
     const more = s.differenceMonomialCount > s.differenceMonomials.length ? ` (first ${s.differenceMonomials.length} shown)` : '';
-    rows.push([label('Differs by the XOR of'), { value: `${plural(s.differenceMonomialCount, 'ANF monomial')}${more}` }]);
+    rows.push([label('Detail: XOR of'), { value: `${plural(s.differenceMonomialCount, 'ANF monomial')}${more} by which spec and implementation differ` }]);
     for (const m of s.differenceMonomials) rows.push([null, code(m)]);
   }
   for (const [what, text] of s.notes) rows.push([label(what), { value: text }]);
@@ -118,19 +146,26 @@ function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>):
   if (gapCount > 0) notes.push(['Gaps', `${plural(gapCount, 'combination')} no row covers; they take the safe value ${spec.safe} and are checked against it`]);
   const conflictCount = count(conflicted);
   if (conflictCount > 0) notes.push(['Conflicts', `${plural(conflictCount, 'combination')} the spec asks to be both 1 and 0; they take the safe value ${spec.safe} and are checked against it`]);
+  const unsafeWhen = sideSentence('unsafe', n, check.unsafeWhen, table.inputs);
+  const spuriousTripWhen = sideSentence('spurious-trip', n, check.spuriousTripWhen, table.inputs);
   const section: Section = {
     output: spec.signal,
     cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
     status: check.equal ? 'equal' : 'differs',
     combinations: check.combinations,
     mismatchCount: check.mismatchCount,
+    unsafeCount: check.unsafeCount,
+    spuriousTripCount: check.spuriousTripCount,
+    ...(unsafeWhen ? { unsafeWhen } : {}),
+    ...(spuriousTripWhen ? { spuriousTripWhen } : {}),
+    safe: spec.safe,
     differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
     differenceMonomialCount: check.differenceMonomialCount,
     inputs: table.inputs,
     implementation: { value: 'the expression above' },
     counterexamples: check.counterexamples.map((c) => {
       const row = specRowOf(table, o, c.combination, c.expected);
-      return { inputs: c.inputs, expected: c.expected, actual: c.actual, specRow: row ? specRowText(row) : openNote(c.combination) };
+      return { inputs: c.inputs, expected: c.expected, actual: c.actual, kind: c.kind, specRow: row ? specRowText(row) : openNote(c.combination) };
     }),
     notes,
   };
@@ -153,7 +188,7 @@ function programView(report: VerifyReport): CheckView {
   const sections = report.outputs.map((v): Section => {
     const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
     if (v.status === 'equal' || v.status === 'differs') {
-      const n = Math.log2(v.combinations);
+      const n = Math.log2(Number(v.combinations));
       if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the implementation turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
       if (v.gaps.count > 0) {
         const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => k.toString(2).padStart(n, '0'));
@@ -167,6 +202,7 @@ function programView(report: VerifyReport): CheckView {
     }
     return {
       ...v,
+      safe: v.gaps.safe,
       inputs: report.inputs[v.table] ?? [],
       implementation: { value: v.variable ? `${v.variable} (line ${v.line})` : 'none found' },
       counterexamples: v.counterexamples.map((c) => ({ ...c, specRow: c.specRow ? specRowText(c.specRow) : '-' })),
@@ -184,6 +220,7 @@ function programView(report: VerifyReport): CheckView {
         'Result',
         { value: `${tally('equal')} equal, ${tally('differs')} differ, ${tally('unchecked')} unchecked, ${tally('not-found')} not found of ${plural(report.outputs.length, 'output')}` },
       ],
+      ...(tally('differs') > 0 ? [['Differences', differencesCell(sideTotals(report.outputs))] as const] : []),
     ],
     sections,
     lists: [
@@ -196,6 +233,16 @@ function programView(report: VerifyReport): CheckView {
   };
 }
 
+/** Both counts in one cell, marked when any is unsafe. */
+function differencesCell(totals: Pick<OutputVerdict, 'unsafeCount' | 'spuriousTripCount'>): BlockCell {
+  return { value: `${sideCountsText(totals)} in all`, ...(totals.unsafeCount > 0 ? { style: 'unsafe' as const } : {}) };
+}
+
 function specRowText(row: NonNullable<OutputVerdict['counterexamples'][number]['specRow']>): string {
   return `${row.cells} (output cell ${row.outputCell})`;
+}
+
+/** A count as a cell: a number while exact in a double, else its decimal digits (wide tables). */
+function countValue(c: number | bigint): number | string {
+  return typeof c === 'number' || c <= BigInt(Number.MAX_SAFE_INTEGER) ? Number(c) : c.toString();
 }

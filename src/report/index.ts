@@ -17,3 +17,4 @@ export { sheetName, stepsCsv, stepTable, testRecordSheet, type RecordOptions } f
 export { plural } from './text.js';
 export { verifyReportJson, verifyReportText } from './verify-report.js';
 export { TOOL_NAME, TOOL_VERSION } from './version.js';
+export { outputViews } from './output-view.js';

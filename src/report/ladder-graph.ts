@@ -6,7 +6,7 @@
 // line through an IEC 61131-3 connector (end of the line) and a continuation of the same name
 // (start of the next line), never through a drawn wire that could be read as a branch: the
 // only vertical wires are the bus that joins the ends of the parallel branches.
-import { maxOf, type Cube, type Signal } from '../logic/index.js';
+import { maxOf, type Cube, type Signal, type WideCube } from '../logic/index.js';
 
 export type LadderNodeKind = 'left-rail' | 'right-rail' | 'contact' | 'coil' | 'connector' | 'continuation';
 
@@ -109,10 +109,10 @@ interface LinePlan {
  * series on one line (continued through connectors when wider than `width`), all branches
  * feeding one coil. With `coil`, the heading and the coil's label are laid out too.
  */
-export function ladderGraph(cubes: readonly Cube[], inputs: readonly Signal[], width = 320, coil?: Signal): LadderGraph {
+export function ladderGraph(cubes: readonly (Cube | WideCube)[], inputs: readonly Signal[], width = 320, coil?: Signal): LadderGraph {
   const n = inputs.length;
   const maxWidth = Math.max(LADDER.minWidth, Math.round(width));
-  const constant = cubes.length === 0 ? 'false' : cubes.some((c) => c.mask === 0) ? 'true' : 'none';
+  const constant = cubes.length === 0 ? 'false' : cubes.some((c) => BigInt(c.mask) === 0n) ? 'true' : 'none';
   const terms = constant === 'none' ? cubes.map((c) => literalsOf(c, n)) : [];
 
   // Contacts that fit one line beside the rail, and beside a continuation with a connector after.
@@ -225,11 +225,14 @@ function dedupe(points: [number, number][]): [number, number][] {
   return points.filter((p, i) => i === 0 || p[0] !== points[i - 1]![0] || p[1] !== points[i - 1]![1]);
 }
 
-function literalsOf(c: Cube, n: number): Literal[] {
+/** Either engine's cube (BigInt past 32 inputs). */
+function literalsOf(c: Cube | WideCube, n: number): Literal[] {
+  const mask = BigInt(c.mask);
+  const bits = BigInt(c.bits);
   const out: Literal[] = [];
   for (let i = 0; i < n; i++) {
-    const bit = 1 << (n - 1 - i);
-    if (c.mask & bit) out.push({ input: i, negated: (c.bits & bit) === 0 });
+    const bit = 1n << BigInt(n - 1 - i);
+    if (mask & bit) out.push({ input: i, negated: (bits & bit) === 0n });
   }
   return out;
 }

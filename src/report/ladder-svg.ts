@@ -3,15 +3,27 @@
 // connector / continuation pair >n> where a branch continues on the next line.
 // Plain black on white, text no smaller than 11 px; labels wrap, never cut; as wide as the
 // rung needs, up to the width asked for.
-import type { Signal } from '../logic/index.js';
-import type { OutputAnalysis } from '../analysis/index.js';
+import type { Cube, FormBound, Signal, WideCube } from '../logic/index.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import { LADDER, ladderGraph, wrapWhole, type LadderGraph, type LadderNode, type LadderWire } from './ladder-graph.js';
 import { escapeXml, plural } from './text.js';
 
 export { ladderGraph } from './ladder-graph.js';
 
-export function ladderSvg(output: OutputAnalysis, inputs: readonly Signal[], options: { width?: number } = {}): string {
+/** What a rung is drawn from: either engine's output (OutputAnalysis, OutputView). */
+export interface RungSource {
+  readonly signal: Signal;
+  readonly andOr: {
+    readonly cubes: readonly (Cube | WideCube)[];
+    readonly text: string;
+    readonly proven: boolean;
+    readonly terms: number | bigint;
+    readonly literals: number;
+    readonly lowerBound: FormBound;
+  };
+}
+
+export function ladderSvg(output: RungSource, inputs: readonly Signal[], options: { width?: number } = {}): string {
   const graph = ladderGraph(output.andOr.cubes, inputs, options.width ?? 320, output.signal);
   const title = `${output.signal.header} (${output.signal.identifier}) := ${output.andOr.text}`;
   const notes = footerLines(output, graph);
@@ -50,14 +62,15 @@ export function drawnWires(graph: LadderGraph): LadderWire[] {
 }
 
 /** The notes under the rung: what a constant rung means, how connectors read, and the start of the caution. */
-function footerLines(output: OutputAnalysis, graph: LadderGraph): string[] {
+function footerLines(output: RungSource, graph: LadderGraph): string[] {
   const chars = Math.floor((graph.width - 2 * LADDER.railX) / LADDER.charPx);
   const lines: string[] = [];
   if (graph.constant === 'true') lines.push(...wrapWhole('Always energised: the form is TRUE, no input matters.', chars));
   if (graph.constant === 'false') lines.push(...wrapWhole('Open rung, never energised: the form is FALSE.', chars));
   if (graph.nodes.some((node) => node.kind === 'connector'))
     lines.push(...wrapWhole('A branch too long for one line continues, in series, at the continuation of the same number.', chars));
-  const status = output.andOr.proven ? 'proven minimum' : 'heuristic';
+  const b = output.andOr.lowerBound;
+  const status = output.andOr.proven ? 'proven minimum' : `heuristic; proven lower bound ${plural(b.terms, 'branch', 'branches')}, ${plural(b.literals, 'contact')}`;
   lines.push(...wrapWhole(`${plural(output.andOr.terms, 'branch', 'branches')}, ${plural(output.andOr.literals, 'contact')} (${status}).`, chars));
   lines.push(...wrapWhole(CAUTION_LINES[0]!, chars));
   return lines;

@@ -4,7 +4,8 @@
 // (PLCopen, namespace http://www.plcopen.org/xml/tc6_0201); test/report/plcopen-export.test.ts
 // checks them.
 import type { Signal } from '../logic/index.js';
-import type { OutputAnalysis, TableAnalysis } from '../analysis/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
+import { outputSignalsOf, outputViews, type OutputView } from './output-view.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import { ladderGraph, type LadderGraph, type LadderNode } from './ladder-graph.js';
 import {
@@ -68,7 +69,7 @@ export function exportPlcopen(analyses: readonly TableAnalysis[], options: Plcop
     x.open('pou', { name: names[t]!, pouType });
     x.open('interface');
     variables(x, 'inputVars', analysis.inputs);
-    variables(x, 'outputVars', analysis.outputs.map((o) => o.signal));
+    variables(x, 'outputVars', outputSignalsOf(analysis));
     x.close();
     const header = headerLines(analysis, form, { source: options.source, date: dateTime });
     x.open('body');
@@ -122,7 +123,7 @@ function ladderBody(x: XmlWriter, analysis: TableAnalysis): void {
   x.open('LD');
   let nextId = 1;
   let top = 0;
-  for (const output of analysis.outputs) {
+  for (const output of outputViews(analysis)) {
     const graph = ladderGraph(output.andOr.cubes, analysis.inputs, 480);
     const base = nextId - 1;
     const note = rungNote(output, graph);
@@ -139,7 +140,7 @@ function ladderBody(x: XmlWriter, analysis: TableAnalysis): void {
   x.close();
 }
 
-function rungNote(output: OutputAnalysis, graph: LadderGraph): string {
+function rungNote(output: OutputView, graph: LadderGraph): string {
   const what =
     graph.constant === 'true' ? 'always energised (the form is TRUE)' : graph.constant === 'false' ? 'open rung, never energised (the form is FALSE)' : output.andOr.text;
   return `${output.signal.identifier} := ${what}. ${proofText(output, 'andOr')}. ${CAUTION_LINES[0]}`;

@@ -15,7 +15,7 @@ import {
 } from '../table/index.js';
 import type { TableAnalysis } from '../analysis/index.js';
 import { revisionStamp, parseSettingsLine } from './revision.js';
-import { RECORD_TITLE, stepTable, type Expected } from './test-steps.js';
+import { RECORD_TITLE, recordSteps, type Expected } from './test-steps.js';
 
 export type StepResult = 'passed' | 'failed' | 'not run';
 
@@ -146,7 +146,7 @@ export function judgeRecord(record: FilledRecord, now: { table: SpecTable; analy
   if (!now) stale = `the table ${record.table.sheet}!${record.table.range} is no longer in the workbook`;
   else if (revisionStamp(now.table) !== record.stamp) stale = `the table ${record.table.sheet}!${record.table.range} has changed since the record was made (revision stamp ${revisionStamp(now.table).slice(0, 19)}..., the record's ${record.stamp.slice(0, 19)}...)`;
   if (now && stale === undefined) {
-    const wanted = stepTable(now.analysis).rows;
+    const wanted = recordSteps(now.analysis).rows;
     const have = new Set(record.steps.map((s) => s.testId));
     const known = new Set(wanted.map((w) => w.testId));
     for (const w of wanted)

@@ -4,8 +4,8 @@
 // formulas from the input cells, one row per combination, with a status that reads OK/DIFFERS.
 import {
   appendAll,
-  cubeToPattern,
   has,
+  inputBit,
   ok,
   printExcel,
   truthTable,
@@ -13,13 +13,14 @@ import {
   type Expr,
   type Result,
 } from '../logic/index.js';
-import type { OutputAnalysis, TableAnalysis } from '../analysis/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
 import { cellAddress, qualifiedAddress } from '../table/index.js';
 import { CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { printSetup } from './sheet-looks.js';
-import { chosenForm, FORM_LABEL, type FormChoice } from './st-export.js';
-import { sheetName, stepBlockRows, stepTable } from './test-steps.js';
+import { chosenForm, FORM_LABEL, minimumWords, type FormChoice } from './st-export.js';
+import { outputViews, type OutputView } from './output-view.js';
+import { recordSteps, sheetName, stepBlockRows } from './test-steps.js';
 import { plural } from './text.js';
 
 /** The live check writes one row per combination up to this many inputs (4,096 rows). */
@@ -51,15 +52,16 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
     for (const p of analysis.problems) rows.push([{ value: p.severity }, { value: qualifiedAddress(p.sheet, p.cell) }, { value: p.message }]);
     rows.push([]);
   }
-  for (const output of analysis.outputs) appendAll(rows, outputSection(analysis, output)).push([]);
+  const outputs = outputViews(analysis);
+  for (const output of outputs) appendAll(rows, outputSection(analysis, output)).push([]);
 
   rows.push([heading('Signals')], [heading('Header'), heading('Identifier'), heading('Role')]);
   for (const s of analysis.inputs) rows.push([{ value: s.header }, code(s.identifier), { value: 'input' }]);
-  for (const o of analysis.outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
+  for (const o of outputs) rows.push([{ value: o.signal.header }, code(o.signal.identifier), { value: `output, safe value ${o.safe}` }]);
   rows.push([]);
 
   rows.push([heading('Test steps (unique cause)')]);
-  appendAll(rows, stepBlockRows(stepTable(analysis), analysis.outputs.length)).push([]);
+  appendAll(rows, stepBlockRows(recordSteps(analysis), outputs.length)).push([]);
 
   const statusRanges: string[] = [];
   if (n <= LIVE_CHECK_MAX_INPUTS) {
@@ -71,19 +73,19 @@ export function resultsSheet(analysis: TableAnalysis, options: { source?: string
       { value: live.differs, formula: `COUNTIF(${live.statusRange},"DIFFERS")`, style: 'status' },
     ];
   } else {
-    const reason = `Live check left out: ${n} inputs give ${2 ** n} combinations; the live check is written for tables of up to ${LIVE_CHECK_MAX_INPUTS} inputs (${2 ** LIVE_CHECK_MAX_INPUTS} rows).`;
+    const reason = `Live check left out: ${n} inputs give ${2n ** BigInt(n)} combinations; the live check is written for tables of up to ${LIVE_CHECK_MAX_INPUTS} inputs (${2 ** LIVE_CHECK_MAX_INPUTS} rows).`;
     rows[summaryRow] = [label('Live check'), { value: reason }];
   }
   return {
     name: sheetName(table.sheet, ' results'),
     rows,
-    columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: n + 4 * analysis.outputs.length }, () => 12)],
+    columnWidths: [30, 48, 22, 30, 40, ...Array.from({ length: n + 4 * outputs.length }, () => 12)],
     statusRanges,
     print: printSetup(`Results of ${qualifiedAddress(table.sheet, table.range)}`),
   };
 }
 
-function outputSection(analysis: TableAnalysis, o: OutputAnalysis): Row[] {
+function outputSection(analysis: TableAnalysis, o: OutputView): Row[] {
   const n = analysis.inputs.length;
   const rows: Row[] = [
     [heading(`Output ${o.signal.header} (${o.signal.identifier}), safe value ${o.safe}`)],
@@ -92,41 +94,41 @@ function outputSection(analysis: TableAnalysis, o: OutputAnalysis): Row[] {
   for (const form of FORMS) {
     const f = chosenForm(o, form);
     const cost = form === 'andOr' ? `${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}` : plural(f.terms, 'term');
-    rows.push([label(FORM_LABEL[form]), code(cellText(f.text)), { value: cost }, { value: minimumText(o, form, n) }, { value: proofCell(f.proof) }]);
+    rows.push([label(FORM_LABEL[form]), code(cellText(f.text)), { value: cost }, { value: minimumText(o, form, n) }, { value: proofCell(f) }]);
   }
   const unused = o.unusedInputs.map((i) => analysis.inputs[i]!.header);
   rows.push([label('Inputs that do not matter'), { value: unused.length === 0 ? 'none' : unused.join(', ') }]);
   rows.push([
     label('Gaps (take the safe value)'),
-    { value: o.gapCount === 0 ? 'none' : `${plural(o.gapCount, 'combination')}: ${listed(o.gaps.map((c) => cubeToPattern(n, c)), o.gaps.length)}` },
+    { value: o.gapCount === 0n ? 'none' : `${plural(o.gapCount, 'combination')}: ${listed(o.gaps, o.gaps.length)}` },
   ]);
   if (o.conflicts.length === 0) rows.push([label('Conflicts'), { value: 'none' }]);
   for (const c of o.conflicts) {
     rows.push([
       label('Conflict (takes the safe value)'),
-      { value: `rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 on ${plural(c.combinations, 'combination')}, e.g. ${combinationText(n, c.example)}` },
+      { value: `rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 on ${plural(c.combinations, 'combination')}, e.g. ${c.example}` },
     ]);
   }
   rows.push([label("Don't-care combinations"), { value: `${o.dontCareCount}` }]);
   for (const form of FORMS) {
     const f = chosenForm(o, form);
-    if (f.permitsAlsoCount === 0) continue;
-    rows.push([label(`${FORM_LABEL[form]} turns on`), { value: listed(f.permitsAlso.map((k) => combinationText(n, k)), f.permitsAlsoCount) }]);
+    if (f.permitsAlsoCount === 0n) continue;
+    rows.push([label(`${FORM_LABEL[form]} turns on`), { value: listed(f.permitsAlso, f.permitsAlsoCount) }]);
   }
   return rows;
 }
 
-function minimumText(o: OutputAnalysis, form: FormChoice, n: number): string {
-  if (form === 'andOr') return o.andOr.proven ? 'proven minimum' : 'heuristic (minimum not proven)';
+function minimumText(o: OutputView, form: FormChoice, n: number): string {
+  if (form === 'andOr') return minimumWords(o.andOr);
   if (form === 'xor') return 'unique (algebraic normal form)';
   const complemented = [];
-  for (let i = 0; i < n; i++) if (o.bestXor.polarity & (1 << (n - 1 - i))) complemented.push(i);
+  for (let i = 0; i < n; i++) if (o.bestXor.polarity & inputBit(n, i)) complemented.push(i);
   const which = complemented.length === 0 ? 'no input complemented' : `${plural(complemented.length, 'input')} complemented`;
   return `${which}; ${o.bestXor.exhaustive ? `fewest terms of all 2^${n} polarities` : 'best found, not all polarities searched'}`;
 }
 
-function proofCell(p: { combinations: number; mismatchCount: number }): string {
-  return `${p.combinations} combinations checked, ${p.mismatchCount} mismatch${p.mismatchCount === 1 ? '' : 'es'}`;
+function proofCell(p: { combinations: bigint; mismatchCount: bigint }): string {
+  return `${p.combinations} combinations checked, ${p.mismatchCount} mismatch${p.mismatchCount === 1n ? '' : 'es'}`;
 }
 
 interface LiveCheck {
@@ -215,13 +217,9 @@ function rowFormulas(expr: Expr, first: number, last: number): (row: number) => 
   return (row) => ok(template.value.replace(/@(\d+)@/g, (_, input: string) => cellAddress(row, 1 + Number(input))));
 }
 
-function combinationText(n: number, k: Combination): string {
-  return k.toString(2).padStart(n, '0');
-}
-
-function listed(items: readonly string[], total: number): string {
+function listed(items: readonly string[], total: number | bigint): string {
   const shown = items.slice(0, LISTED).join(', ');
-  return total > LISTED ? `${shown} and ${total - LISTED} more` : shown;
+  return total > LISTED ? `${shown} and ${BigInt(total) - BigInt(LISTED)} more` : shown;
 }
 
 function cellText(s: string): string {

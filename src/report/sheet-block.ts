@@ -1,6 +1,7 @@
 // A sheet to write, independent of the host that writes it (SheetJS file or Office.js).
 
-export type CellStyle = 'title' | 'heading' | 'label' | 'code' | 'caution' | 'status' | 'input' | 'number';
+/** `unsafe`: a count or counterexample on the dangerous side (the spec requires the safe value, the program gives the other). */
+export type CellStyle = 'title' | 'heading' | 'label' | 'code' | 'caution' | 'status' | 'input' | 'number' | 'unsafe';
 
 export interface BlockCell {
   readonly value: string | number | boolean | null;

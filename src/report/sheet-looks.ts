@@ -24,6 +24,8 @@ export const LOOKS: Readonly<Record<CellStyle, Look>> = {
   status: { bold: true, align: 'center' },
   input: { align: 'center' },
   number: { align: 'right' },
+  // The colours of a DIFFERS status: the same warning wherever the sheet shows danger.
+  unsafe: { bold: true, fill: '#F4C7C3', color: '#8B0000' },
 };
 
 /** Conditional formats on status cells: a cell containing DIFFERS red, OK green (DIFFERS first: it also contains no OK). */

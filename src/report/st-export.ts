@@ -2,7 +2,8 @@
 // outputs named by the header -> identifier map, one assignment per output, and a header of
 // (* *) comments that says where the logic came from, how it was proven, and the caution.
 import { appendAll, toIdentifiers } from '../logic/index.js';
-import type { AndOrForm, OutputAnalysis, TableAnalysis, XorForm } from '../analysis/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
+import { outputSignalsOf, outputViews, type FormView, type OutputView } from './output-view.js';
 import { CAUTION_LINES } from './caution.js';
 import { plural, stCommentText, wrap } from './text.js';
 
@@ -41,7 +42,7 @@ export function exportSt(analyses: readonly TableAnalysis[], options: StExportOp
     for (const s of analysis.inputs) out.push(`    ${s.identifier} : BOOL;`);
     out.push('END_VAR');
     out.push('VAR_OUTPUT');
-    for (const o of analysis.outputs) out.push(`    ${o.signal.identifier} : BOOL;`);
+    for (const o of outputSignalsOf(analysis)) out.push(`    ${o.identifier} : BOOL;`);
     out.push('END_VAR');
     for (const line of assignmentLines(analysis, form)) out.push(`    ${line}`);
     out.push(`END_${kind}`, '');
@@ -54,13 +55,26 @@ export function exportSt(analyses: readonly TableAnalysis[], options: StExportOp
  * signal identifier (a block named like one of its variables confuses readers and compilers).
  */
 export function pouNames(analyses: readonly TableAnalysis[]): string[] {
-  const taken = analyses.flatMap((a) => [...a.inputs, ...a.outputs.map((o) => o.signal)].map((s) => s.identifier));
+  const taken = analyses.flatMap((a) => [...a.inputs, ...outputSignalsOf(a)].map((s) => s.identifier));
   const all = toIdentifiers([...taken, ...analyses.map((a) => a.table.sheet)]);
   return all.slice(taken.length);
 }
 
-export function chosenForm(output: OutputAnalysis, form: FormChoice): AndOrForm | XorForm {
+export function chosenForm<O extends { andOr: unknown; xor: unknown; bestXor: unknown }>(output: O, form: FormChoice): O['andOr'] | O['xor'] | O['bestXor'] {
   return form === 'andOr' ? output.andOr : form === 'xor' ? output.xor : output.bestXor;
+}
+
+/** The form written for an output: the one chosen, or the AND/OR form when the chosen one is too long to print. */
+export function writtenForm(output: OutputView, form: FormChoice): { form: FormChoice; view: FormView } {
+  const chosen = chosenForm(output, form);
+  return chosen.expr ? { form, view: chosen } : { form: 'andOr', view: output.andOr };
+}
+
+/** "proven minimum", or "heuristic" with the lower bound that was proven. */
+export function minimumWords(andOr: Pick<OutputView['andOr'], 'proven' | 'lowerBound'>): string {
+  if (andOr.proven) return 'proven minimum';
+  const b = andOr.lowerBound;
+  return `heuristic (minimum not proven; proven lower bound ${plural(b.terms, 'term')}, and ${plural(b.literals, 'literal')} with that many terms)`;
 }
 
 export const FORM_LABEL: Readonly<Record<FormChoice, string>> = {
@@ -70,34 +84,31 @@ export const FORM_LABEL: Readonly<Record<FormChoice, string>> = {
 };
 
 /** What was proven of a form, in one line. */
-export function proofText(output: OutputAnalysis, form: FormChoice): string {
-  const f = chosenForm(output, form);
-  const cost =
-    form === 'andOr'
-      ? `${plural(output.andOr.terms, 'term')}, ${plural(output.andOr.literals, 'literal')}, ${output.andOr.proven ? 'proven minimum' : 'heuristic (minimum not proven)'}`
-      : plural(f.terms, 'term');
+export function proofText(output: OutputView, chosen: FormChoice): string {
+  const { form, view: f } = writtenForm(output, chosen);
+  const cost = form === 'andOr' ? `${plural(output.andOr.terms, 'term')}, ${plural(output.andOr.literals, 'literal')}, ${minimumWords(output.andOr)}` : plural(f.terms, 'term');
   const checked =
-    f.proof.mismatchCount === 0
-      ? `equal to the spec on all ${f.proof.combinations} combinations`
-      : `DIFFERS from the spec on ${f.proof.mismatchCount} of ${f.proof.combinations} combinations`;
-  const permits = f.permitsAlsoCount > 0 ? `; turns on ${plural(f.permitsAlsoCount, "don't-care combination")}` : '';
-  return `${FORM_LABEL[form]} (${cost}): ${checked}${permits}`;
+    f.mismatchCount === 0n ? `equal to the spec on all ${f.combinations} combinations` : `DIFFERS from the spec on ${f.mismatchCount} of ${f.combinations} combinations`;
+  const permits = f.permitsAlsoCount > 0n ? `; turns on ${plural(f.permitsAlsoCount, "don't-care combination")}` : '';
+  const instead = form === chosen ? '' : ` (the ${FORM_LABEL[chosen]} has ${plural(chosenForm(output, chosen).terms, 'term')}, too many to print)`;
+  return `${FORM_LABEL[form]}${instead} (${cost}): ${checked}${permits}`;
 }
 
 /** The header of one table's block, as plain lines (the caller makes them comments). */
 export function headerLines(analysis: TableAnalysis, form: FormChoice, options: { source: HandOverSource; date: string }): string[] {
+  const outputs = outputViews(analysis);
   const lines = [
     `Source workbook: ${options.source.workbook}`,
     `Spec table: sheet '${analysis.table.sheet}', range ${analysis.table.range}`,
     `Written: ${options.date}`,
     'Signals (header -> identifier):',
     ...analysis.inputs.map((s) => `  input  ${s.header} -> ${s.identifier}`),
-    ...analysis.outputs.map((o) => `  output ${o.signal.header} -> ${o.signal.identifier} (safe value ${o.safe})`),
+    ...outputs.map((o) => `  output ${o.signal.header} -> ${o.signal.identifier} (safe value ${o.safe})`),
     'Proof:',
-    ...analysis.outputs.map((o) => `  ${o.signal.identifier}: ${proofText(o, form)}`),
+    ...outputs.map((o) => `  ${o.signal.identifier}: ${proofText(o, form)}`),
   ];
-  for (const o of analysis.outputs.filter((x) => x.gapCount > 0 || x.conflicts.length > 0)) {
-    const what = [o.gapCount > 0 ? plural(o.gapCount, 'unspecified combination') : '', o.conflicts.length > 0 ? plural(o.conflicts.length, 'conflicting row pair') : ''];
+  for (const o of outputs.filter((x) => x.gapCount > 0n || x.conflicts.length > 0)) {
+    const what = [o.gapCount > 0n ? plural(o.gapCount, 'unspecified combination') : '', o.conflicts.length > 0 ? plural(o.conflicts.length, 'conflicting row pair') : ''];
     lines.push(`  ${o.signal.identifier}: ${what.filter((w) => w !== '').join(' and ')} take the safe value ${o.safe}`);
   }
   const errors = analysis.problems.filter((p) => p.severity === 'error').length;
@@ -108,8 +119,8 @@ export function headerLines(analysis: TableAnalysis, form: FormChoice, options: 
 /** `Output := expression;` per output, broken into lines of at most about 96 characters. */
 export function assignmentLines(analysis: TableAnalysis, form: FormChoice): string[] {
   const out: string[] = [];
-  for (const o of analysis.outputs) {
-    const lines = wrap(`${o.signal.identifier} := ${chosenForm(o, form).text};`, LINE_CHARS);
+  for (const o of outputViews(analysis)) {
+    const lines = wrap(`${o.signal.identifier} := ${writtenForm(o, form).view.text};`, LINE_CHARS);
     out.push(lines[0]!, ...lines.slice(1).map((l) => `    ${l}`));
   }
   return out;

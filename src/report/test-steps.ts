@@ -2,9 +2,18 @@
 // to expect) with columns a commissioning engineer fills in and signs, under the caution, the
 // source and the revision stamp of the table. By default the unique-cause selection (each step
 // shows one input deciding an output); the full table on request. record-read.ts reads it back.
-import { has, inputValue, type Combination } from '../logic/index.js';
+import {
+  combinationPattern,
+  has,
+  wideStepBound,
+  type Combination,
+  type WideCombination,
+} from '../logic/index.js';
 import type { TableAnalysis } from '../analysis/index.js';
 import { qualifiedAddress } from '../table/index.js';
+import { plural } from './text.js';
+import { outputSignalsOf } from './output-view.js';
+import { minimumWords } from './st-export.js';
 import { CAUTION, CAUTION_LINES } from './caution.js';
 import type { BlockCell, SheetBlock } from './sheet-block.js';
 import { revisionStamp, settingsLine } from './revision.js';
@@ -28,11 +37,12 @@ export interface RecordOptions extends StepOptions {
 
 export type Expected = 0 | 1 | '-';
 
-export interface StepRow {
+/** K: the combination, a number up to 24 inputs, BigInt over (the symbolic engine's tables). */
+export interface StepRow<K extends Combination | WideCombination = Combination> {
   readonly step: number;
   /** Stable across revisions: the combination's pattern, so a retest can find the same step. */
   readonly testId: string;
-  readonly combination: Combination;
+  readonly combination: K;
   readonly inputs: readonly (0 | 1)[];
   /** Identifiers of the outputs this step was chosen to test (all of them for the full table). */
   readonly outputs: readonly string[];
@@ -45,10 +55,10 @@ export interface StepRow {
   readonly why: string;
 }
 
-export interface StepTable {
+export interface StepTable<K extends Combination | WideCombination = Combination> {
   /** Column titles: Step, Test ID, Output, Preconditions, Action, Expected and Actual per output, the fill-in columns, Why. */
   readonly columns: readonly string[];
-  readonly rows: readonly StepRow[];
+  readonly rows: readonly StepRow<K>[];
   /** Why the full table was not given, when it was asked for and is too large. */
   readonly note?: string;
 }
@@ -59,42 +69,54 @@ export const FILL_IN_COLUMNS = ['Pass/Fail', 'Punch item', 'Performed by', 'Witn
 /** The title of a record: the record reader finds record sheets by it. */
 export const RECORD_TITLE = 'Commissioning test record';
 
+/**
+ * The steps of a table analysed by the bit-set engine (combinations as numbers); a table of
+ * more than 24 inputs has its steps in `recordSteps` only (none here, as before it had any).
+ */
 export function stepTable(analysis: TableAnalysis, options: StepOptions = {}): StepTable {
+  const all = recordSteps(analysis, options);
+  return { ...all, rows: analysis.wide ? [] : (all.rows as StepRow[]) };
+}
+
+/** The steps of a table analysed by either engine: what the record, the results sheet and the CSV show. */
+export function recordSteps(analysis: TableAnalysis, options: StepOptions = {}): StepTable<Combination | WideCombination> {
   const n = analysis.inputs.length;
   const full = options.full === true && n <= FULL_TABLE_MAX_INPUTS;
-  const note =
+  const source = stepSource(analysis);
+  const fullNote =
     options.full === true && !full
       ? `Full table left out: ${n} inputs give 2^${n} combinations; unique-cause steps are given instead (the full table is offered up to ${FULL_TABLE_MAX_INPUTS} inputs).`
       : undefined;
-  const chosen = new Map<Combination, { why: string[]; outputs: string[] }>();
-  const everyOutput = analysis.outputs.map((o) => o.signal.identifier);
+  const note = [fullNote, source.note].filter((x) => x !== undefined).join(' ') || undefined;
+  const chosen = new Map<Combination | WideCombination, { why: string[]; outputs: string[] }>();
+  const everyOutput = source.outputs.map((o) => o.identifier);
   if (full) for (let k = 0; k < 2 ** n; k++) chosen.set(k, { why: [], outputs: everyOutput });
   else {
-    for (const o of analysis.outputs) {
+    source.outputs.forEach((o) => {
       for (const s of o.steps) {
         const entry = chosen.get(s.combination) ?? { why: [], outputs: [] };
-        entry.why.push(analysis.outputs.length > 1 ? `${o.signal.identifier}: ${s.reason}` : s.reason);
-        if (!entry.outputs.includes(o.signal.identifier)) entry.outputs.push(o.signal.identifier);
+        entry.why.push(source.outputs.length > 1 ? `${o.identifier}: ${s.reason}` : s.reason);
+        if (!entry.outputs.includes(o.identifier)) entry.outputs.push(o.identifier);
         chosen.set(s.combination, entry);
       }
-    }
+    });
   }
-  const specs = analysis.table.outputs;
-  const rows: StepRow[] = [];
+  const rows: StepRow<Combination | WideCombination>[] = [];
   let previous: readonly (0 | 1)[] = analysis.inputs.map(() => 0);
   for (const [combination, { why, outputs }] of chosen) {
     // The resolved function of each output: what every form does, so what the step expects.
-    const expected = analysis.outputs.map((o): Expected => (has(o.resolved.on, combination) ? 1 : 0));
+    const facts = source.factsAt(combination);
+    const expected = facts.expected;
     const notes: string[] = [];
-    if (specs.some((spec) => has(spec.built.gaps, combination))) notes.push('gap: no row covers this combination, each output takes its safe value');
-    specs.forEach((spec, j) => {
-      if (has(spec.built.conflicted, combination)) notes.push(`conflict: rows ask ${analysis.outputs[j]!.signal.identifier} for 1 and 0 here, it takes its safe value ${spec.safe}`);
+    if (facts.gap) notes.push('gap: no row covers this combination, each output takes its safe value');
+    source.outputs.forEach((o, j) => {
+      if (facts.conflicted[j]) notes.push(`conflict: rows ask ${o.identifier} for 1 and 0 here, it takes its safe value ${o.safe}`);
     });
-    specs.forEach((spec, j) => {
-      if (has(spec.built.fn.dc, combination))
-        notes.push(`don't-care in the table: ${analysis.outputs[j]!.signal.identifier} expected ${expected[j]} as resolved (${analysis.outputs[j]!.dontCares})`);
+    source.outputs.forEach((o, j) => {
+      if (facts.dontCare[j]) notes.push(`don't-care in the table: ${o.identifier} expected ${expected[j]} as resolved (${o.dontCares})`);
     });
-    const inputs = analysis.inputs.map((_, i) => inputValue(n, combination, i));
+    const pattern = combinationPattern(n, BigInt(combination));
+    const inputs = analysis.inputs.map((_, i): 0 | 1 => (pattern[i] === '1' ? 1 : 0));
     const changed = analysis.inputs.flatMap((s, i) => (inputs[i] !== previous[i] ? [`set ${s.header} to ${inputs[i]}`] : []));
     const kept = analysis.inputs.flatMap((s, i) => (inputs[i] === previous[i] ? [`${s.header} = ${inputs[i]}`] : []));
     rows.push({
@@ -116,16 +138,71 @@ export function stepTable(analysis: TableAnalysis, options: StepOptions = {}): S
     'Output',
     'Preconditions',
     'Action',
-    ...analysis.outputs.map((o) => `Expected ${o.signal.header}`),
-    ...analysis.outputs.map((o) => `Actual ${o.signal.header}`),
+    ...source.outputs.map((o) => `Expected ${o.header}`),
+    ...source.outputs.map((o) => `Actual ${o.header}`),
     ...FILL_IN_COLUMNS,
     'Why this step',
   ];
   return note === undefined ? { columns, rows } : { columns, rows, note };
 }
 
+/** What a combination is in the table, for every output: expected value (resolved), gap, conflicts, don't-cares. */
+interface StepFacts {
+  readonly expected: readonly (0 | 1)[];
+  readonly gap: boolean;
+  readonly conflicted: readonly boolean[];
+  readonly dontCare: readonly boolean[];
+}
+
+/** The outputs' step selections and the facts of their combinations, from either engine. */
+interface StepSource {
+  readonly outputs: readonly {
+    readonly identifier: string;
+    readonly header: string;
+    readonly safe: 0 | 1;
+    readonly dontCares: string;
+    readonly steps: readonly { readonly combination: Combination | WideCombination; readonly reason: string }[];
+  }[];
+  readonly factsAt: (k: Combination | WideCombination) => StepFacts;
+  /** Said above the steps: how many there are and the most the plan gives (symbolic engine). */
+  readonly note?: string;
+}
+
+function stepSource(analysis: TableAnalysis): StepSource {
+  const wide = analysis.wide;
+  if (wide) {
+    const facts = new Map(wide.stepFacts.map((f) => [f.combination, f]));
+    const steps = wide.stepFacts.length;
+    const bound = wide.outputs.reduce((k, o) => k + wideStepBound(o.andOr.terms, o.andOr.literals), 0);
+    const forms = wide.outputs.map((o) => `${o.signal.identifier}: ${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}, ${minimumWords(o.andOr)}`).join('; ');
+    return {
+      outputs: wide.outputs.map((o) => ({ identifier: o.signal.identifier, header: o.signal.header, safe: o.safe, dontCares: o.dontCares, steps: o.steps })),
+      factsAt: (k) => facts.get(BigInt(k))!,
+      note:
+        `${plural(steps, 'step')} for ${analysis.inputs.length} inputs (2^${analysis.inputs.length} combinations): the unique-cause selection of each AND/OR form ` +
+        `(${forms}), at most one ON step per term and two steps per literal, ${bound} at most.`,
+    };
+  }
+  const specs = analysis.table.outputs;
+  // A record of a heuristic form says so with its lower bound, as every hand-over file does.
+  const heuristic = analysis.outputs.filter((o) => !o.andOr.proven).map((o) => `${o.signal.identifier}: AND/OR form ${minimumWords(o.andOr)}`);
+  return {
+    ...(heuristic.length > 0 ? { note: `Steps of forms not proven minimal: ${heuristic.join('; ')}.` } : {}),
+    outputs: analysis.outputs.map((o) => ({ identifier: o.signal.identifier, header: o.signal.header, safe: o.safe, dontCares: o.dontCares, steps: o.steps })),
+    factsAt: (key) => {
+      const k = Number(key);
+      return {
+        expected: analysis.outputs.map((o): 0 | 1 => (has(o.resolved.on, k) ? 1 : 0)),
+        gap: specs.some((spec) => has(spec.built.gaps, k)),
+        conflicted: specs.map((spec) => has(spec.built.conflicted, k)),
+        dontCare: specs.map((spec) => has(spec.built.fn.dc, k)),
+      };
+    },
+  };
+}
+
 /** The cells of one step row, in column order, the columns to fill in empty. */
-function stepCells(r: StepRow, outputs: number): (string | number)[] {
+function stepCells(r: StepRow<Combination | WideCombination>, outputs: number): (string | number)[] {
   const empty = (k: number): string[] => Array.from({ length: k }, () => '');
   return [r.step, r.testId, r.outputs.join(', '), r.preconditions, r.action, ...r.expected, ...empty(outputs), ...empty(FILL_IN_COLUMNS.length), r.why];
 }
@@ -148,11 +225,11 @@ function recordTitle(analysis: TableAnalysis): string {
 
 /** The record as CSV (RFC 4180: CRLF, fields quoted when needed); the caution is the first line. */
 export function stepsCsv(analysis: TableAnalysis, options: RecordOptions = {}): string {
-  const table = stepTable(analysis, options);
+  const table = recordSteps(analysis, options);
   const lines: (string | number)[][] = [[CAUTION], [recordTitle(analysis)], ...recordFacts(analysis, options)];
   if (table.note) lines.push([table.note]);
   lines.push([...table.columns]);
-  for (const r of table.rows) lines.push(stepCells(r, analysis.outputs.length));
+  for (const r of table.rows) lines.push(stepCells(r, outputSignalsOf(analysis).length));
   return lines.map((fields) => fields.map(csvField).join(',')).join('\r\n') + '\r\n';
 }
 
@@ -172,8 +249,8 @@ const MAX_FROZEN_ROWS = 12;
 
 /** The commissioning test record as a sheet: title, caution, source and revision stamp, then the steps to fill in. */
 export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions = {}): SheetBlock {
-  const table = stepTable(analysis, options);
-  const m = analysis.outputs.length;
+  const table = recordSteps(analysis, options);
+  const m = outputSignalsOf(analysis).length;
   const rows: (BlockCell | null)[][] = [
     [{ value: recordTitle(analysis), style: 'title' }],
     ...CAUTION_LINES.map((line) => [{ value: line, style: 'caution' as const }]),
@@ -193,7 +270,7 @@ export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions 
 }
 
 /** Column titles and step rows as sheet rows (also used by the results sheet). */
-export function stepBlockRows(table: StepTable, outputs: number): (BlockCell | null)[][] {
+export function stepBlockRows(table: StepTable<Combination | WideCombination>, outputs: number): (BlockCell | null)[][] {
   const rows: (BlockCell | null)[][] = [];
   if (table.note) rows.push([{ value: table.note, style: 'label' }]);
   rows.push(table.columns.map((c) => ({ value: c, style: 'heading' as const })));

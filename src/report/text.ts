@@ -39,7 +39,7 @@ export function wrap(s: string, chars: number): string[] {
   return lines;
 }
 
-/** "1 term", "3 terms". */
-export function plural(count: number, one: string, many = `${one}s`): string {
-  return `${count} ${count === 1 ? one : many}`;
+/** "1 term", "3 terms"; counts of a wide table may be BigInt. */
+export function plural(count: number | bigint, one: string, many = `${one}s`): string {
+  return `${count} ${count === 1 || count === 1n ? one : many}`;
 }

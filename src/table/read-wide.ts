@@ -103,8 +103,8 @@ export function readWide(
       'info',
       'symbolic-engine',
       tableRange,
-      `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms and proofs are in the report and ` +
-        `the JSON document; the results sheet, test steps, Structured Text and PLCopen export and verify take at most 24 inputs`,
+      `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms, proofs and unique-cause test steps go to the report, ` +
+        `the JSON document, the results sheet and test record (no live check: that takes at most 12 inputs), the hand-over files and verify`,
     ),
   );
   return spec;

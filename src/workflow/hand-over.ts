@@ -1,7 +1,7 @@
 // The hand-over pack: built only when the workbook's verdicts allow it, otherwise refused with
 // the reason. Files are named here so that every host offers the same names.
 import { appendAll, fail, ok, type Result } from '../logic/index.js';
-import { exportPlcopen, exportSt, ladderSvg, stepsCsv, type FormChoice } from '../report/index.js';
+import { exportPlcopen, exportSt, ladderSvg, outputViews, stepsCsv, type FormChoice } from '../report/index.js';
 import type { TableAnalysis } from '../analysis/index.js';
 import type { Workbook } from './examine.js';
 
@@ -45,7 +45,7 @@ export function handOverFiles(wb: Workbook, request: HandOverRequest): Result<Ha
 function ladderFiles(analyses: readonly TableAnalysis[]): HandOverFile[] {
   const used = new Set<string>();
   return analyses.flatMap((a) =>
-    a.outputs.map((o) => {
+    outputViews(a).map((o) => {
       const stem = `${a.table.sheet}-${o.signal.identifier}`.replace(/[^A-Za-z0-9_-]+/g, '_');
       let name = stem;
       for (let i = 2; used.has(name.toLowerCase()); i++) name = `${stem}-${i}`;

@@ -1,7 +1,15 @@
 // Implementation checks under the workbook's verdicts: an output of a table that was not
 // analysed (it has errors) is UNCHECKED, whatever the program does, with the reason.
-import { checkImplementation, fail, parseExpression, type ImplCheck, type Result } from '../logic/index.js';
 import {
+  checkImplementation,
+  fail,
+  parseExpression,
+  SYMBOLIC_FROM_INPUTS,
+  type ImplCheck,
+  type Result,
+} from '../logic/index.js';
+import {
+  NO_DIFFERENCE,
   verifyImplementation,
   type ImplProgram,
   type NameMapping,
@@ -9,7 +17,7 @@ import {
   type VerifyReport,
 } from '../impl/index.js';
 import { qualifiedAddress } from '../table/index.js';
-import { outputSignals, wideLimit, type TableResult, type Workbook } from './examine.js';
+import { wideLimit, type TableResult, type Workbook } from './examine.js';
 import { verdictWords } from './verdict.js';
 
 /** The words of an implementation check's verdict, in every host. */
@@ -21,7 +29,7 @@ export function implementationWord(o: Pick<OutputVerdict, 'status'>): Implementa
 
 /** A program checked against every table read; outputs of not-analysed tables come back unchecked. */
 export function verifyProgram(wb: Workbook, program: ImplProgram, mapping?: NameMapping, options: { gapsFree?: boolean } = {}): VerifyReport {
-  const report = withWideUnchecked(wb, verifyImplementation(wb.tables.flatMap((t) => (wideLimit(t.table) ? [] : [t.table])), program, mapping, options));
+  const report = verifyImplementation(wb.tables.map((t) => t.table), program, mapping, options);
   const stopped = new Map(wb.tables.filter((t) => !t.analysis).map((t) => [qualifiedAddress(t.table.sheet, t.table.range), t]));
   if (stopped.size === 0) return report;
   return { ...report, outputs: report.outputs.map((o) => unchecked(o, stopped.get(o.table))) };
@@ -29,42 +37,13 @@ export function verifyProgram(wb: Workbook, program: ImplProgram, mapping?: Name
 
 function unchecked(o: OutputVerdict, t: TableResult | undefined): OutputVerdict {
   if (!t || (o.status !== 'equal' && o.status !== 'differs')) return o;
+  const { unsafeWhen: _u, spuriousTripWhen: _s, ...rest } = o;
   return {
-    ...o,
+    ...rest,
     status: 'unchecked',
-    mismatchCount: 0,
-    counterexamples: [],
-    differenceMonomials: [],
-    differenceMonomialCount: 0,
+    ...NO_DIFFERENCE,
     reasons: [`the spec table is ${verdictWords(t.verdict)}`, ...o.reasons],
   };
-}
-
-/** Each output of a table of more than 24 inputs: UNCHECKED with the reason (verify takes at most 24). */
-function withWideUnchecked(wb: Workbook, report: VerifyReport): VerifyReport {
-  const wide = wb.tables.flatMap((t) => {
-    const limit = wideLimit(t.table);
-    if (!limit) return [];
-    const table = qualifiedAddress(t.table.sheet, t.table.range);
-    const n = t.table.inputs.length;
-    return outputSignals(t.table).map((output, j): OutputVerdict => ({
-      table,
-      output,
-      cell: qualifiedAddress(t.table.sheet, t.table.headerCells[n + j]!),
-      status: 'unchecked',
-      combinations: 0,
-      mismatchCount: 0,
-      counterexamples: [],
-      differenceMonomials: [],
-      differenceMonomialCount: 0,
-      dontCare: { count: 0, implementationOn: 0 },
-      gaps: { count: 0, implementationOn: 0, safe: t.table.wide!.outputs[j]!.safe, unsafe: 0, unsafeExamples: [], judged: false },
-      conflicted: 0,
-      reasons: [limit],
-      cannotJudge: [],
-    }));
-  });
-  return wide.length === 0 ? report : { ...report, outputs: [...report.outputs, ...wide] };
 }
 
 /** Every output EQUAL and every table cleared: exit status 0 of `verify`. */
@@ -81,5 +60,6 @@ export function checkExpression(wb: Workbook, tableId: number, output: number, t
   if (!t.analysis) return fail({ message: `not checked: the spec table is ${verdictWords(t.verdict)}` });
   const parsed = parseExpression(text, t.table.inputs);
   if (!parsed.ok) return parsed;
-  return { ok: true, value: checkImplementation(parsed.value, t.table.outputs[output].built.fn) };
+  const spec = t.table.outputs[output];
+  return { ok: true, value: checkImplementation(parsed.value, spec.built.fn, { safe: spec.safe, symbolicFrom: SYMBOLIC_FROM_INPUTS }) };
 }

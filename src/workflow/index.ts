@@ -8,6 +8,7 @@ export { errorsOf, verdictWords, type Verdict } from './verdict.js';
 export { sheetsToWrite, writeSheets } from './sheets.js';
 export { handOverFiles, type HandOverFile, type HandOverKind, type HandOverRequest } from './hand-over.js';
 export { checkExpression, implementationWord, programCleared, verifyProgram, type ImplementationWord } from './implementation.js';
+export { readMappings, readMappingSheet, type MappingSource } from './mapping.js';
 export { workbookJson } from './json.js';
 export { workbookView, type TableView, type WorkbookView } from './view.js';
 export { checkRecords, judgeRecords, readRecordGrids, recordsCleared, type RecordGrids, type RecordVerdict } from './records.js';

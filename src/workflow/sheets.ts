@@ -1,15 +1,13 @@
 // The sheets a run writes, the same set in every host: per table its results sheet (a
 // not-analysed sheet for a table with errors), and the commissioning test record of each
-// cleared table; none for a table of more than 24 inputs.
+// cleared table (a table of more than 24 inputs too: its sheets have no live check).
 import type { WorkbookHost, WriteReport } from '../hosts/index.js';
 import { notAnalysedSheet, resultsSheet, testRecordSheet, type SheetBlock } from '../report/index.js';
-import { wideLimit, type TableResult, type Workbook } from './examine.js';
+import { type TableResult, type Workbook } from './examine.js';
 import { cleared, verdictWords } from './verdict.js';
 
 function tableSheets(t: TableResult, source: string): SheetBlock[] {
   if (!t.analysis) return [notAnalysedSheet(t.table, verdictWords(t.verdict), { source })];
-  // Over 24 inputs no sheet takes the forms: the table's problems and `wideLimit` say so.
-  if (wideLimit(t.table)) return [];
   const results = resultsSheet(t.analysis, { source });
   return cleared(t.verdict) ? [results, testRecordSheet(t.analysis, { source })] : [results];
 }

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { analyseTable } from '../../src/analysis/analyse.js';
-import { SYMBOLIC_FROM_INPUTS } from '../../src/analysis/analyse-symbolic.js';
+import { SYMBOLIC_FROM_INPUTS } from '../../src/logic/wide-cube.js';
 import { readSpecTables } from '../../src/table/read-tables.js';
 import { equals } from '../../src/logic/bits.js';
 import type { CellValue, DontCarePolicy, SpecTable } from '../../src/table/types.js';

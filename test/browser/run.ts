@@ -23,6 +23,7 @@ import type { TableAnalysis } from '../../src/analysis/analysis-types.js';
 import { cliOutcome, WORKBOOKS, xlsxBytes, xlsxSheets, type Outcome } from '../workflow/workbooks.js';
 import { check, expect, ORIGIN, results, ROOT, same, SHOTS } from './harness.js';
 import { compareChecks } from './compare.js';
+import { mappingChecks } from './mapping.js';
 import { recordChecks, settingsChecks, wideLadderChecks } from './settings-records.js';
 
 const SAMPLE = join(ROOT, 'sample-workbooks/capper-cell.xlsx');
@@ -139,6 +140,7 @@ async function main(): Promise<number> {
     await recordChecks(page, work);
     await wideLadderChecks(page, work);
     await compareChecks(page, work);
+    await mappingChecks(page, work);
     await taskpaneChecks(context, origin, pageErrors);
     await check('no request left the page’s own origin', async () => {
       same(foreign, [], 'requests to other origins');
@@ -212,13 +214,17 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     await verdict.waitFor({ timeout: 30_000 });
     const parsed = parseExpression(wrong, analysis.inputs);
     if (!parsed.ok) throw new Error(parsed.error.message);
-    const want = checkImplementation(parsed.value, analysis.table.outputs[0]!.built.fn);
+    const spec = analysis.table.outputs[0]!;
+    const want = checkImplementation(parsed.value, spec.built.fn, { safe: spec.safe });
     const head = await verdict.locator('p').first().textContent();
     expect(head?.startsWith(`Differs on ${want.mismatchCount} of ${want.combinations} combinations`) === true, `verdict: ${head}`);
     const rows = await verdict.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent)));
     const n = analysis.inputs.length;
-    const wantRows = want.counterexamples.map((c) => [...Array.from({ length: n }, (_, i) => String(inputValue(n, c.combination, i))), String(c.expected), String(c.actual)]);
-    same(rows, wantRows, 'counterexample rows');
+    const word = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' } as const;
+    const wantRows = want.counterexamples.map((c) => [...Array.from({ length: n }, (_, i) => String(inputValue(n, c.combination, i))), String(c.expected), String(c.actual), word[c.kind]]);
+    same(rows, wantRows, 'counterexample rows, unsafe first');
+    same(await verdict.locator('tbody tr.unsafe').count(), want.counterexamples.filter((c) => c.kind === 'unsafe').length, 'unsafe rows marked');
+    same(await verdict.locator('.unsafe-count').textContent(), `${want.unsafeCount} unsafe combination${want.unsafeCount === 1 ? '' : 's'}`, 'unsafe count');
     checkBlock = checkSheet({ kind: 'expression', table: analysis.table, output: 0, expression: wrong, check: want });
   });
 

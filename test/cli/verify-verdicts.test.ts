@@ -158,8 +158,8 @@ describe('verify: gaps are judged at the safe value', () => {
     const r = await runCli('verify', f.spec, '--impl', f.impl);
     expect(r.code).toBe(1);
     expect(r.out).toContain('DIFFERS  Q');
-    expect(r.out).toContain('differs on 2 of 4 combinations:');
-    expect(r.out).toContain('    0 1 |    0    1 | gap: no row covers it, safe value 0');
+    expect(r.out).toContain('differs on 2 of 4 combinations (safe value 0): 2 unsafe combinations, 0 spurious trips');
+    expect(r.out).toContain('  !! unsafe        0 1 |    0    1 | gap: no row covers it, safe value 0');
     expect(r.out).not.toContain('equal on all');
   });
 

@@ -1,6 +1,6 @@
 // A 40-cause OR trip (a burner trip table) through the command line: the symbolic engine's
 // forms in the readable report and in the JSON document, and the verdict counts them.
-import { writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, scratch } from './run-cli.js';
@@ -29,10 +29,19 @@ describe('a 40-input trip table through the command line', () => {
     expect(run.out).toMatch(/Every form \(3\) was proven/);
   });
 
-  it('refuses to export it, saying that Structured Text takes at most 24 inputs', async () => {
-    const run = await runCli('export', file, '--st', join(scratch(), 'trip.st'));
-    expect(run.code).not.toBe(0);
-    expect(run.err + run.out).toMatch(/has 40 inputs: .*take at most 24 inputs/);
+  it('exports its Structured Text, the AND/OR form proven on all 2^40 combinations', async () => {
+    const st = join(scratch(), 'trip.st');
+    const run = await runCli('export', file, '--st', st);
+    expect(run.code).toBe(0);
+    expect(readFileSync(st, 'utf8')).toContain('Trip: AND/OR form (40 terms, 40 literals, proven minimum): equal to the spec on all 1099511627776 combinations');
+  });
+
+  it('writes the AND/OR form where the XOR form asked for is too long to print, and says why', async () => {
+    const st = join(scratch(), 'trip-xor.st');
+    expect((await runCli('export', file, '--form', 'xor', '--st', st)).code).toBe(0);
+    const text = readFileSync(st, 'utf8');
+    expect(text).toContain('Trip: AND/OR form (the XOR form has 1099511627775 terms, too many to print) (40 terms, 40 literals, proven minimum)');
+    expect(text).toContain('Trip := Cause_1 OR Cause_2');
   });
 
   it('writes the JSON document with the symbolic engine named', async () => {
@@ -44,6 +53,8 @@ describe('a 40-input trip table through the command line', () => {
     expect(table.outputs[0].check).toEqual({ combinations: 2 ** 40, mismatchCount: 0, mismatches: [] });
     expect(table.outputs[0].verdict).toEqual({ kind: 'proven', text: 'proven minimum' });
     expect(table.verdict.kind).toBe('proven');
+    expect(table.outputs[0].steps).toHaveLength(41);
+    expect(table.outputs[0].steps[0]).toEqual({ combination: '1'.padEnd(40, '0'), expected: 1, reason: 'term 1 alone: Cause_1' });
     expect(table.problems.map((p: { code: string }) => p.code)).toContain('symbolic-engine');
   });
 });

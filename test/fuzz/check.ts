@@ -56,7 +56,7 @@ export function contradictionOf(e: Expected, v: Pick<OutputVerdict, 'status' | '
   if (v.status !== 'differs') return undefined;
   const claims = [
     ...v.counterexamples.map((x) => ({ k: combinationOf(x.inputs), expected: x.expected, actual: x.actual })),
-    ...v.gaps.unsafeExamples.map((k) => ({ k, expected: v.gaps.safe, actual: (1 - v.gaps.safe) as 0 | 1 })),
+    ...v.gaps.unsafeExamples.map((k) => ({ k: Number(k), expected: v.gaps.safe, actual: (1 - v.gaps.safe) as 0 | 1 })),
   ];
   const confirmed = claims.length > 0 && claims.every((x) => {
     const m = e.mismatches.get(x.k);

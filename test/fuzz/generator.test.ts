@@ -94,7 +94,7 @@ describe('fuzz judge', () => {
   const differs: Expected = { verdict: 'differs', mismatches: new Map([[2, { expected: 0, actual: 1 }]]), outcomes: [] };
   const state: Expected = { verdict: 'state', mismatches: new Map(), outcomes: [] };
   const gaps = { count: 0, implementationOn: 0, safe: 0 as const, unsafe: 0, unsafeExamples: [], judged: true };
-  const at2 = [{ combination: 2, inputs: [1, 0] as (0 | 1)[], expected: 0 as const, actual: 1 as const, source: 'row' as const }];
+  const at2 = [{ combination: 2, inputs: [1, 0] as (0 | 1)[], expected: 0 as const, actual: 1 as const, kind: 'unsafe' as const, source: 'row' as const }];
 
   it('takes an EQUAL only where the interpreter knows the output equal', () => {
     expect(contradictionOf(equal, { status: 'equal', counterexamples: [], gaps })).toBeUndefined();
@@ -105,7 +105,7 @@ describe('fuzz judge', () => {
   it('takes a DIFFERS only with counterexamples the interpreter confirms, values included', () => {
     expect(contradictionOf(differs, { status: 'differs', counterexamples: at2, gaps })).toBeUndefined();
     expect(contradictionOf(equal, { status: 'differs', counterexamples: at2, gaps })).toBe('unconfirmed-differs');
-    expect(contradictionOf(differs, { status: 'differs', counterexamples: [{ ...at2[0]!, expected: 1, actual: 0 }], gaps })).toBe('unconfirmed-differs');
+    expect(contradictionOf(differs, { status: 'differs', counterexamples: [{ ...at2[0]!, expected: 1, actual: 0, kind: 'spurious-trip' }], gaps })).toBe('unconfirmed-differs');
     expect(contradictionOf(differs, { status: 'differs', counterexamples: [], gaps: { ...gaps, unsafe: 1, unsafeExamples: [2] } })).toBeUndefined();
   });
 

@@ -118,7 +118,14 @@ interface OutputJson {
   readonly identifier: string;
   readonly status: 'equal' | 'differs' | 'unchecked' | 'not-found';
   readonly mismatchCount: number;
-  readonly counterexamples: readonly { readonly inputs: readonly number[]; readonly expected: 0 | 1; readonly actual: 0 | 1 }[];
+  readonly unsafeCount: number;
+  readonly spuriousTripCount: number;
+  readonly counterexamples: readonly {
+    readonly inputs: readonly number[];
+    readonly expected: 0 | 1;
+    readonly actual: 0 | 1;
+    readonly kind: 'unsafe' | 'spurious-trip';
+  }[];
   readonly gaps: { readonly safe: 0 | 1 };
   readonly cannotJudge: readonly { readonly kind: string; readonly line: number }[];
 }
@@ -136,16 +143,18 @@ async function verify(p: CorpusProgram): Promise<{ code: number; outputs: readon
  * safe value and the program does not give it, a spurious trip the other way. The one place to
  * change once verify reports these counts itself: return the engine's figures here.
  */
+// The engine's own counts; each listed counterexample's kind must also agree with the spec's
+// safe value (unsafe = the spec requires the safe value and the program gives the other).
 function tripCounts(o: OutputJson): { unsafe: number; spurious: number } {
-  const unsafe = o.counterexamples.filter((c) => c.expected === o.gaps.safe).length;
-  return { unsafe, spurious: o.counterexamples.length - unsafe };
+  for (const c of o.counterexamples) expect(c.kind).toBe(c.expected === o.gaps.safe ? 'unsafe' : 'spurious-trip');
+  return { unsafe: o.unsafeCount, spurious: o.spuriousTripCount };
 }
 
 function observed(o: OutputJson): Expected {
   if (o.status === 'equal') return EQUAL;
   if (o.status === 'differs') {
     expect(o.counterexamples.length).toBe(o.mismatchCount);
-    return { verdict: 'DIFFERS', counterexamples: o.counterexamples.map((c) => c.inputs.join('')), ...tripCounts(o) };
+    return { verdict: 'DIFFERS', counterexamples: o.counterexamples.map((c) => c.inputs.join('')).sort(), ...tripCounts(o) };
   }
   if (o.status === 'unchecked') return { verdict: 'UNCHECKED', reasons: o.cannotJudge.map((c) => [c.kind, c.line] as const) };
   throw new Error(`${o.identifier} was not found in the program`);

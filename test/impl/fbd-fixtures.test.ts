@@ -71,9 +71,9 @@ describe('the sample machine drawn in FBD', () => {
     expect(v.line).toBe(250);
     expect(v.mismatchCount).toBe(3);
     expect(v.counterexamples).toEqual([
-      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, source: 'row', specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
-      { combination: 5, inputs: [1, 0, 1], expected: 1, actual: 0, source: 'row', specRow: { cells: 'Spindle!A23:D23', outputCell: 'Spindle!D23' } },
-      { combination: 6, inputs: [1, 1, 0], expected: 1, actual: 0, source: 'row', specRow: { cells: 'Spindle!A24:D24', outputCell: 'Spindle!D24' } },
+      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, kind: 'spurious-trip', source: 'row', specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
+      { combination: 5, inputs: [1, 0, 1], expected: 1, actual: 0, kind: 'spurious-trip', source: 'row', specRow: { cells: 'Spindle!A23:D23', outputCell: 'Spindle!D23' } },
+      { combination: 6, inputs: [1, 1, 0], expected: 1, actual: 0, kind: 'spurious-trip', source: 'row', specRow: { cells: 'Spindle!A24:D24', outputCell: 'Spindle!D24' } },
     ]);
     expect(v.gaps.unsafe).toBe(0);
     expect(statuses(report)).toEqual({

@@ -49,8 +49,8 @@ describe('implementation check of the sample machine: Structured Text', () => {
     expect(v.line).toBe(49);
     expect(v.mismatchCount).toBe(2);
     expect(v.counterexamples).toEqual([
-      { combination: 27, inputs: [1, 1, 0, 1, 1], expected: 0, actual: 1, source: 'row', specRow: { cells: "'Chuck and feeder'!B30:J30", outputCell: "'Chuck and feeder'!J30" } },
-      { combination: 31, inputs: [1, 1, 1, 1, 1], expected: 0, actual: 1, source: 'row', specRow: { cells: "'Chuck and feeder'!B34:J34", outputCell: "'Chuck and feeder'!J34" } },
+      { combination: 27, inputs: [1, 1, 0, 1, 1], expected: 0, actual: 1, kind: 'unsafe', source: 'row', specRow: { cells: "'Chuck and feeder'!B30:J30", outputCell: "'Chuck and feeder'!J30" } },
+      { combination: 31, inputs: [1, 1, 1, 1, 1], expected: 0, actual: 1, kind: 'unsafe', source: 'row', specRow: { cells: "'Chuck and feeder'!B34:J34", outputCell: "'Chuck and feeder'!J34" } },
     ]);
     expect(v.differenceMonomials).toEqual(['Cap_in_chuck AND Bottle_in_position AND Torque_reached AND Air_pressure_OK']);
     expect(report.outputs.filter((o) => o.status !== 'equal').map((o) => o.output.header)).toEqual(['Head lower permit']);
@@ -110,7 +110,7 @@ describe('implementation check of the sample machine: PLCopen XML', () => {
     const v = verdict(report, 'Air supply OK');
     expect(v.status).toBe('differs');
     expect(v.counterexamples).toEqual([
-      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, source: 'row', specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
+      { combination: 3, inputs: [0, 1, 1], expected: 1, actual: 0, kind: 'spurious-trip', source: 'row', specRow: { cells: 'Spindle!A21:D21', outputCell: 'Spindle!D21' } },
     ]);
     expect(v.differenceMonomials).toEqual(['Pressure_switch_2 AND Pressure_switch_3', 'Pressure_switch_1 AND Pressure_switch_2 AND Pressure_switch_3']);
     expect(verdict(report, 'Spindle run permit').status).toBe('equal');
@@ -166,7 +166,7 @@ describe('implementation check: what cannot be judged, and open combinations', (
     const v = verifyImplementation([gapTable()], guardOnly()).outputs[0]!;
     expect(v.status).toBe('differs');
     expect(v.mismatchCount).toBe(1);
-    expect(v.counterexamples).toEqual([{ combination: 4, inputs: [1, 0, 0], expected: 0, actual: 1, source: 'gap' }]);
+    expect(v.counterexamples).toEqual([{ combination: 4, inputs: [1, 0, 0], expected: 0, actual: 1, kind: 'unsafe', source: 'gap' }]);
     expect(v.gaps).toEqual({ count: 1, implementationOn: 1, safe: 0, unsafe: 1, unsafeExamples: [4], judged: true });
     expect(v.dontCare).toEqual({ count: 4, implementationOn: 2 });
   });
@@ -220,7 +220,7 @@ describe('implementation check reports', () => {
     expect(text.startsWith(CAUTION_LINES.join('\n'))).toBe(true);
     expect(text).toContain("DIFFERS  Head lower permit ['Chuck and feeder'!J2] = CapperCell.Head_lower_permit (line 49)");
     expect(text).toContain("|    0    1 | 'Chuck and feeder'!B30:J30 (output cell 'Chuck and feeder'!J30)");
-    expect(text).toContain('Result: 5 equal, 1 differ, 0 unchecked, 0 not found of 6 outputs.');
+    expect(text).toContain('Result: 5 equal, 1 differ, 0 unchecked, 0 not found of 6 outputs; 2 unsafe combinations, 0 spurious trips in all.');
   });
 
   it('the text report lists what cannot be judged', () => {

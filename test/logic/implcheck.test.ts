@@ -43,7 +43,7 @@ describe('implementation check', () => {
     const check = checkImplementation(impl('a OR (b AND c)'), spec(3, [...rows, row('101', 0)]));
     expect(check.equal).toBe(false);
     expect(check.mismatchCount).toBe(1);
-    expect(check.counterexamples).toEqual([{ combination: 5, inputs: [1, 0, 1], expected: 0, actual: 1 }]);
+    expect(check.counterexamples).toEqual([{ combination: 5, inputs: [1, 0, 1], expected: 0, actual: 1, kind: 'unsafe' }]);
   });
 
   it('gives the ANF monomials by which they differ: a AND NOT b AND c = ac XOR abc', () => {

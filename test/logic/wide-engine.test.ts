@@ -11,13 +11,11 @@ import { truthTable } from '../../src/logic/expr/evaluate.js';
 import { bestPolarity } from '../../src/logic/polarity.js';
 import { prove } from '../../src/logic/proof.js';
 import { minimiseSop } from '../../src/logic/sop.js';
-import { analyseWideOutput, wideResolved } from '../../src/logic/wide-analysis.js';
+import { analyseWideOutput } from '../../src/logic/wide-analysis.js';
 import { WIDE_EXHAUSTIVE_POLARITY_INPUTS, wideAnf } from '../../src/logic/wide-anf.js';
 import { inputBit, toNarrow, toWide, wideCube } from '../../src/logic/wide-cube.js';
 import { buildWide, type WideRow } from '../../src/logic/wide-fn.js';
-import { exprToBdd, proveWide } from '../../src/logic/wide-proof.js';
-import { uniqueCauseSteps } from '../../src/logic/steps.js';
-import { wideUniqueCauseSteps } from '../../src/logic/wide-steps.js';
+import { proveWide } from '../../src/logic/wide-proof.js';
 
 const signals = (n: number) => Array.from({ length: n }, (_, i) => ({ header: `In ${i + 1}`, identifier: `In_${i + 1}` }));
 
@@ -127,22 +125,6 @@ describe('the symbolic engine beside the bit-set engine (properties)', () => {
         } else expect(ours.terms >= BigInt(theirs.monomials.length)).toBe(true);
       }),
       { numRuns: 25 },
-    );
-  });
-
-  it('gives the same unique-cause test steps as the bit-set engine for the same form and resolved function', () => {
-    fc.assert(
-      fc.property(table(6, 14, 8), (t) => {
-        const { wide, dd } = bothEngines(t);
-        const forms = analyseWideOutput(wide.fn, t.safe, signals(t.n));
-        const resolved = wideResolved(wide.fn, t.safe, forms.dontCares, exprToBdd(dd, forms.andOr.expr));
-        const narrow = { n: t.n, on: bitSetOf(dd, resolved), dc: emptySet(t.n) };
-        const cubes = forms.andOr.cubes;
-        const theirs = uniqueCauseSteps(cubes.map(toNarrow), narrow, signals(t.n));
-        const ours = wideUniqueCauseSteps(dd, cubes, resolved, signals(t.n)).map((s) => ({ ...s, combination: Number(s.combination) }));
-        expect(ours).toEqual(theirs);
-      }),
-      { numRuns: 40 },
     );
   });
 

@@ -55,12 +55,12 @@ describe('implementation check sheet', () => {
   it('a differing expression lists every counterexample with its inputs, expected, actual and the spec row it contradicts, and the count', () => {
     const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
     expect(rowsOf(block, 'Verdict')).toEqual([['Verdict', 'DIFFERS', 'differs on 2 of 8 combinations']]);
-    expect(rowsOf(block, 'Counterexamples')).toEqual([['Counterexamples', 'all 2']]);
+    expect(rowsOf(block, 'Counterexamples')).toEqual([['Counterexamples', 'all 2, unsafe first']]);
     const titles = values(block).find((r) => r.includes('Expected (spec)'));
-    expect(titles).toEqual(['Guard closed', 'Two-hand OK', 'Mode (setup)', 'Expected (spec)', 'Actual (implementation)', 'Spec row it contradicts']);
+    expect(titles).toEqual(['Guard closed', 'Two-hand OK', 'Mode (setup)', 'Expected (spec)', 'Actual (implementation)', 'Kind', 'Spec row it contradicts']);
     expect(counterexampleRows(block)).toEqual([
-      [0, 1, 0, 0, 1, "'Guard logic'!A4:E4 (output cell 'Guard logic'!D4)"],
-      [1, 0, 0, 0, 1, 'gap (no row covers it): safe value 0'],
+      [0, 1, 0, 0, 1, 'unsafe', "'Guard logic'!A4:E4 (output cell 'Guard logic'!D4)"],
+      [1, 0, 0, 0, 1, 'unsafe', 'gap (no row covers it): safe value 0'],
     ]);
   });
 
@@ -84,7 +84,8 @@ describe('implementation check sheet', () => {
     const block = expressionSheet(tinyTable(VOTE), 0, 'PS1 AND PS2 OR PS1 AND PS3 OR PS2 AND PS3');
     expect(rowsOf(block, 'Verdict')).toEqual([['Verdict', 'EQUAL', 'equal on all 8 combinations']]);
     expect(rowsOf(block, 'Counterexamples')).toEqual([]);
-    expect(rowsOf(block, 'Differs by the XOR of')).toEqual([]);
+    expect(rowsOf(block, 'Detail: XOR of')).toEqual([]);
+    expect(rowsOf(block, 'Unsafe combinations')).toEqual([]);
   });
 
   it("notes the don't-cares the expression turns on and the gaps it is checked against", () => {
@@ -98,8 +99,8 @@ describe('implementation check sheet', () => {
     // expression Guard ⊕ Two ⊕ Guard·Two. Their XOR is Guard ⊕ Two ⊕ Guard·Mode ⊕ Two·Mode.
     const block = expressionSheet(guard, 0, 'Two_hand_OK OR Guard_closed');
     const all = values(block);
-    const at = all.findIndex((r) => r[0] === 'Differs by the XOR of');
-    expect(all[at]).toEqual(['Differs by the XOR of', '4 ANF monomials']);
+    const at = all.findIndex((r) => r[0] === 'Detail: XOR of');
+    expect(all[at]).toEqual(['Detail: XOR of', '4 ANF monomials by which spec and implementation differ']);
     expect(all.slice(at + 1, at + 5)).toEqual([
       [null, 'Guard_closed'],
       [null, 'Two_hand_OK'],
@@ -120,10 +121,20 @@ describe('implementation check sheet', () => {
     const block = checkSheet({ kind: 'program', report: wrong });
     const head = values(block).findIndex((r) => r[0] === 'Output Head lower permit (Head_lower_permit)');
     expect(counterexampleRows(block, head)).toEqual([
-      [1, 1, 0, 1, 1, 0, 1, "'Chuck and feeder'!B30:J30 (output cell 'Chuck and feeder'!J30)"],
-      [1, 1, 1, 1, 1, 0, 1, "'Chuck and feeder'!B34:J34 (output cell 'Chuck and feeder'!J34)"],
+      [1, 1, 0, 1, 1, 0, 1, 'unsafe', "'Chuck and feeder'!B30:J30 (output cell 'Chuck and feeder'!J30)"],
+      [1, 1, 1, 1, 1, 0, 1, 'unsafe', "'Chuck and feeder'!B34:J34 (output cell 'Chuck and feeder'!J34)"],
     ]);
     expect(values(block)).toContainEqual([null, 'Cap_in_chuck AND Bottle_in_position AND Torque_reached AND Air_pressure_OK']);
+  });
+
+  it('a program report gives both counts per output and in all, the sentence of each side, and marks the unsafe ones', () => {
+    const block = checkSheet({ kind: 'program', report: wrong });
+    expect(rowsOf(block, 'Unsafe combinations')).toEqual([['Unsafe combinations', 2, 'the spec requires the safe value 0, the implementation gives 1']]);
+    expect(rowsOf(block, 'Spurious trips')).toEqual([['Spurious trips', 0, 'the spec requires 1, the implementation holds the safe value 0']]);
+    expect(rowsOf(block, 'Unsafe when')).toEqual([['Unsafe when', 'unsafe exactly when Cap_in_chuck = 1 AND Bottle_in_position = 1 AND Torque_reached = 1 AND Air_pressure_OK = 1']]);
+    expect(rowsOf(block, 'Differences')).toEqual([['Differences', '2 unsafe combinations, 0 spurious trips in all']]);
+    const styled = block.rows.flat().filter((c) => c?.style === 'unsafe').map((c) => c!.value);
+    expect(styled).toEqual(['2 unsafe combinations, 0 spurious trips in all', 2, rowsOf(block, 'Unsafe when')[0]![1], 'unsafe', 'unsafe']);
   });
 
   it('a program report writes why each unchecked output was not checked, and what a truth table cannot judge', () => {

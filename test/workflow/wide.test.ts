@@ -1,5 +1,6 @@
-// Tables of more than 24 inputs through the workflow: verdicts from the symbolic proofs, and
-// every host that takes at most 24 inputs says so instead of showing nothing.
+// Tables of more than 24 inputs through the workflow: verdicts from the symbolic proofs, sheets,
+// hand-over and verify at up to 64 inputs; what takes at most 24 inputs (the pane's result
+// cards, a typed expression) says so instead of showing nothing.
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
 import { readSpecTables } from '../../src/table/read-tables.js';
@@ -48,16 +49,19 @@ describe('a 40-cause OR trip through the workflow', () => {
     expect(allCleared(wb)).toBe(true);
   });
 
-  it('hands nothing over, and says that the hand-over files take at most 24 inputs', () => {
-    expect(wb.handOver).toEqual({ allowed: false, reason: expect.stringMatching(/^nothing is handed over: Trip!A1:AO43 has 40 inputs: .*Structured Text and PLCopen export, ladder and verify take at most 24 inputs$/) });
+  it('hands over its Structured Text and its test steps, one ON step per cause and the OFF step', () => {
+    expect(wb.handOver).toEqual({ allowed: true });
     const files = handOverFiles(wb, { kinds: ['st', 'steps'] });
-    expect(files.ok).toBe(false);
+    if (!files.ok) throw new Error(files.error);
+    expect(files.value.map((f) => f.name)).toEqual(['interlocks.st', 'interlocks-test-steps.csv']);
+    expect(files.value[0]!.text).toContain('Trip := Cause_1 OR Cause_2 OR Cause_3');
+    expect(files.value[1]!.text).toContain('41 steps for 40 inputs');
   });
 
-  it('writes no results sheet or test record for it; its problems say where its forms are', () => {
-    expect(sheetsToWrite(wb)).toEqual([]);
+  it('writes its results sheet and test record; its problems say where its forms are', () => {
+    expect(sheetsToWrite(wb).map((b) => b.name)).toEqual(['Trip results', 'Trip record']);
     const info = t.problems.find((p) => p.code === 'symbolic-engine');
-    expect(info?.message).toMatch(/the results sheet, test steps, Structured Text and PLCopen export and verify take at most 24 inputs/);
+    expect(info?.message).toMatch(/the results sheet and test record \(no live check: that takes at most 12 inputs\), the hand-over files and verify/);
   });
 
   it("gives hosts its outputs' verdicts and the limit, and no bit-set forms to check live", () => {
@@ -73,15 +77,21 @@ describe('a 40-cause OR trip through the workflow', () => {
     expect(doc.tables[0].outputs[0]).toMatchObject({ name: 'Trip', terms: 40, verdict: { kind: 'proven' } });
   });
 
-  it('answers a program and a typed expression with UNCHECKED and the reason', () => {
+  it('checks a program symbolically: one cause for forty DIFFERS wherever another cause alone trips', () => {
     const read = readImplementation('trip.st', 'FUNCTION_BLOCK T\nVAR_INPUT Cause_1 : BOOL; END_VAR\nVAR_OUTPUT Trip : BOOL; END_VAR\nTrip := Cause_1;\nEND_FUNCTION_BLOCK\n');
     if (!read.ok) throw new Error(read.error.message);
     const report = verifyProgram(wb, read.value);
-    expect(report.outputs.map(implementationWord)).toEqual(['UNCHECKED']);
-    expect(report.outputs[0]!.reasons[0]).toMatch(/has 40 inputs: .*verify take at most 24 inputs/);
+    expect(report.outputs.map(implementationWord)).toEqual(['DIFFERS']);
+    // Cause_1 = 0 and some other cause 1: 2^39 - 1 combinations, the program off where the spec trips.
+    expect(report.outputs[0]).toMatchObject({ mismatchCount: 2n ** 39n - 1n, combinations: 2n ** 40n });
+    expect(report.outputs[0]!.counterexamples.every((c) => c.expected === 1 && c.actual === 0)).toBe(true);
     expect(programCleared(wb, report)).toBe(false);
+  });
+
+  it('refuses a typed expression, saying it takes at most 24 inputs', () => {
     const typed = checkExpression(wb, 0, 0, 'Cause_1');
     expect(typed.ok).toBe(false);
+    if (!typed.ok) expect(typed.error.message).toMatch(/has 40 inputs: .*a typed expression check take at most 24 inputs/);
   });
 });
 
@@ -97,6 +107,18 @@ describe('a wide table whose AND/OR search does not finish', () => {
     const wb = examined(pairs(8), 0);
     expect(wb.tables[0]!.analysis!.wide!.outputs[0]!.andOr.proven).toBe(false);
     expect(wb.tables[0]!.outputs.map((v) => v.kind)).toEqual(['heuristic']);
+  });
+
+  it('says so with its proven lower bound in every hand-over file', () => {
+    const wb = examined(pairs(8), 0);
+    const { lowerBound } = wb.tables[0]!.analysis!.wide!.outputs[0]!.andOr;
+    const files = handOverFiles(wb, { kinds: ['st', 'plcopen', 'steps', 'ladder'] });
+    if (!files.ok) throw new Error(files.error);
+    const bound = `heuristic (minimum not proven; proven lower bound ${lowerBound.terms} term`;
+    for (const f of files.value.filter((x) => x.kind !== 'ladder')) expect(f.text, f.name).toContain(bound);
+    const svg = files.value.find((x) => x.kind === 'ladder')!.text;
+    const words = [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]).join(' ');
+    expect(words).toContain(`(heuristic; proven lower bound ${lowerBound.terms} branch`);
   });
 
   it('too large for the symbolic engine, its output is not analysed, with the error at its header cell', () => {

@@ -1,0 +1,118 @@
+// One output's forms as the sheets and hand-over files print them, from either engine: the
+// bit-set engine's OutputAnalysis (up to 24 inputs) and the symbolic engine's (up to 64), in
+// one shape. Counts are BigInt (a table of 64 inputs has 2^64 combinations); combinations and
+// cubes are patterns over the inputs, leftmost first, as the sheets write them.
+import {
+  combinationPattern,
+  cubeToPattern,
+  toWide,
+  widePattern,
+  type Expr,
+  type FormBound,
+  type Signal,
+  type WideCube,
+} from '../logic/index.js';
+import type { TableAnalysis } from '../analysis/index.js';
+
+export interface FormView {
+  /** Structured Text; for an XOR form too long to print, what it is instead (`expr` null). */
+  readonly text: string;
+  readonly expr: Expr | null;
+  readonly terms: bigint;
+  readonly combinations: bigint;
+  readonly mismatchCount: bigint;
+  /** Don't-care combinations the form turns ON: the first few as patterns, the count complete. */
+  readonly permitsAlso: readonly string[];
+  readonly permitsAlsoCount: bigint;
+}
+
+export interface AndOrView extends FormView {
+  readonly expr: Expr;
+  readonly cubes: readonly WideCube[];
+  readonly literals: number;
+  readonly proven: boolean;
+  readonly lowerBound: FormBound;
+}
+
+export interface XorView extends FormView {
+  /** Bit set = that input complemented (Combination positions). */
+  readonly polarity: bigint;
+  readonly exhaustive: boolean;
+}
+
+export interface OutputView {
+  readonly signal: Signal;
+  readonly safe: 0 | 1;
+  readonly andOr: AndOrView;
+  readonly xor: XorView;
+  readonly bestXor: XorView;
+  readonly unusedInputs: readonly number[];
+  /** Gap cubes as patterns (the first of them); the count complete. */
+  readonly gaps: readonly string[];
+  readonly gapCount: bigint;
+  readonly conflicts: readonly { readonly rowCellsA: string; readonly rowCellsB: string; readonly combinations: bigint; readonly example: string }[];
+  readonly dontCareCount: bigint;
+}
+
+/** The outputs of a table, whichever engine analysed it. */
+export function outputViews(analysis: TableAnalysis): OutputView[] {
+  const n = analysis.inputs.length;
+  const pattern = (k: number | bigint): string => combinationPattern(n, BigInt(k));
+  const conflicts = (cs: readonly { rowCellsA: string; rowCellsB: string; combinations: number | bigint; example: number | bigint }[]): OutputView['conflicts'] =>
+    cs.map((c) => ({ rowCellsA: c.rowCellsA, rowCellsB: c.rowCellsB, combinations: BigInt(c.combinations), example: pattern(c.example) }));
+  if (analysis.wide) {
+    const gaps = analysis.wide.gaps.map((c) => widePattern(n, c));
+    return analysis.wide.outputs.map((o) => {
+      const form = (f: { text: string; proof: { combinations: bigint; mismatchCount: bigint; permitsAlso: readonly bigint[]; permitsAlsoCount: bigint } }) => ({
+        text: f.text,
+        combinations: f.proof.combinations,
+        mismatchCount: f.proof.mismatchCount,
+        permitsAlso: f.proof.permitsAlso.map(pattern),
+        permitsAlsoCount: f.proof.permitsAlsoCount,
+      });
+      const xor = (f: typeof o.xor): XorView => ({ ...form(f), expr: f.expr, terms: f.terms, polarity: f.polarity, exhaustive: f.exhaustive });
+      return {
+        signal: o.signal,
+        safe: o.safe,
+        andOr: { ...form(o.andOr), expr: o.andOr.expr, terms: BigInt(o.andOr.terms), cubes: o.andOr.cubes, literals: o.andOr.literals, proven: o.andOr.proven, lowerBound: o.andOr.lowerBound },
+        xor: xor(o.xor),
+        bestXor: xor(o.bestXor),
+        unusedInputs: o.unusedInputs,
+        gaps,
+        gapCount: analysis.wide!.gapCount,
+        conflicts: conflicts(o.conflicts),
+        dontCareCount: o.dontCareCount,
+      };
+    });
+  }
+  return analysis.outputs.map((o) => {
+    const form = (f: (typeof o)['xor'] | (typeof o)['andOr']) => ({
+      text: f.text,
+      expr: f.expr,
+      terms: BigInt(f.terms),
+      combinations: BigInt(f.proof.combinations),
+      mismatchCount: BigInt(f.proof.mismatchCount),
+      permitsAlso: f.permitsAlso.map(pattern),
+      permitsAlsoCount: BigInt(f.permitsAlsoCount),
+    });
+    const xor = (f: typeof o.xor): XorView => ({ ...form(f), polarity: BigInt(f.polarity), exhaustive: f.exhaustive });
+    return {
+      signal: o.signal,
+      safe: o.safe,
+      andOr: { ...form(o.andOr), expr: o.andOr.expr, cubes: o.andOr.cubes.map(toWide), literals: o.andOr.literals, proven: o.andOr.proven, lowerBound: o.andOr.lowerBound },
+      xor: xor(o.xor),
+      bestXor: xor(o.bestXor),
+      unusedInputs: o.unusedInputs,
+      gaps: o.gaps.map((c) => cubeToPattern(n, c)),
+      gapCount: BigInt(o.gapCount),
+      conflicts: conflicts(o.conflicts),
+      dontCareCount: BigInt(o.dontCareCount),
+    };
+  });
+}
+
+/** The output signals of an analysis, whichever engine took it. */
+export function outputSignalsOf(analysis: TableAnalysis): Signal[] {
+  return analysis.wide ? analysis.wide.outputs.map((o) => o.signal) : analysis.outputs.map((o) => o.signal);
+}
+
