@@ -199,9 +199,9 @@ bValvePermit := io.bSSOV1Closed AND NOT bSyncFault;
 END_PROGRAM
 `,
   };
-  const run = async (map: string) => {
+  const run = async (map: string, ...more: string[]) => {
     const f = files(syncProgram, SYNC_SPEC, map);
-    return runCli('verify', f.spec, '--impl', f.impl, '--map', f.map!);
+    return runCli('verify', f.spec, '--impl', f.impl, '--map', f.map!, ...more);
   };
 
   it('a structure member and a timer output mapped to spec inputs: equal, and the result says the timer output was taken by mapping', async () => {
@@ -210,6 +210,17 @@ END_PROGRAM
     expect(r.out).toContain('EQUAL  Valve permit [spec!C2] = Valves.bValvePermit (line 12)');
     expect(r.out).toContain('Valve permit: tonSync.Q taken as the spec input Sync fault, by mapping (map.csv line 3)');
     expect(r.out).not.toContain('has no variable');
+  });
+
+  it('the JSON says per output which program expressions were taken as spec inputs by mapping', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync.Q\n', '--json');
+    const [out] = JSON.parse(r.out).outputs;
+    expect(out.byMapping).toContain('tonSync.Q taken as the spec input Sync fault, by mapping (map.csv line 3)');
+  });
+
+  it('the JSON lists each mapping problem with its code and line', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync\n', '--json');
+    expect(JSON.parse(r.out).mappingProblems).toEqual([expect.objectContaining({ code: 'mapping-not-bool', where: 'map.csv line 3' })]);
   });
 
   it('the timer output left unmapped: unchecked, saying it may be mapped, and the member is not reported missing', async () => {
@@ -225,7 +236,7 @@ END_PROGRAM
   it('a mapping that names an unknown spec signal: one problem at its line, the outputs reading its variable unchecked', async () => {
     const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync falt,tonSync.Q\n');
     expect(r.code).toBe(1);
-    expect(r.out).toContain('Mapping entries not used:\n  map.csv line 3: no spec table has a signal \'Sync falt\'\n');
+    expect(r.out).toContain('Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: no spec table has a signal \'Sync falt\'\n');
     expect(r.out).toContain('UNCHECKED  Valve permit');
     expect(r.out).toContain("  the mapping cannot be used as written: map.csv line 3: no spec table has a signal 'Sync falt'");
   });
@@ -233,7 +244,7 @@ END_PROGRAM
   it('a mapping that names an unknown program variable: one problem at its line, the outputs of the table unchecked', async () => {
     const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSnyc.Q\n');
     expect(r.code).toBe(1);
-    expect(r.out).toContain("Mapping entries not used:\n  map.csv line 3: the program has no variable, member or element 'tonSnyc.Q'\n");
+    expect(r.out).toContain("Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: the program has no variable, member or element 'tonSnyc.Q'\n");
     expect(r.out).toContain('UNCHECKED  Valve permit');
   });
 
@@ -241,7 +252,7 @@ END_PROGRAM
     const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,io.bSSOV1Closed\n');
     expect(r.code).toBe(1);
     expect(r.out).toContain(
-      "Mapping entries not used:\n  map.csv line 3: spec signals 'SSOV1 closed' (map.csv line 2) and 'Sync fault' (map.csv line 3) are both mapped to io.bSSOV1Closed\n",
+      "Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: spec signals 'SSOV1 closed' (map.csv line 2) and 'Sync fault' (map.csv line 3) are both mapped to io.bSSOV1Closed\n",
     );
     expect(r.out).toContain('UNCHECKED  Valve permit');
     expect(r.out).not.toContain('EQUAL');
@@ -250,7 +261,7 @@ END_PROGRAM
   it('a mapping to a variable that is not a BOOL: one problem naming its type and line, the outputs unchecked', async () => {
     const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync\n');
     expect(r.code).toBe(1);
-    expect(r.out).toContain("Mapping entries not used:\n  map.csv line 3: 'tonSync' is TON in Valves (line 9), not BOOL\n");
+    expect(r.out).toContain("Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: 'tonSync' is TON in Valves (line 9), not BOOL\n");
     expect(r.out).toContain('UNCHECKED  Valve permit');
   });
 
