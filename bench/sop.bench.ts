@@ -16,7 +16,7 @@ import { now } from '../src/logic/deadline.js';
 import { coverProblem, DEFAULT_BUDGET_MS, minimiseSop, type SopForm } from '../src/logic/sop.js';
 
 /** Seeded random functions: each combination don't-care 10 %, else on or off evenly. */
-function randomFunctions(n: number, count: number, seed: number): BoolFunction[] {
+export function randomFunctions(n: number, count: number, seed: number): BoolFunction[] {
   let state = seed >>> 0;
   const next = (): number => {
     state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
@@ -38,7 +38,7 @@ function randomFunctions(n: number, count: number, seed: number): BoolFunction[]
  * off (a row meeting an on row is made off only where it does not: off rows are painted
  * first, on rows take the rest), 10 % of rows don't-care; combinations no row names are off.
  */
-function cubeTables(n: number, count: number, rows: number, seed: number): BoolFunction[] {
+export function cubeTables(n: number, count: number, rows: number, seed: number): BoolFunction[] {
   let state = seed >>> 0;
   const next = (): number => (state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 2 ** 32;
   const rowCube = (): Cube => {

@@ -1,13 +1,66 @@
 // Wide tables: the bit-set engine and the symbolic (BDD) engine on the same structured tables
 // at 16, 20 and 24 inputs, then the symbolic engine alone at 32-64 inputs. Whole analysis
 // in-process (reading the grid included); seeds fixed. Peak memory is the largest RSS sampled
-// during the run (the process's, so it includes what earlier runs left behind).
+// during the run (the process's, so it includes what earlier runs left behind; the 5 ms timer
+// cannot fire inside the synchronous analysis, so in effect it is the RSS at the run's end).
+// Beside each symbolic figure: the same table through the baseline commit's engine in the same
+// run (its `src` taken from git into a temporary folder; bench/wide-baseline.json names the
+// commit and holds its figures from an earlier run, printed instead when git cannot give it).
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { CellValue } from '../src/table/types.js';
 import { analyseTable } from '../src/analysis/analyse.js';
 import { analysisJson } from '../src/report/analysis-json.js';
 import type { TableAnalysis } from '../src/analysis/analysis-types.js';
 import { readSpecTables } from '../src/table/read-tables.js';
 import { now } from '../src/logic/deadline.js';
+import { wideDisjoint } from '../src/logic/wide-cube.js';
+import { wideRowCube } from '../src/table/read-wide.js';
+
+interface Baseline {
+  readonly commit: string;
+  /** Where that commit keeps the three modules the bench calls. */
+  readonly modules: { readonly readSpecTables: string; readonly analyseTable: string; readonly analysisJson: string };
+  readonly source: string;
+  /** Per table label: the symbolic engine's figure in an earlier run. */
+  readonly symbolic: Record<string, string>;
+}
+
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+const baseline = JSON.parse(readFileSync(join(ROOT, 'bench/wide-baseline.json'), 'utf8')) as Baseline;
+
+/** The three calls the bench makes, from one tree of the sources. */
+interface Engine {
+  readonly readSpecTables: typeof readSpecTables;
+  readonly analyseTable: typeof analyseTable;
+  readonly analysisJson: typeof analysisJson;
+}
+
+const current: Engine = { readSpecTables, analyseTable, analysisJson };
+
+/** The baseline commit's engine, or why there is none. */
+async function baselineEngine(): Promise<{ engine: Engine; dispose: () => void } | string> {
+  const archive = spawnSync('git', ['archive', baseline.commit, 'src'], { cwd: ROOT, maxBuffer: 1 << 28 });
+  if (archive.error || archive.status !== 0) return `git cannot give commit ${baseline.commit} (${(archive.error?.message ?? archive.stderr.toString()).trim()})`;
+  const dir = mkdtempSync(join(tmpdir(), 'wide-baseline-'));
+  const dispose = (): void => rmSync(dir, { recursive: true, force: true });
+  const untar = spawnSync('tar', ['-x', '-C', dir], { input: archive.stdout });
+  if (untar.error || untar.status !== 0) {
+    dispose();
+    return 'tar cannot unpack the baseline sources';
+  }
+  symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'));
+  const load = async <T>(path: string): Promise<T> => (await import(pathToFileURL(join(dir, path)).href)) as T;
+  const engine: Engine = {
+    readSpecTables: (await load<Engine>(baseline.modules.readSpecTables)).readSpecTables,
+    analyseTable: (await load<Engine>(baseline.modules.analyseTable)).analyseTable,
+    analysisJson: (await load<Engine>(baseline.modules.analysisJson)).analysisJson,
+  };
+  return { engine, dispose };
+}
 
 function random(seed: number): () => number {
   let state = seed >>> 0;
@@ -79,15 +132,21 @@ const sample = (): void => {
   peak = Math.max(peak, process.memoryUsage.rss());
 };
 
-function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic'): { ms: number; mb: number; a: TableAnalysis } {
+interface Timed {
+  readonly ms: number;
+  readonly mb: number;
+  readonly a: TableAnalysis;
+}
+
+function timed(cells: CellValue[][], engine: 'bit-set' | 'symbolic', code: Engine = current): Timed {
   peak = 0;
   const timer = setInterval(sample, 5);
   sample();
   const t0 = now();
-  const read = readSpecTables({ sheet: 'Bench', origin: 'A1', cells });
+  const read = code.readSpecTables({ sheet: 'Bench', origin: 'A1', cells });
   const table = read.tables[0]!;
-  const a = analyseTable(table, { engine });
-  JSON.stringify(analysisJson(a));
+  const a = code.analyseTable(table, { engine });
+  JSON.stringify(code.analysisJson(a));
   const ms = now() - t0;
   sample();
   clearInterval(timer);
@@ -99,18 +158,50 @@ function summary(a: TableAnalysis): string {
   const w = a.wide?.outputs[0];
   if (o) return `${o.andOr.terms} terms${o.andOr.proven ? ' proven' : ''}, XOR ${o.xor.terms} terms, gaps ${o.gapCount}`;
   if (w) return `${w.andOr.terms} terms${w.andOr.proven ? ' proven' : ' heuristic'}, XOR ${w.xor.terms} terms, best ${w.bestXor.terms}, gaps ${a.wide!.gapCount}`;
-  return 'no output';
+  const error = a.problems.find((p) => p.severity === 'error');
+  return error ? `${error.code}: ${error.message.split(', so ')[0]}` : 'no output';
+}
+
+/** ON rows and OFF rows sharing a combination: where a table's rows contradict each other. */
+function conflictingPairs(cells: CellValue[][]): string {
+  const rows = cells.slice(2);
+  const n = cells[0]!.length - 1;
+  const cubes = rows.map((r) => wideRowCube(r.slice(0, n) as (0 | 1 | '-')[]));
+  let pairs = 0;
+  let all = 0;
+  rows.forEach((a, i) =>
+    rows.forEach((b, j) => {
+      if (a[n] !== 1 || b[n] !== 0) return;
+      all++;
+      if (!wideDisjoint(cubes[i]!, cubes[j]!)) pairs++;
+    }),
+  );
+  return `${pairs} of ${all} ON/OFF row pairs overlap`;
 }
 
 export async function run(): Promise<void> {
   console.log('whole analysis in-process (read, forms, proofs, JSON); peak = largest RSS sampled');
+  const base = await baselineEngine();
+  // Symbolic runs, ours then the baseline's, twice, the faster of each: whichever runs first
+  // after a large run pays for collecting it.
+  const symbolicRuns = (label: string, cells: CellValue[][]): { ours: Timed; before: string } => {
+    if (typeof base === 'string') return { ours: timed(cells, 'symbolic'), before: `; baseline (earlier run) ${baseline.symbolic[label] ?? 'not measured'}` };
+    const [a, b, c, d] = [timed(cells, 'symbolic'), timed(cells, 'symbolic', base.engine), timed(cells, 'symbolic'), timed(cells, 'symbolic', base.engine)];
+    const theirs = b.ms <= d.ms ? b : d;
+    return { ours: a.ms <= c.ms ? a : c, before: `; baseline ${theirs.ms.toFixed(0)} ms (${summary(theirs.a)})` };
+  };
+  // Both engines' code compiled once before anything is timed.
+  timed(permitTable(16, 1), 'symbolic');
+  if (typeof base !== 'string') timed(permitTable(16, 1), 'symbolic', base.engine);
   for (const n of [16, 20, 24]) {
     const cells = permitTable(n, 1000 + n);
-    const symbolic = timed(cells, 'symbolic');
+    const label = `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows`;
+    const runs = symbolicRuns(label, cells);
+    const symbolic = runs.ours;
     const bitSet = timed(cells, 'bit-set');
     console.log(
-      `${n} inputs, 8 ON rows of 8 literals + 2 OFF rows: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
-        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})`,
+      `${label}: bit-set ${bitSet.ms.toFixed(0)} ms (peak ${bitSet.mb.toFixed(0)} MB; ${summary(bitSet.a)}), ` +
+        `symbolic ${symbolic.ms.toFixed(0)} ms (peak ${symbolic.mb.toFixed(0)} MB; ${summary(symbolic.a)})${runs.before}`,
     );
   }
   const wide: [string, CellValue[][]][] = [
@@ -121,7 +212,14 @@ export async function run(): Promise<void> {
     ['64 inputs x 300 rows of 3-10 literals', randomRowsTable(64, 300, 64300)],
   ];
   for (const [what, cells] of wide) {
-    const r = timed(cells, 'symbolic');
-    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})`);
+    const runs = symbolicRuns(what, cells);
+    const r = runs.ours;
+    const rows = what.includes(' x 300 ') ? ` (${conflictingPairs(cells)})` : '';
+    console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${runs.before}`);
+  }
+  if (typeof base === 'string') console.log(`baseline: ${baseline.source}; not run now: ${base}`);
+  else {
+    console.log(`baseline: commit ${baseline.commit}, symbolic engine, in this process: each symbolic figure and its baseline the faster of two alternating runs`);
+    base.dispose();
   }
 }

@@ -344,7 +344,7 @@ export function FileCheck({ engine, write, host }: { engine: Engine; write: Writ
           </ul>
           {verified.report.unusedMapping.length > 0 && (
             <div class="mapping-unused" role="alert">
-              <p>Mapping entries not used:</p>
+              <p>Mapping entries that cannot be used (the outputs they touch are UNCHECKED):</p>
               <ul>
                 {verified.report.unusedMapping.map((u) => (
                   <li key={u}>{u}</li>

@@ -87,7 +87,7 @@ function symbolically(table: SpecTable, options: AnalyseOptions): TableAnalysis 
       gapCount: count(gapSet),
       conflicts: conflictReports(table, output.built.conflicts),
       dontCareCount: count(spec.dc),
-      // The same plan as uniqueCauseSteps on the same function (test/logic/wide-steps.test.ts), without the truth tables.
+      // The one plan of steps.ts (causeSteps) on the BDDs: the same steps, without the truth tables.
       steps: wideUniqueCauseSteps(wide.dd, forms.andOr.cubes, on, table.inputs).map((s) => ({ ...s, combination: Number(s.combination) })),
     };
     problems.push(...outputProblems(table, analysed, table.headerCells[n + j]!));

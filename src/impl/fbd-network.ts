@@ -5,7 +5,8 @@
 // written above and read further down is substituted. Every walk is iterative and the depth of
 // a network is capped: the file never decides how deep the call stack goes.
 import { FALSE, TRUE, xor, type Expr, type Result } from '../logic/index.js';
-import { bodyElements, namedValue, readBody, unevaluatedBlock, type BodyElement } from './graphic-parts.js';
+import { bodyElements, namedValue, readBody, unevaluatedBlock, writeNamed, type BodyElement } from './graphic-parts.js';
+import { pathKey } from './paths.js';
 import { LineError } from './line-error.js';
 import { PouBuilder, andFolded, notFolded, orFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
@@ -80,10 +81,10 @@ class Network {
     }
     for (const node of this.order) {
       this.inputs.set(node.id, this.inputsOf(node));
-      if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(this.variableOf(node).toLowerCase());
+      if (node.kind === 'inVariable' || node.kind === 'inOutVariable') this.readNames.add(pathKey(this.variableOf(node)));
     }
-    const assigned = new Set(this.writers().map((n) => this.variableOf(n).toLowerCase()));
-    this.b = new PouBuilder(header, context.globals, assigned);
+    const assigned = new Set(this.writers().map((n) => pathKey(this.variableOf(n))));
+    this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
   read(): ImplPou {
@@ -121,10 +122,9 @@ class Network {
     const [input] = this.inputs.get(node.id)!;
     const suffix = node.kind === 'inOutVariable' ? 'In' : '';
     const value = this.modified(node, node.el, suffix, this.valueOf(this.single(node, input!)), `${node.kind} ${name}`);
-    if (/[.[]/.test(name)) this.b.cannotJudge('unsupported', `${node.kind} writes ${name}, localId ${node.id}`, line);
-    else if (this.b.isBool(name, line)) this.b.assign(name, value, line);
+    const wide = writeNamed(this.b, name, value, line, `${node.kind} writes ${name}, localId ${node.id}`);
     // Values computed so far stay true unless some element reads the variable just written.
-    if (this.readNames.has(name.toLowerCase())) this.memo = new Map();
+    if (wide || this.readNames.has(pathKey(name))) this.memo = new Map();
   }
 
   /**
@@ -214,7 +214,11 @@ class Network {
       default: {
         const item = this.unevaluated.get(node.id);
         let value: Expr;
-        if (item) value = this.b.leafFor(item, `${node.el.attrs['instanceName'] ?? node.el.attrs['typeName']}.${s.pin}`);
+        const instance = node.el.attrs['instanceName'];
+        // An instance's BOOL output pin is a named source (`T1.Q`), one per block element.
+        const member = item && instance ? this.b.resolve(`${instance}.${s.pin}`, node.el.line) : undefined;
+        if (member?.ok && member.variable.source && member.variable.type === 'BOOL') value = this.b.sourceValue(member.variable, node.el.line, `block localId ${node.id}`);
+        else if (item) value = this.b.leafFor(item, `${instance ?? node.el.attrs['typeName']}.${s.pin}`);
         else if (s.pin === 'ENO') value = this.b.opaque('unsupported', `ENO output of ${this.describe(node)}`, line);
         else value = this.logic(node);
         const pinEl = this.outputPins(node).get(s.pin);

@@ -4,6 +4,7 @@ import { fail, ok, type Expr, type Result } from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
 import { LineError } from './line-error.js';
 import type { PouBuilder } from './symbolic.js';
+import { parsePath } from './paths.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { localName, type XmlElement } from './xml.js';
 
@@ -44,18 +45,48 @@ export function readBody(context: ReadContext, read: () => ImplPou): Result<Impl
   }
 }
 
+/** A BOOL structure member or array element with constant indices (not a block's member): its name as declared. */
+function followedPath(b: PouBuilder, name: string, line: number): string | undefined {
+  const parsed = parsePath(name);
+  const r = parsed && !parsed.steps.some((s) => 'variableIndex' in s) ? b.resolve(name, line) : undefined;
+  return r?.ok && !r.variable.source && r.variable.type.toUpperCase() === 'BOOL' ? r.variable.name : undefined;
+}
+
 /**
- * The value of the variable an element names: a plain name is read (its value so far in the
- * scan); a member or element (`T1.Q`, `a[2]`) is opaque, of the kind of its base variable.
+ * The value of the variable an element names: a plain name, a BOOL structure member or array
+ * element (`io.bClosed`, `a[2]`) is read (its value so far in the scan); a block's member
+ * (`T1.Q`: the diagram runs its block at a point the element order does not fix) or a path
+ * not followed is opaque, of the kind of its base variable.
  */
 export function namedValue(b: PouBuilder, context: ReadContext, name: string, id: string, line: number): Expr {
   if (!/[.[]/.test(name)) return b.read(name, line);
+  const path = followedPath(b, name, line);
+  if (path !== undefined) return b.read(path, line);
   const base = name.split(/[.[]/)[0]!;
   const type = b.variable(base, line).type;
   const kind = blockKind(type, context.blockTypes);
   return kind === 'function-call'
     ? b.opaque('unsupported', `${name} (member or element), localId ${id}`, line)
     : b.opaque(kind, `${kindWord(kind)} ${base} (${type}): ${name}, localId ${id}`, line);
+}
+
+/**
+ * A coil or output variable writes `value` to what it names: a plain BOOL or a followed path;
+ * any other path is named, and what is under it unknown from here on. True when more than
+ * the one variable may have changed.
+ */
+export function writeNamed(b: PouBuilder, name: string, value: Expr, line: number, why: string): boolean {
+  if (!/[.[]/.test(name)) {
+    if (b.isBool(name, line)) b.assign(name, value, line);
+    return false;
+  }
+  const path = followedPath(b, name, line);
+  if (path !== undefined) {
+    b.assign(path, value, line);
+    return false;
+  }
+  const item = b.cannotJudge('unsupported', why, line);
+  return b.writeUnknown(name, line, () => item);
 }
 
 /** A block the reader does not evaluate (timer, counter, user block...), recorded once. */

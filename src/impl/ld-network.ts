@@ -3,6 +3,8 @@
 // execution order, so a coil's variable used as a contact further down is substituted.
 import { fail, ok, TRUE, type Expr, type Result } from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
+import { namedValue, writeNamed } from './graphic-parts.js';
+import { pathKey } from './paths.js';
 import { PouBuilder, andFolded, anyOf, notFolded, type PouHeader } from './symbolic.js';
 import type { CannotJudge, ImplPou, ReadContext } from './types.js';
 import { childNamed, childrenNamed, localName, textContent, type XmlElement } from './xml.js';
@@ -60,8 +62,8 @@ class Network {
       const connectorName = el.attrs['name'];
       if (kind === 'connector' && connectorName !== undefined && !this.connectors.has(connectorName)) this.connectors.set(connectorName, node);
     }
-    const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => this.variableOf(n).toLowerCase()));
-    this.b = new PouBuilder(header, context.globals, assigned);
+    const assigned = new Set(this.order.filter((n) => WRITERS.has(n.kind)).map((n) => pathKey(this.variableOf(n))));
+    this.b = new PouBuilder(header, context.globals, assigned, context);
   }
 
   read(): ImplPou {
@@ -106,11 +108,7 @@ class Network {
       else if (edge !== 'none') value = this.b.opaque('edge', `${edge}-edge coil ${name}, localId ${node.id}`, line);
       else value = node.el.attrs['negated'] === 'true' ? notFolded(power) : power;
     } else value = node.el.attrs['negated'] === 'true' ? notFolded(power) : power;
-    if (/[.[]/.test(name)) {
-      this.b.cannotJudge('unsupported', `${node.kind} writes ${name}, localId ${node.id}`, line);
-    } else if (this.b.isBool(name, line)) {
-      this.b.assign(name, value, line);
-    }
+    writeNamed(this.b, name, value, line, `${node.kind} writes ${name}, localId ${node.id}`);
     this.memo = new Map();
   }
 
@@ -203,13 +201,7 @@ class Network {
 
   private readVariable(node: Node, name: string): Expr {
     const line = node.el.line;
-    if (!/[.[]/.test(name)) return this.b.read(name, line);
-    const base = name.split(/[.[]/)[0]!;
-    const type = this.b.variable(base, line).type;
-    const kind = blockKind(type, this.context.blockTypes);
-    return kind === 'function-call'
-      ? this.b.opaque('unsupported', `${name} (member or element), localId ${node.id}`, line)
-      : this.b.opaque(kind, `${kindWord(kind)} ${base} (${type}): ${name}, localId ${node.id}`, line);
+    return namedValue(this.b, this.context, name, node.id, line);
   }
 
   /** OR of everything connected into the node's input (a contact, coil...); nothing connected is no power (an open rung). */

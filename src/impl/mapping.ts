@@ -7,10 +7,15 @@ import { cellAddress, csvRecords, gridOrigin, qualifiedAddress, type CellValue, 
 export interface NamePair {
   /** The spec signal: its header or its identifier. */
   readonly spec: string;
-  /** The program variable: `Name`, `Pou.Name` (to pick a POU), or a direct address `%IX0.1`. */
+  /**
+   * The program variable: `Name`, `Pou.Name` (to pick a POU), a path (`io.bClosed`,
+   * `aIn[3]`, `tonSync.Q`, also after `Pou.`) or a direct address `%IX0.1`. Spaces around its punctuation removed.
+   */
   readonly program: string;
-  /** Where the pair was written: "map.csv line 3" or "Map!A3". */
+  /** Where the pair was written: "map.csv line 3" or "Map!A3" (its spec signal cell). */
   readonly where: string;
+  /** Where its program variable is written: "map.csv line 3" or "Map!B3". */
+  readonly programWhere: string;
 }
 
 export interface NameMapping {
@@ -18,7 +23,7 @@ export interface NameMapping {
   readonly pairs: readonly NamePair[];
 }
 
-const PROGRAM_NAME = /^(?:[A-Za-z_][A-Za-z0-9_]*\.)?[A-Za-z_][A-Za-z0-9_]*$|^%[A-Za-z]+[0-9.]*$/;
+const PROGRAM_NAME = /^[A-Za-z_][A-Za-z0-9_]*(?:\.[A-Za-z_][A-Za-z0-9_]*|\[[+-]?[0-9]+(?:,[+-]?[0-9]+)*\])*$|^%[A-Za-z]+[0-9.]*$/;
 
 interface Row {
   readonly cells: readonly string[];
@@ -42,13 +47,14 @@ function pairsOf(source: string, rows: readonly Row[]): Result<NameMapping> {
   const bySpec = new Map<string, NamePair>();
   for (const row of isHeader ? filled.slice(1) : filled) {
     const spec = (row.cells[0] ?? '').trim();
-    const program = (row.cells[1] ?? '').trim();
+    // Spaces around the punctuation of a path are dropped (`aIn[ 3 ]`); inside a name they are an error.
+    const program = (row.cells[1] ?? '').trim().replace(/\s*([.[\],])\s*/g, '$1');
     if (spec === '') return fail({ message: `${row.at(0)}: the spec signal is blank (beside program variable '${program}')` });
     if (program === '') return fail({ message: `${row.at(1)}: no program variable for spec signal '${spec}'` });
     if (!PROGRAM_NAME.test(program)) {
-      return fail({ message: `${row.at(1)}: '${program}' is not a program variable name (Name, Pou.Name or %IX0.1)` });
+      return fail({ message: `${row.at(1)}: '${program}' is not a program variable name (Name, Pou.Name, a member io.bClosed, an element aIn[3] or %IX0.1)` });
     }
-    const pair = { spec, program, where: row.at(0) };
+    const pair = { spec, program, where: row.at(0), programWhere: row.at(1) };
     const twice = bySpec.get(spec.toLowerCase());
     if (twice) return fail({ message: `${row.at(0)}: spec signal '${spec}' is mapped twice (also at ${twice.where})` });
     bySpec.set(spec.toLowerCase(), pair);

@@ -2,11 +2,12 @@
 // Text, Ladder Diagram or FBD. Element names as in the published schemas (tc6_xml_v201.xsd).
 import { fail, ok, type Result } from '../logic/index.js';
 import { readFbdBody } from './fbd-network.js';
+import { functionTable } from './functions.js';
 import { readLdBody } from './ld-network.js';
 import { tokenize, type Token } from './st-lexer.js';
 import { readStBody, stText, type StBlock, type StBody, type StText } from './st-reader.js';
 import type { PouHeader } from './symbolic.js';
-import type { CannotJudge, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, VarSection } from './types.js';
+import type { CannotJudge, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, StructType, VarSection } from './types.js';
 import { childNamed, childrenNamed, localName, parseXml, type XmlElement } from './xml.js';
 import { LineError } from './line-error.js';
 
@@ -41,16 +42,24 @@ export function readPlcopen(file: string, text: string): Result<ImplProgram> {
     const pouElements = descend(root, ['types', 'pous', 'pou']);
     const globals = globalVariables(root);
     const blockTypes = new Set(pouElements.filter((p) => p.attrs['pouType'] === 'functionBlock').map((p) => (p.attrs['name'] ?? '').toUpperCase()));
-    const headers = pouElements.map(pouHeader);
-    const context: ReadContext = { file, globals, blockTypes, pouVariables: new Map(headers.map((h) => [h.name.toUpperCase(), h.variables])) };
+    const headers = pouElements.map((el) => ({ ...pouHeader(el), el }));
+    const functions = functionTable(headers, (h) => readPou(context, h.el, h));
+    const context: ReadContext = {
+      file,
+      globals,
+      blockTypes,
+      pouVariables: new Map(headers.map((h) => [h.name.toUpperCase(), h.variables])),
+      types: dataTypes(root),
+      functionNamed: functions.named,
+    };
     const pous: ImplPou[] = [];
-    for (const [i, el] of pouElements.entries()) {
-      const read = readPou(context, el, headers[i]!);
+    for (const h of headers) {
+      const read = functions.read(h);
       if (!read.ok) return read;
       pous.push(read.value);
     }
     if (pous.length === 0) throw new LineError(root.line, 'the project has no POU');
-    return ok({ file, format: 'plcopen', pous });
+    return ok({ file, format: 'plcopen', pous, types: { types: context.types, blockTypes, pouVariables: context.pouVariables } });
   } catch (e) {
     if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;
@@ -95,12 +104,32 @@ function variablesOf(list: XmlElement, section: VarSection): ImplVariable[] {
   });
 }
 
-/** BOOL, INT, a derived type's name (TON, a structure...), or the kind of a composite type. */
+/**
+ * BOOL, INT, a derived type's name (TON, a structure...), an array as ST writes it
+ * (`ARRAY [1..8] OF BOOL`), or the kind of another composite type.
+ */
 function typeName(type: XmlElement | undefined): string {
   const inner = type?.children[0];
   if (!inner) return '';
   const kind = localName(inner.name);
+  if (kind === 'array') {
+    const bounds = childrenNamed(inner, 'dimension').map((d) => `${d.attrs['lower'] ?? '?'}..${d.attrs['upper'] ?? '?'}`);
+    return `ARRAY [${bounds.join(', ')}] OF ${typeName(childNamed(inner, 'baseType'))}`;
+  }
   return kind === 'derived' ? (inner.attrs['name'] ?? 'derived') : kind;
+}
+
+/** The project's <dataTypes>: structures by their members, other types by what they stand for. */
+function dataTypes(root: XmlElement): Map<string, StructType> {
+  const out = new Map<string, StructType>();
+  for (const t of descend(root, ['types', 'dataTypes', 'dataType'])) {
+    const name = t.attrs['name'];
+    if (!name) throw new LineError(t.line, 'a <dataType> has no name');
+    const base = childNamed(t, 'baseType');
+    const struct = base && childNamed(base, 'struct');
+    out.set(name.toUpperCase(), struct ? { name, line: t.line, members: variablesOf(struct, 'local') } : { name, line: t.line, members: [], alias: typeName(base) });
+  }
+  return out;
 }
 
 /** A POU's name, kind and interface. */
@@ -222,5 +251,5 @@ function unreadBody(header: PouHeader, line: number): ImplPou {
   const outputs = header.variables
     .filter((v) => (v.section === 'output' || v.section === 'in-out') && v.type.toUpperCase() === 'BOOL')
     .map((v) => ({ name: v.name, section: v.section, line, cannotJudge: [item] }));
-  return { ...header, inputs: [], undriven: [], outputs, cannotJudge: [item], notes: [] };
+  return { ...header, paths: [], inputs: [], undriven: [], outputs, cannotJudge: [item], notes: [] };
 }

@@ -13,9 +13,12 @@ import {
   type Signal,
 } from '../logic/index.js';
 import { blockKind, kindWord } from './constructs.js';
+import { mapVars } from './expr-dag.js';
+import { functionTable } from './functions.js';
+import { isElementary, parsePath, pathKey } from './paths.js';
 import { isOp, isWord, tokenize, type Token } from './st-lexer.js';
 import { PouBuilder, orFolded, type PouHeader } from './symbolic.js';
-import type { CannotJudge, CannotJudgeKind, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, VarSection } from './types.js';
+import type { CannotJudge, CannotJudgeKind, ImplPou, ImplProgram, ImplVariable, PouKind, ReadContext, StructType, VarSection } from './types.js';
 import { LineError } from './line-error.js';
 
 /** The text a run of tokens points into, and the same text with comments blanked. */
@@ -99,6 +102,8 @@ const INNER_BLOCKS: Readonly<Record<string, string>> = {
   INITIAL_STEP: 'END_STEP',
 };
 
+const isBoolType = (type: string): boolean => type === '' || type.trim().toUpperCase() === 'BOOL';
+
 const LOGIC_FUNCTIONS = new Set(['AND', 'OR', 'XOR', 'NOT']);
 const BOOL_WORDS = new Set(['TRUE', 'FALSE']);
 
@@ -111,21 +116,19 @@ export function readStFile(file: string, text: string): Result<ImplProgram> {
     const found = findPous(tokens, text);
     const blockTypes = new Set(found.pous.filter((p) => p.kind === 'FUNCTION_BLOCK').map((p) => p.name.toUpperCase()));
     const pouVariables = new Map(found.pous.map((p) => [p.name.toUpperCase(), p.variables]));
-    const context: ReadContext = { file, globals: found.globals, blockTypes, pouVariables };
     const whole = stText(text, tokens);
+    const readOne = (p: FoundPou): Result<ImplPou> =>
+      readStBody(context, p, { tokens: p.body, text: whole, actions: p.actions.map((a) => ({ ...a, text: whole })), elsewhere: p.elsewhere });
+    const functions = functionTable(found.pous, readOne);
+    const context: ReadContext = { file, globals: found.globals, blockTypes, pouVariables, types: found.types, functionNamed: functions.named };
     const pous: ImplPou[] = [];
     for (const p of found.pous) {
-      const read = readStBody(context, p, {
-        tokens: p.body,
-        text: whole,
-        actions: p.actions.map((a) => ({ ...a, text: whole })),
-        elsewhere: p.elsewhere,
-      });
+      const read = functions.read(p);
       if (!read.ok) return read;
       pous.push(read.value);
     }
     if (pous.length === 0) return fail({ message: `${file}: no PROGRAM, FUNCTION_BLOCK or FUNCTION found` });
-    return ok({ file, format: 'st', pous });
+    return ok({ file, format: 'st', pous, types: { types: found.types, blockTypes, pouVariables } });
   } catch (e) {
     if (e instanceof LineError) return fail({ message: `${file} line ${e.line}: ${e.message}` });
     throw e;
@@ -139,9 +142,10 @@ interface FoundPou extends PouHeader {
 }
 
 /** POU headers, declarations and body extents; global variables of the whole file. */
-function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[]; globals: ImplVariable[] } {
+function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[]; globals: ImplVariable[]; types: Map<string, StructType> } {
   const pous: FoundPou[] = [];
   const globals: ImplVariable[] = [];
+  const types = new Map<string, StructType>();
   let i = 0;
   while (i < tokens.length) {
     const t = tokens[i]!;
@@ -199,8 +203,10 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
       i++;
     } else if (word === 'VAR_GLOBAL') {
       i = readSection(tokens, i, source, globals);
-    } else if (word === 'TYPE' || word === 'CONFIGURATION') {
-      // Type definitions say nothing about the logic; a configuration may hold global variables.
+    } else if (word === 'TYPE') {
+      i = readTypes(tokens, i, source, types);
+    } else if (word === 'CONFIGURATION') {
+      // A configuration may hold global variables.
       const end = `END_${word}`;
       i++;
       while (i < tokens.length && !isWord(tokens[i], end)) {
@@ -212,7 +218,7 @@ function findPous(tokens: readonly Token[], source: string): { pous: FoundPou[];
     } else if (isOp(t, ';')) i++;
     else throw new LineError(t.line, `expected PROGRAM, FUNCTION_BLOCK or FUNCTION, found '${t.text}'`);
   }
-  return { pous, globals };
+  return { pous, globals, types };
 }
 
 /** One VAR_xxx ... END_VAR section; returns the index after END_VAR. */
@@ -225,8 +231,21 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
     if (isWord(tokens[i], 'CONSTANT')) constant = true;
     i++;
   }
-  while (!isWord(tokens[i], 'END_VAR')) {
-    if (i >= tokens.length) throw new LineError(head.line, `${head.text} has no END_VAR`);
+  return readDeclarations(tokens, i, source, { head, section, constant, end: 'END_VAR' }, into) + 1;
+}
+
+/** Declarations `a, b AT %IX0.1 : TYPE := init;` up to the word `end`; returns its index. */
+function readDeclarations(
+  tokens: readonly Token[],
+  start: number,
+  source: string,
+  list: { readonly head: Token; readonly section: VarSection; readonly constant: boolean; readonly end: string },
+  into: ImplVariable[],
+): number {
+  const { head, section, constant } = list;
+  let i = start;
+  while (!isWord(tokens[i], list.end)) {
+    if (i >= tokens.length) throw new LineError(head.line, `${head.text} has no ${list.end}`);
     const names: { token: Token; address?: string }[] = [];
     for (;;) {
       const name = tokens[i];
@@ -267,6 +286,34 @@ function readSection(tokens: readonly Token[], start: number, source: string, in
       });
     }
   }
+  return i;
+}
+
+/**
+ * A TYPE ... END_TYPE block: structures (members with their types and initial values) and
+ * other named types (kept as the type they stand for: `T_Row : ARRAY [1..4] OF BOOL`).
+ * Returns the index after END_TYPE.
+ */
+function readTypes(tokens: readonly Token[], start: number, source: string, into: Map<string, StructType>): number {
+  const head = tokens[start]!;
+  let i = start + 1;
+  while (!isWord(tokens[i], 'END_TYPE')) {
+    const name = tokens[i];
+    if (i >= tokens.length || name === undefined) throw new LineError(head.line, 'TYPE has no END_TYPE');
+    if (name.kind !== 'ident' || !isOp(tokens[i + 1], ':')) throw new LineError(name.line, `expected 'Name :' in TYPE, found '${name.text}'`);
+    i += 2;
+    if (isWord(tokens[i], 'STRUCT')) {
+      const members: ImplVariable[] = [];
+      i = readDeclarations(tokens, i + 1, source, { head: tokens[i]!, section: 'local', constant: false, end: 'END_STRUCT' }, members) + 1;
+      into.set(name.text.toUpperCase(), { name: name.text, line: name.line, members });
+    } else {
+      const typeStart = i;
+      i = skipTo(tokens, i, (t) => isOp(t, ';') || isOp(t, ':='), name.line, 'type declaration');
+      into.set(name.text.toUpperCase(), { name: name.text, line: name.line, members: [], alias: sourceOf(source, tokens, typeStart, i) });
+      i = skipTo(tokens, i, (t) => isOp(t, ';'), name.line, 'type declaration');
+    }
+    if (isOp(tokens[i], ';')) i++;
+  }
   return i + 1;
 }
 
@@ -294,7 +341,7 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
     for (const a of body.actions) for (const n of assignedNames(a.tokens, calls)) assigned.add(n);
     const elsewhereWrites = body.elsewhere.map((e) => ownWrites(e.tokens ?? [], calls, header));
     for (const names of elsewhereWrites) for (const n of names) assigned.add(n);
-    const builder = new PouBuilder(header, context.globals, assigned);
+    const builder = new PouBuilder(header, context.globals, assigned, context);
     const run = { actions: new Map(body.actions.map((a) => [a.name.toUpperCase(), a])), called: new Set<string>(), steps: 0 };
     new BodyReader(context, builder, calls, body.tokens, body.text, run, 0).run();
     // What runs outside the scan's statements may change what they assign, at a time unknown.
@@ -307,12 +354,8 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
     }
     for (const l of later) {
       for (const lower of l.names) {
-        const name = builder.variable(lower, l.line).name;
-        if (!builder.isBool(name, l.line)) continue;
         const when = l.what.startsWith('action') ? `it is not called in the body of ${header.name}` : 'it runs when called from outside the scan';
-        const value = builder.opaque('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line);
-        const now = builder.assignedValue(name);
-        builder.assign(name, now ? orFolded(now, value) : value, l.line);
+        builder.writeUnknown(lower, l.line, (name) => builder.cannotJudge('unsupported', `${l.what} (line ${l.line}) writes ${name}; ${when}`, l.line), true);
       }
     }
     return ok(builder.finish());
@@ -322,22 +365,39 @@ export function readStBody(context: ReadContext, header: PouHeader, body: StBody
   }
 }
 
-/** Names of the POU's own variables that a block (action, method...) assigns. */
+/** Names of the POU's own variables (and paths under them) that a block (action, method...) assigns. */
 function ownWrites(tokens: readonly Token[], calls: Calls, header: PouHeader): Set<string> {
   const own = new Set(header.variables.map((v) => v.name.toLowerCase()));
-  return new Set([...assignedNames(tokens, calls)].filter((n) => own.has(n)));
+  return new Set([...assignedNames(tokens, calls)].filter((n) => own.has(parsePath(n)?.base.toLowerCase() ?? n)));
 }
 
-/** Every name the body assigns: `x :=`, `x S=`, `x R=`, call outputs `=> x` and in-out actuals. */
+/** End (exclusive) of an access path a.b.c or a[i].b starting at token k, at most `to`. */
+function accessEnd(tokens: readonly Token[], k: number, to = tokens.length): number {
+  let end = k + 1;
+  while (end < to && (isOp(tokens[end], '.') || isOp(tokens[end], '['))) {
+    end = isOp(tokens[end], '.') ? end + 2 : skipTo(tokens, end + 1, (x) => isOp(x, ']'), tokens[k]!.line, 'index') + 1;
+  }
+  return Math.min(end, to);
+}
+
+function pathText(tokens: readonly Token[], from: number, to: number): string {
+  return tokens.slice(from, to).map((x) => x.text).join('');
+}
+
+/** Every name or path the body assigns: `x :=`, `io.b :=`, `x S=`, `x R=`, call outputs `=> x` and in-out actuals. */
 function assignedNames(tokens: readonly Token[], calls: Calls): Set<string> {
   const out = new Set<string>();
   tokens.forEach((t, i) => {
     if (t.kind !== 'ident') return;
     const prev = tokens[i - 1];
     const next = tokens[i + 1];
-    const named = isOp(prev, '(') || isOp(prev, ',') || isOp(prev, '.');
-    if ((isOp(next, ':=') && !named) || isOp(prev, '=>') || (isWord(next, 'S', 'R') && isOp(tokens[i + 2], '='))) {
-      out.add(t.text.toLowerCase());
+    if (!isOp(prev, '.')) {
+      const end = accessEnd(tokens, i);
+      const after = tokens[end];
+      const named = isOp(prev, '(') || isOp(prev, ',');
+      if ((isOp(after, ':=') && !named) || isOp(prev, '=>') || (isWord(after, 'S', 'R') && isOp(tokens[end + 1], '='))) {
+        out.add(pathKey(pathText(tokens, i, end)));
+      }
     }
     if (isOp(next, '(') && !STATEMENT_WORDS.has(t.text.toUpperCase())) {
       const close = skipTo(tokens, i + 2, (y) => isOp(y, ')'), t.line, 'call');
@@ -378,10 +438,11 @@ function argumentsOf(tokens: readonly Token[], open: number, close: number, line
   return out;
 }
 
-/** A variable a call may write: a `=>` output, or an actual passed to a VAR_IN_OUT (or maybe one). */
+/** A variable or path a call may write: a `=>` output (`param`), or an actual passed to a VAR_IN_OUT (or maybe one). */
 interface Write {
   readonly target: { readonly text: string; readonly line: number };
   readonly why: string;
+  readonly param?: string;
 }
 
 /** What the POU knows of the things it calls: which of their parameters write back. */
@@ -431,16 +492,17 @@ class Calls {
       }
     }
     argumentsOf(tokens, open, close, line).forEach((arg, position) => {
-      const target = tokens[arg.from];
-      if (arg.to !== arg.from + 1 || target?.kind !== 'ident') return;
+      const head = tokens[arg.from];
+      if (head?.kind !== 'ident' || accessEnd(tokens, arg.from, arg.to) !== arg.to) return;
+      const target = { text: pathText(tokens, arg.from, arg.to), line: head.line };
       if (arg.output) {
-        out.push({ target, why: `output ${arg.param} of ${callee} (=> ${target.text})` });
+        out.push({ target, why: `output ${arg.param} of ${callee} (=> ${target.text})`, param: arg.param! });
         return;
       }
       if (standard) return;
       const formal = arg.param === undefined ? params[position] : params.find((p) => p.name.toLowerCase() === arg.param!.toLowerCase());
       if (own && formal?.section !== 'in-out') return;
-      const d = b ? b.variable(target.text, target.line) : this.declared(target.text);
+      const d = b ? b.variable(head.text, target.line) : this.declared(head.text);
       if (!own && (d === undefined || d.section === 'input' || d.constant)) return;
       out.push({
         target,
@@ -575,30 +637,43 @@ class BodyReader {
         for (const n of assignedNames(action.tokens, this.calls)) names.add(n);
       }
     });
+    // Block instances called inside are called at some point: their members are new values after it.
+    inside.forEach((x, k) => {
+      if (x.kind === 'ident' && isOp(inside[k + 1], '(') && !isOp(inside[k - 1], '.')) this.b.instanceCalled(x.text);
+    });
     for (const name of names) {
-      const v = this.b.variable(name, open.line);
-      if (!this.b.isBool(v.name, open.line)) continue;
-      this.b.assign(v.name, this.b.opaque('control-flow', `${word} at line ${open.line} assigns ${v.name}`, open.line), open.line);
+      this.b.writeUnknown(name, open.line, (v) => this.b.cannotJudge('control-flow', `${word} at line ${open.line} assigns ${v}`, open.line));
     }
   }
 
   /** `x := e;`, `x S= e;`, `x R= e;`, `inst(...);`, `f(...);`, `inst.m(...);`. */
   private targetStatement(): void {
     const first = this.t!;
-    let end = this.i + 1;
-    while (isOp(this.tokens[end], '.') || isOp(this.tokens[end], '[')) {
-      end = isOp(this.tokens[end], '.') ? end + 2 : skipTo(this.tokens, end + 1, (x) => isOp(x, ']'), first.line, 'index') + 1;
-    }
+    const end = accessEnd(this.tokens, this.i);
     const simple = end === this.i + 1;
-    const target = this.tokens.slice(this.i, end).map((x) => x.text).join('');
+    const target = pathText(this.tokens, this.i, end);
     const after = this.tokens[end];
     this.i = end;
+    // The BOOL variable or path assigned, if it is one this scan can follow.
+    const boolTarget = (): string | undefined => {
+      if (simple) return this.b.isBool(first.text, first.line) ? first.text : undefined;
+      const parsed = parsePath(target);
+      const r = parsed && !parsed.steps.some((x) => 'variableIndex' in x) ? this.b.resolve(target, first.line) : undefined;
+      return r?.ok && !r.variable.source && r.variable.type.toUpperCase() === 'BOOL' ? r.variable.name : undefined;
+    };
+    /** An assignment of something that is no BOOL: nothing for an INT, every member unknown for a structure. */
+    const otherTarget = (what: string): void => {
+      const d = simple ? this.b.variable(first.text, first.line) : undefined;
+      if (d && isElementary(d.type)) return;
+      this.b.writeUnknown(target, first.line, (v) => this.b.cannotJudge('unsupported', `${what} ${v} at line ${first.line} is not followed member by member`, first.line));
+    };
     if (isOp(after, ':=')) {
       const semi = skipTo(this.tokens, end + 1, (x) => isOp(x, ';'), first.line, 'assignment');
-      if (simple && this.b.isBool(first.text, first.line)) this.b.assign(first.text, this.expression(end + 1, semi), first.line);
+      const name = boolTarget();
+      if (name !== undefined) this.b.assign(name, this.expression(end + 1, semi), first.line);
       else {
         this.callWritesIn(end + 1, semi);
-        if (!simple) this.b.cannotJudge('unsupported', `assignment to ${target} at line ${first.line}`, first.line);
+        otherTarget('assignment to');
       }
       this.i = semi + 1;
     } else if (isWord(after, 'S', 'R') && isOp(this.tokens[end + 1], '=')) {
@@ -606,9 +681,12 @@ class BodyReader {
       const op = `${after!.text.toUpperCase()}=`;
       this.callWritesIn(end + 2, semi);
       // Both S= and R= of one variable stay in its reasons: the later one keeps the earlier one's value.
-      const value = this.b.opaque('set-reset', `${op} on ${target} at line ${first.line}`, first.line);
-      const before = simple ? this.b.assignedValue(target) : undefined;
-      if (simple) this.b.assign(target, before ? orFolded(before, value) : value, first.line);
+      const name = boolTarget();
+      if (name !== undefined) {
+        const value = this.b.opaque('set-reset', `${op} on ${target} at line ${first.line}`, first.line);
+        const before = this.b.assignedValue(name);
+        this.b.assign(name, before ? orFolded(before, value) : value, first.line);
+      } else otherTarget(`${op} on`);
       this.i = semi + 1;
     } else if (isOp(after, '(')) {
       const close = skipTo(this.tokens, end + 1, (x) => isOp(x, ')'), first.line, 'call');
@@ -643,6 +721,7 @@ class BodyReader {
         ? `call of ${name.text} at line ${name.line}`
         : `${kindWord(kind)} ${name.text} (${declared.type}) called at line ${name.line}`;
     const item = this.b.cannotJudge(kind, what, name.line);
+    if (kind !== 'function-call') this.b.instanceCalled(name.text);
     this.writeBack(name.text, kind, from, to, item);
   }
 
@@ -654,16 +733,17 @@ class BodyReader {
       const close = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
       const callee = calleeAt(this.tokens, k);
       for (const w of this.calls.writes(callee, this.tokens, k + 2, close, this.b)) {
-        if (this.b.isBool(w.target.text, w.target.line)) {
-          this.b.assign(w.target.text, this.b.opaque('function-call', `${w.why} at line ${w.target.line}`, w.target.line), w.target.line);
-        }
+        this.b.writeUnknown(w.target.text, w.target.line, () => this.b.cannotJudge('function-call', `${w.why} at line ${w.target.line}`, w.target.line));
       }
     }
   }
 
   /** `inst.m(...)`: a method or action of an instance, not read; what it may write back is opaque. */
   private pathCall(path: string, first: Token, from: number, to: number): void {
-    const item = this.b.cannotJudge('function-block', `call of ${path} at line ${first.line} (a method or action of an instance, not read)`, first.line);
+    const item = this.b.cannotJudge('function-block', `call of ${path} at line ${first.line} (a method or action of an instance, or an instance inside a structure, not read)`, first.line);
+    // Either the path is an instance or its last member is a method of one: both may change.
+    this.b.instanceCalled(path);
+    this.b.instanceCalled(path.slice(0, path.lastIndexOf('.')));
     this.writeBack(path, 'function-block', from, to, item);
   }
 
@@ -672,9 +752,14 @@ class BodyReader {
   private writeBack(callee: string, kind: CannotJudgeKind, from: number, to: number, item: CannotJudge): void {
     for (const w of this.calls.writes(callee, this.tokens, from, to, this.b)) {
       const out = w.target;
-      if (!this.b.isBool(out.text, out.line)) continue;
-      const value = w.why.startsWith('output') ? this.b.leafFor(item, `${callee}=>${out.text}`) : this.b.opaque(kind, `${w.why} at line ${out.line}`, out.line);
-      this.b.assign(out.text, value, out.line);
+      // `Q => x` of an instance: x is the member it names (tonSync.Q), a named source.
+      const member = w.param !== undefined && kind !== 'function-call' ? this.b.resolve(`${callee}.${w.param}`, out.line) : undefined;
+      const name = member?.ok && member.variable.type.toUpperCase() === 'BOOL' ? member.variable.name : undefined;
+      const target = this.b.resolve(out.text, out.line);
+      if (name !== undefined && target.ok && isBoolType(target.variable.type) && !target.variable.source) {
+        this.b.assign(target.variable.name, this.b.read(name, out.line), out.line);
+      } else if (w.param !== undefined) this.b.writeUnknown(out.text, out.line, () => item);
+      else this.b.writeUnknown(out.text, out.line, () => this.b.cannotJudge(kind, `${w.why} at line ${out.line}`, out.line));
     }
   }
 
@@ -732,17 +817,17 @@ class BodyReader {
         continue;
       } else if (k + 1 < to && isOp(next, '(')) {
         const close = skipTo(tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
-        replace(k, close + 1, this.b.opaque('function-call', `function ${x.text}(...) at line ${x.line}`, x.line));
+        replace(k, close + 1, this.callValue(k, close));
         k = close;
       } else if (k + 1 < to && (isOp(next, '.') || isOp(next, '['))) {
-        const end = this.accessEnd(k, to);
+        const end = accessEnd(tokens, k, to);
         const path = this.clean.slice(x.start, tokens[end - 1]!.end);
         if (end < to && isOp(tokens[end], '(')) {
           const close = skipTo(tokens, end + 1, (y) => isOp(y, ')'), x.line, 'call');
           replace(k, close + 1, this.b.opaque('function-block', `call of ${path}(...) at line ${x.line}`, x.line));
           k = close;
         } else {
-          replace(k, end, this.access(k, path));
+          replace(k, end, this.access(pathText(tokens, k, end), x.line));
           k = end - 1;
         }
       } else {
@@ -764,28 +849,41 @@ class BodyReader {
     return substitute(parsed.value, values);
   }
 
-  /** End (exclusive) of an access path a.b.c or a[i].b starting at token k. */
-  private accessEnd(k: number, to: number): number {
-    let end = k + 1;
-    while (end < to && (isOp(this.tokens[end], '.') || isOp(this.tokens[end], '['))) {
-      end = isOp(this.tokens[end], '.')
-        ? end + 2
-        : skipTo(this.tokens, end + 1, (x) => isOp(x, ']'), this.tokens[k]!.line, 'index') + 1;
-    }
-    return Math.min(end, to);
+  /** A structure member, array element or instance member: its value, or why it cannot be read. */
+  private access(path: string, line: number): Expr {
+    const r = this.b.resolve(path, line);
+    if (!r.ok) return this.b.opaque(r.kind, r.why, line);
+    if (!isBoolType(r.variable.type)) return this.b.opaque('non-bool', `${r.variable.name} (${r.variable.type}) at line ${line}`, line);
+    return this.b.read(r.variable.name, line);
   }
 
-  /** An instance output (T1.Q), a structure member or an array element: opaque. */
-  private access(at: number, path: string): Expr {
-    const base = this.tokens[at]!;
-    const declared = this.b.variable(base.text, base.line);
-    const isIndex = isOp(this.tokens[at + 1], '[');
-    const kind = isIndex ? 'unsupported' : blockKind(declared.type, this.context.blockTypes);
-    const what =
-      kind === 'unsupported' || kind === 'function-call'
-        ? `${isIndex ? 'array element' : 'member'} ${path} at line ${base.line}`
-        : `${kindWord(kind)} ${base.text} (${declared.type}): ${path} at line ${base.line}`;
-    return this.b.opaque(kind === 'function-call' ? 'unsupported' : kind, what, base.line);
+  /**
+   * A call in an expression: a FUNCTION of the file is inlined (its result over its inputs,
+   * with the arguments' values put in); any other function is opaque.
+   */
+  private callValue(k: number, close: number): Expr {
+    const name = this.tokens[k]!;
+    const line = name.line;
+    const fn = this.context.functionNamed(name.text.toUpperCase());
+    if (!fn) return this.b.opaque('function-call', `function ${name.text}(...) at line ${line}`, line);
+    if (!fn.ok) return this.b.opaque('function-call', `function ${fn.name}(...) at line ${line} is not inlined: ${fn.why}`, line);
+    const given = new Map<string, Expr>();
+    for (const [position, arg] of argumentsOf(this.tokens, k + 2, close, line).entries()) {
+      const param = arg.param === undefined ? fn.params[position] : fn.params.find((p) => p.name.toLowerCase() === arg.param!.toLowerCase());
+      if (arg.output || !param) {
+        const what = arg.output ? `an output (${arg.param} =>) is passed` : arg.param === undefined ? 'more arguments than inputs are given' : `${fn.name} has no input ${arg.param}`;
+        return this.b.opaque('function-call', `function ${fn.name}(...) at line ${line} is not inlined: ${what}`, line);
+      }
+      // Only the inputs its result reads are evaluated (they are BOOL, or the result would not be read).
+      if (fn.inputs.some((n) => n.toLowerCase() === param.name.toLowerCase())) given.set(param.name.toLowerCase(), this.valueOf(arg.from, arg.to));
+    }
+    return mapVars(fn.result, (v) => {
+      const param = fn.inputs[v.input]!.toLowerCase();
+      const value = given.get(param);
+      if (value) return value;
+      const text = fn.params.find((p) => p.name.toLowerCase() === param)?.initial?.trim() ?? 'FALSE';
+      return /^(TRUE|1|BOOL#(TRUE|1))$/i.test(text) ? TRUE : /^(FALSE|0|BOOL#(FALSE|0))$/i.test(text) ? FALSE : this.b.opaque('unsupported', `initial value '${text}' of input ${param} of ${fn.name} is not read`, line);
+    });
   }
 
   /**
@@ -803,8 +901,15 @@ class BodyReader {
         if (isOp(this.tokens[k + 1], '(') && k + 1 < to) {
           k = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
         } else if (isOp(this.tokens[k + 1], '.') || isOp(this.tokens[k + 1], '[')) {
-          k = this.accessEnd(k, to) - 1;
+          const end = accessEnd(this.tokens, k, to);
+          const path = pathText(this.tokens, k, end);
+          k = end - 1;
           if (k + 1 < to && isOp(this.tokens[k + 1], '(')) k = skipTo(this.tokens, k + 2, (y) => isOp(y, ')'), x.line, 'call');
+          else {
+            const parsed = parsePath(path);
+            const r = parsed && !parsed.steps.some((y) => 'variableIndex' in y) ? this.b.resolve(path, x.line) : undefined;
+            if (r?.ok && !isBoolType(r.variable.type)) return { kind: 'non-bool', why: `uses ${r.variable.name} (${r.variable.type})` };
+          }
         } else if (!this.b.isBool(x.text, x.line)) {
           return { kind: 'non-bool', why: `uses ${x.text} (${this.b.variable(x.text, x.line).type})` };
         }

@@ -2,8 +2,10 @@
 // leaves (inputs, previous-scan values, and opaque values a truth table cannot judge). Both
 // the ST and the LD readers drive it; at the end each assigned BOOL becomes an ImplOutput.
 import { and, FALSE, not, or, postOrder, TRUE, variable, type Expr } from '../logic/index.js';
+import { kindWord } from './constructs.js';
 import { mapVars } from './expr-dag.js';
 import { LineError } from './line-error.js';
+import { fixedPrefix, isElementary, isPath, parsePath, pathKey, resolvePath, type PathTypes, type Resolved } from './paths.js';
 import type { CannotJudge, CannotJudgeKind, ImplOutput, ImplPou, ImplVariable, VarSection } from './types.js';
 
 type Leaf =
@@ -77,6 +79,12 @@ export class PouBuilder {
   private readonly declared = new Map<string, ImplVariable>();
   private readonly undeclared = new Map<string, ImplVariable>();
   private readonly initialValues = new Map<string, Expr>();
+  /** Access paths resolved so far (lower-case key). */
+  private readonly paths = new Map<string, ImplVariable>();
+  /** Calls of each block instance so far: a member read after a call is a new value. */
+  private readonly instanceCalls = new Map<string, number>();
+  /** Paths written as a whole or with a variable index: what is under them is not known. */
+  private readonly unknownUnder = new Map<string, CannotJudge>();
 
   /**
    * `assigned`: every variable the POU assigns somewhere (lower case); reading one of them
@@ -86,6 +94,7 @@ export class PouBuilder {
     private readonly header: PouHeader,
     globals: readonly ImplVariable[],
     private readonly assigned: ReadonlySet<string>,
+    private readonly pathTypes?: PathTypes,
   ) {
     for (const v of globals) this.declared.set(key(v.name), v);
     for (const v of header.variables) {
@@ -102,12 +111,83 @@ export class PouBuilder {
   /** The declaration of a name, or one made up (and noted) for an undeclared name. */
   variable(name: string, line: number): ImplVariable {
     const k = key(name);
-    const d = this.declared.get(k) ?? this.undeclared.get(k);
+    const d = this.declared.get(k) ?? this.undeclared.get(k) ?? this.paths.get(pathKey(name));
     if (d) return d;
+    if (isPath(name)) {
+      const r = this.resolve(name, line);
+      if (!r.ok) throw new Error(`bug: ${name} is used as a variable but does not resolve: ${r.why}`);
+      return r.variable;
+    }
     const made: ImplVariable = { name, section: 'undeclared', type: '', line };
     this.undeclared.set(k, made);
     this.notes.push(`${name} (line ${line}) is not declared in ${this.header.name}; taken as a BOOL`);
     return made;
+  }
+
+  /**
+   * A plain name's declaration, or what an access path (`io.bX`, `aIn[3]`, `T1.Q`) stands for;
+   * a path that resolves is remembered as a variable of its own.
+   */
+  resolve(name: string, line: number): Resolved {
+    if (!isPath(name)) return { ok: true, variable: this.variable(name, line) };
+    const k = pathKey(name);
+    const known = this.paths.get(k);
+    if (known) return { ok: true, variable: known };
+    const parsed = parsePath(name);
+    if (!parsed || !this.pathTypes) return { ok: false, kind: 'unsupported', why: `${name} at line ${line} is not read` };
+    const r = resolvePath(this.variable(parsed.base, line), parsed, this.pathTypes, line);
+    if (r.ok) this.paths.set(k, r.variable);
+    return r;
+  }
+
+  /** A call of a block instance: its members read from here on are new values. */
+  instanceCalled(instance: string): void {
+    const k = pathKey(instance);
+    this.instanceCalls.set(k, (this.instanceCalls.get(k) ?? 0) + 1);
+  }
+
+  /**
+   * A write this scan cannot follow to its members (a whole structure, a variable index):
+   * every path under `prefix` that the POU assigns, or has read, takes an unknown value, and
+   * so does any path under it read later.
+   */
+  writeUnknownUnder(prefix: string, item: CannotJudge, line: number): void {
+    const p = pathKey(prefix);
+    const under = (k: string): boolean => k === p || k.startsWith(`${p}.`) || k.startsWith(`${p}[`);
+    this.unknownUnder.set(p, item);
+    const keys = new Set([...this.assigned, ...this.paths.keys()].filter((k) => under(k) && k !== p));
+    for (const k of keys) {
+      const r = this.resolve(k, line);
+      if (r.ok && r.variable.type.toUpperCase() === 'BOOL' && !r.variable.source) this.assign(r.variable.name, this.leafFor(item, r.variable.name), line);
+    }
+  }
+
+  /**
+   * A write whose value is not known: a BOOL variable or path takes an opaque value (OR the one
+   * it has, when `keep`: the write may not happen); a structure, an array, an instance or a path
+   * with a variable index makes every path under it unknown from here on. True when more than
+   * the one variable may have changed.
+   */
+  writeUnknown(target: string, line: number, item: (name: string) => CannotJudge, keep = false): boolean {
+    const parsed = parsePath(target);
+    if (!parsed) return false;
+    const r = parsed.steps.some((x) => 'variableIndex' in x) ? undefined : this.resolve(target, line);
+    if (r?.ok) {
+      const v = r.variable;
+      if (v.source) return false;
+      if (v.type === '' || v.type.toUpperCase() === 'BOOL') {
+        const value = this.leafFor(item(v.name), v.name);
+        const now = keep ? this.assignedValue(v.name) : undefined;
+        this.assign(v.name, now ? orFolded(now, value) : value, line);
+        return false;
+      }
+      if (isElementary(v.type)) return false;
+      this.writeUnknownUnder(v.name, item(v.name), line);
+      return true;
+    }
+    // A path that does not resolve (a type not declared here): all of its base is unknown; a variable index: all of the array.
+    this.writeUnknownUnder(r ? parsed.base : fixedPrefix(parsed), item(target), line);
+    return true;
   }
 
   isBool(name: string, line: number): boolean {
@@ -146,15 +226,16 @@ export class PouBuilder {
   }
 
   read(name: string, line: number): Expr {
-    const k = key(name);
+    const k = pathKey(name);
     const now = this.env.get(k);
     if (now) return now;
+    for (const [p, item] of this.unknownUnder) if (k.startsWith(`${p}.`) || k.startsWith(`${p}[`)) return this.leafFor(item, name);
     return this.before(name, line, false);
   }
 
   /** The value assigned so far in this scan, if any (no previous-scan leaf is made). */
   assignedValue(name: string): Expr | undefined {
-    return this.env.get(key(name));
+    return this.env.get(pathKey(name));
   }
 
   /**
@@ -164,8 +245,9 @@ export class PouBuilder {
    * outside by its declaration = an input; else undriven.
    */
   private before(name: string, line: number, kept: boolean): Expr {
-    const k = key(name);
+    const k = pathKey(name);
     const d = this.variable(name, line);
+    if (d.source) return this.sourceValue(d, line);
     const scanLocal = d.section === 'temp' || (this.header.kind === 'FUNCTION' && !FROM_OUTSIDE.has(d.section));
     if (d.constant || scanLocal) return this.initialValue(d);
     const written = this.assigned.has(k);
@@ -192,6 +274,26 @@ export class PouBuilder {
     return variable(index, d.name);
   }
 
+  /**
+   * A member of a block instance: a named source, the same leaf until the instance is called
+   * again (or, with `at`, one leaf per place: a block element of a diagram). An input only
+   * when a mapping names it (as an undriven read).
+   */
+  sourceValue(d: ImplVariable, line: number, at?: string): Expr {
+    const source = d.source!;
+    const leafKey = `source:${pathKey(d.name)}#${at ?? this.instanceCalls.get(pathKey(source.instance)) ?? 0}`;
+    let index = this.leafOf.get(leafKey);
+    if (index === undefined) {
+      const what =
+        `${d.name} is a member of the ${kindWord(source.kind)} ${source.instance} (${source.type}), read at ${at ?? `line ${line}`}: ` +
+        "its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one";
+      this.leaves.push({ kind: 'undriven', name: d.name, item: this.cannotJudge(source.kind, what, line) });
+      index = this.leaves.length - 1;
+      this.leafOf.set(leafKey, index);
+    }
+    return variable(index, d.name);
+  }
+
   /** A declared initial value (FALSE when none); one that is not a BOOL literal cannot be judged. */
   private initialValue(d: ImplVariable): Expr {
     if (d.section === 'external' && d.initial === undefined) {
@@ -210,7 +312,7 @@ export class PouBuilder {
   }
 
   assign(name: string, value: Expr, line: number): void {
-    const k = key(name);
+    const k = pathKey(name);
     const d = this.variable(name, line);
     if (d.constant) throw new LineError(line, `${d.name} is a CONSTANT (line ${d.line}) and cannot be assigned`);
     if (!this.lastLine.has(k)) this.assignedOrder.push(k);
@@ -319,6 +421,7 @@ export class PouBuilder {
       language: this.header.language,
       line: this.header.line,
       variables: [...this.header.variables, ...this.undeclared.values()],
+      paths: [...this.paths.values()],
       inputs,
       undriven,
       outputs,

@@ -53,7 +53,31 @@ export interface ImplVariable {
   /** Declared CONSTANT: its initial value (FALSE when none) is all it ever is. */
   readonly constant?: boolean;
   readonly line: number;
+  /**
+   * A member of a function block instance (`tonSync.Q`): its value comes from the block's
+   * own state, not from this scan's inputs. The instance path and its block type.
+   */
+  readonly source?: { readonly kind: CannotJudgeKind; readonly instance: string; readonly type: string };
 }
+
+/**
+ * A type declared with TYPE: a structure (TYPE name : STRUCT ... END_STRUCT, members with
+ * section 'local'), or a name for another type (`alias`: `ARRAY [1..4] OF BOOL`, an enumeration...).
+ */
+export interface StructType {
+  readonly name: string;
+  readonly line: number;
+  readonly members: readonly ImplVariable[];
+  readonly alias?: string;
+}
+
+/**
+ * A FUNCTION of the file as it is inlined where it is called: its result over its VAR_INPUTs,
+ * or why it cannot be (state, globals, VAR_IN_OUT, recursion, something not understood).
+ */
+export type InlineFunction =
+  | { readonly ok: true; readonly name: string; readonly params: readonly ImplVariable[]; readonly inputs: readonly string[]; readonly result: Expr }
+  | { readonly ok: false; readonly name: string; readonly why: string };
 
 export interface ImplOutput {
   /** The assigned variable, as declared. */
@@ -78,6 +102,8 @@ export interface ImplPou {
   readonly language: 'ST' | 'LD' | 'FBD' | 'IL' | 'SFC';
   readonly line: number;
   readonly variables: readonly ImplVariable[];
+  /** Access paths the body reads or writes (`io.bClosed`, `aIn[3]`, `tonSync.Q`), as resolved. */
+  readonly paths: readonly ImplVariable[];
   /** Variables read before the scan assigns them: the inputs of its outputs' expressions. */
   readonly inputs: readonly string[];
   /**
@@ -96,6 +122,8 @@ export interface ImplProgram {
   readonly file: string;
   readonly format: 'st' | 'plcopen';
   readonly pous: readonly ImplPou[];
+  /** The project's structure types and blocks, to resolve a path the mapping names that no body touches. */
+  readonly types?: Pick<ReadContext, 'types' | 'blockTypes' | 'pouVariables'>;
 }
 
 /** What a POU body is read against: its file and what the rest of the project declares. */
@@ -106,4 +134,8 @@ export interface ReadContext {
   readonly blockTypes: ReadonlySet<string>;
   /** Declarations of the project's own POUs (upper-case name): which parameters write back. */
   readonly pouVariables: ReadonlyMap<string, readonly ImplVariable[]>;
+  /** Structure types of the project (upper-case name). */
+  readonly types: ReadonlyMap<string, StructType>;
+  /** A FUNCTION of the project by upper-case name, read for inlining; undefined for any other name. */
+  readonly functionNamed: (name: string) => InlineFunction | undefined;
 }

@@ -31,7 +31,9 @@ import { compareSymbolically, symbolicSpec, type SymbolicSpec } from './verify-w
 import { mapVars, nodeCount, varsOf } from './expr-dag.js';
 import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import type { NameMapping, NamePair } from './mapping.js';
-import type { CannotJudge, ImplOutput, ImplPou, ImplProgram } from './types.js';
+import { LineError } from './line-error.js';
+import { isPath, parsePath, pathKey, resolvePath } from './paths.js';
+import type { CannotJudge, ImplOutput, ImplPou, ImplProgram, ImplVariable } from './types.js';
 
 export type VerifyStatus = 'equal' | 'differs' | 'unchecked' | 'not-found';
 
@@ -94,6 +96,24 @@ export interface OutputVerdict {
   /** Why the output is unchecked or not found. */
   readonly reasons: readonly string[];
   readonly cannotJudge: readonly CannotJudge[];
+  /**
+   * Program values that are no input by their declaration (a member, an array element, a
+   * block's output, a variable never written) taken as spec inputs because the mapping says
+   * so: "tonSync.Q taken as the spec input Sync fault, by mapping (map.csv line 2)". Absent: none.
+   */
+  readonly byMapping?: readonly string[];
+}
+
+/** A mapping pair that cannot be used as written; the outputs it touches are unchecked. */
+export interface MappingProblem {
+  readonly code: 'mapping-unknown-signal' | 'mapping-unknown-variable' | 'mapping-shared-variable' | 'mapping-not-bool' | 'mapping-not-input';
+  /** The mapping's cell or line: "map.csv line 3", "Map!B3". */
+  readonly where: string;
+  readonly message: string;
+  /** Spec signals it concerns: every output of their tables is unchecked. */
+  readonly signals: readonly string[];
+  /** The program variable of a pair whose spec signal is unknown: outputs of POUs that read or write it are unchecked. */
+  readonly program?: string;
 }
 
 export interface VerifyReport {
@@ -106,8 +126,9 @@ export interface VerifyReport {
   readonly unmatchedSpec: readonly string[];
   /** Program inputs and outputs that match no spec signal. */
   readonly unmatchedProgram: readonly string[];
-  /** Mapping pairs that name a spec signal or a program variable that does not exist. */
+  /** The mapping's problems as text ("map.csv line 2: ..."), one per problem of `mappingProblems`. */
   readonly unusedMapping: readonly string[];
+  readonly mappingProblems: readonly MappingProblem[];
   /** Everything in the program that a truth table cannot judge. */
   readonly cannotJudge: readonly CannotJudge[];
   readonly notes: readonly string[];
@@ -129,27 +150,43 @@ export const NO_DIFFERENCE = { mismatchCount: 0, unsafeCount: 0, spuriousTripCou
 
 const same = (a: string, b: string): boolean => a.toLowerCase() === b.toLowerCase();
 
-/** Split "Pou.Var" into its POU and variable; a plain name has no POU. */
-function qualified(name: string): { pou?: string; name: string } {
-  const dot = name.indexOf('.');
-  return dot < 0 || name.startsWith('%') ? { name } : { pou: name.slice(0, dot), name: name.slice(dot + 1) };
+/** A mapping pair with its program side split into a POU (when it starts with a POU's name) and a name or path. */
+interface Mapped {
+  readonly pair: NamePair;
+  readonly pou?: string;
+  readonly name: string;
 }
 
-function pairFor(mapping: NameMapping | undefined, signal: Signal): NamePair | undefined {
-  return mapping?.pairs.find((p) => signalIndex([signal], p.spec) === 0);
+/** The mapping's pairs, each program side read against the program's POU names. */
+function mappedPairs(mapping: NameMapping | undefined, impl: ImplProgram): readonly Mapped[] {
+  return (mapping?.pairs ?? []).map((pair) => {
+    const name = pair.program;
+    const dot = name.indexOf('.');
+    const head = dot < 0 ? '' : name.slice(0, dot);
+    const pou = !name.startsWith('%') && !head.includes('[') && impl.pous.some((p) => same(p.name, head)) ? head : undefined;
+    return pou === undefined ? { pair, name } : { pair, pou, name: name.slice(dot + 1) };
+  });
+}
+
+/** Names and paths compared as ST does: case-insensitive, indices as integers. */
+const samePath = (a: string, b: string): boolean => pathKey(a) === pathKey(b);
+
+const names = (m: Mapped, pou: ImplPou, name: string): boolean => samePath(m.name, name) && (m.pou === undefined || same(m.pou, pou.name));
+
+function pairFor(pairs: readonly Mapped[], signal: Signal): Mapped | undefined {
+  return pairs.find((m) => signalIndex([signal], m.pair.spec) === 0);
 }
 
 /** Does program name `name` (in `pou`) stand for `signal`, by the mapping or by its name? */
-function stands(mapping: NameMapping | undefined, signal: Signal, pou: ImplPou, name: string): boolean {
-  const pair = pairFor(mapping, signal);
-  if (pair) {
-    const q = qualified(pair.program);
-    return same(q.name, name) && (q.pou === undefined || same(q.pou, pou.name));
-  }
+function stands(pairs: readonly Mapped[], signal: Signal, pou: ImplPou, name: string): boolean {
+  const m = pairFor(pairs, signal);
+  if (m) return names(m, pou, name);
   return signalIndex([signal], name) === 0;
 }
 
 export function verifyImplementation(tables: readonly SpecTable[], impl: ImplProgram, mapping?: NameMapping, options: VerifyOptions = {}): VerifyReport {
+  const pairs = mappedPairs(mapping, impl);
+  const problems = mappingProblems(tables, impl, pairs);
   const outputs: OutputVerdict[] = [];
   const inputs: Record<string, readonly Signal[]> = {};
   const usedProgram = new Set<string>();
@@ -159,13 +196,13 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
     inputs[where] = table.inputs;
     const symbolic = table.wide ? symbolicSpec(table) : undefined;
     specOutputs(table).forEach((spec, o) => {
-      const verdict = verifyOutput(table, o, impl, mapping, options, symbolic);
+      const verdict = withMappingProblems(verifyOutput(table, o, impl, pairs, options, symbolic), table, impl, problems);
       outputs.push(verdict);
       if (verdict.variable) usedProgram.add(verdict.variable.toLowerCase());
       if (verdict.status === 'not-found') unmatchedSpec.push(`${where}: output ${spec.signal.header}`);
     });
     table.inputs.forEach((signal) => {
-      const feeds = impl.pous.flatMap((p) => p.inputs.filter((n) => stands(mapping, signal, p, n)).map((n) => `${p.name}.${n}`));
+      const feeds = impl.pous.flatMap((p) => p.inputs.filter((n) => stands(pairs, signal, p, n)).map((n) => `${p.name}.${n}`));
       feeds.forEach((f) => usedProgram.add(f.toLowerCase()));
       if (feeds.length === 0) unmatchedSpec.push(`${where}: input ${signal.header}`);
     });
@@ -185,25 +222,76 @@ export function verifyImplementation(tables: readonly SpecTable[], impl: ImplPro
     inputs,
     unmatchedSpec,
     unmatchedProgram,
-    unusedMapping: mapping ? unusedPairs(tables, impl, mapping) : [],
+    unusedMapping: problems.map((p) => `${p.where}: ${p.message}`),
+    mappingProblems: problems,
     cannotJudge: impl.pous.flatMap((p) => p.cannotJudge),
-    notes: impl.pous.flatMap((p) => p.notes.map((n) => `${p.name}: ${n}`)),
+    notes: [...impl.pous.flatMap((p) => p.notes.map((n) => `${p.name}: ${n}`)), ...outputs.flatMap((o) => (o.byMapping ?? []).map((b) => `${o.output.header}: ${b}`))],
   };
 }
 
-function unusedPairs(tables: readonly SpecTable[], impl: ImplProgram, mapping: NameMapping): string[] {
-  const signals = tables.flatMap((t) => [...t.inputs, ...specOutputs(t).map((o) => o.signal)]);
-  const out: string[] = [];
-  for (const pair of mapping.pairs) {
-    if (signalIndex(signals, pair.spec) < 0) out.push(`${pair.where}: no spec table has a signal '${pair.spec}'`);
-    const q = qualified(pair.program);
-    const known = impl.pous.some(
-      (p) =>
-        (q.pou === undefined || same(q.pou, p.name)) &&
-        (p.inputs.some((n) => same(n, q.name)) || p.variables.some((v) => same(v.name, q.name))),
-    );
-    if (!known) out.push(`${pair.where}: the program has no variable '${pair.program}'`);
+/** The declaration of a name or path in a POU: as the body read it, else resolved against the project's types. */
+function declarationIn(impl: ImplProgram, pou: ImplPou, name: string): ImplVariable | undefined {
+  if (!isPath(name)) return pou.variables.find((v) => same(v.name, name));
+  const read = pou.paths.find((v) => samePath(v.name, name));
+  const parsed = parsePath(name);
+  const base = parsed && pou.variables.find((v) => same(v.name, parsed.base));
+  if (read || !impl.types || !base) return read;
+  try {
+    const r = resolvePath(base, parsed, impl.types, base.line);
+    return r.ok ? r.variable : undefined;
+  } catch (e) {
+    // An index outside the bounds names nothing.
+    if (e instanceof LineError) return undefined;
+    throw e;
   }
+}
+
+function knownIn(impl: ImplProgram, pou: ImplPou, name: string): boolean {
+  return pou.inputs.some((n) => samePath(n, name)) || pou.outputs.some((o) => samePath(o.name, name)) || declarationIn(impl, pou, name) !== undefined;
+}
+
+/**
+ * What in the mapping cannot be used as written: a spec signal no table has, a program
+ * variable no POU has (or, for a path, reads or writes), one variable for two spec signals,
+ * a variable that is not a BOOL. One problem each, at the mapping's cell or line.
+ */
+function mappingProblems(tables: readonly SpecTable[], impl: ImplProgram, pairs: readonly Mapped[]): MappingProblem[] {
+  const inputSignals = tables.flatMap((t) => t.inputs);
+  const signals = [...inputSignals, ...tables.flatMap((t) => specOutputs(t).map((o) => o.signal))];
+  const out: MappingProblem[] = [];
+  pairs.forEach((m, i) => {
+    const { pair } = m;
+    if (signalIndex(signals, pair.spec) < 0) {
+      out.push({ code: 'mapping-unknown-signal', where: pair.where, message: `no spec table has a signal '${pair.spec}'`, signals: [], program: pair.program });
+    }
+    const pous = impl.pous.filter((p) => m.pou === undefined || same(m.pou, p.name));
+    if (!pous.some((p) => knownIn(impl, p, m.name))) {
+      const message = isPath(m.name) ? `the program has no variable, member or element '${pair.program}'` : `the program has no variable '${pair.program}'`;
+      out.push({ code: 'mapping-unknown-variable', where: pair.programWhere, message, signals: [pair.spec] });
+      return;
+    }
+    for (const p of pous) {
+      const d = declarationIn(impl, p, m.name);
+      if (d && d.type !== '' && d.type.trim().toUpperCase() !== 'BOOL') {
+        out.push({ code: 'mapping-not-bool', where: pair.programWhere, message: `'${pair.program}' is ${d.type.trim()} in ${p.name} (line ${d.line}), not BOOL`, signals: [pair.spec] });
+        return;
+      }
+    }
+    const notInput = signalIndex(inputSignals, pair.spec) >= 0 && !pous.some((p) => p.inputs.some((n) => samePath(n, m.name))) ? notAnInput(pous, m.name) : undefined;
+    if (notInput) {
+      out.push({ code: 'mapping-not-input', where: pair.programWhere, message: `'${pair.program}' cannot stand for the spec input '${pair.spec}': ${notInput}`, signals: [pair.spec] });
+      return;
+    }
+    const earlier = pairs.slice(0, i).find((e) => samePath(e.name, m.name) && (e.pou === undefined || m.pou === undefined || same(e.pou, m.pou)));
+    if (earlier) {
+      out.push({
+        code: 'mapping-shared-variable',
+        where: pair.programWhere,
+        message: `spec signals '${earlier.pair.spec}' (${earlier.pair.where}) and '${pair.spec}' (${pair.where}) are both mapped to ${pair.program}`,
+        signals: [earlier.pair.spec, pair.spec],
+      });
+    }
+  });
   return out;
 }
 
@@ -212,11 +300,41 @@ function specOutputs(table: SpecTable): readonly { readonly signal: Signal; read
   return table.wide?.outputs ?? table.outputs;
 }
 
+/**
+ * Why a program name that is no input of any POU cannot be one: the program assigns it, or
+ * reads it only where it is not followed (a block's member in an LD or FBD body). Undefined for a
+ * variable the program declares and does not read (a spec input the program ignores).
+ */
+function notAnInput(pous: readonly ImplPou[], name: string): string | undefined {
+  for (const p of pous) {
+    const out = p.outputs.find((o) => samePath(o.name, name));
+    if (out) return `${p.name} assigns it (line ${out.line}), so it is no input; map what it is assigned from`;
+    if (p.paths.some((v) => samePath(v.name, name))) return `${p.name} reads it only where it does not follow it (a block's member in an ${p.language} body is opaque)`;
+  }
+  return undefined;
+}
+
+/** An output its mapping's problems touch is unchecked, the problems its reasons. */
+function withMappingProblems(v: OutputVerdict, table: SpecTable, impl: ImplProgram, problems: readonly MappingProblem[]): OutputVerdict {
+  const signals = [...table.inputs, ...specOutputs(table).map((o) => o.signal)];
+  const pou = v.variable === undefined ? undefined : impl.pous.find((p) => same(`${p.name}.`, v.variable!.slice(0, p.name.length + 1)));
+  const touching = problems.filter(
+    (p) => p.signals.some((s) => signalIndex(signals, s) >= 0) || (p.program !== undefined && pou !== undefined && knownIn(impl, pou, p.program)),
+  );
+  if (touching.length === 0) return v;
+  return {
+    ...v,
+    status: 'unchecked',
+    ...NO_DIFFERENCE,
+    reasons: [...touching.map((p) => `the mapping cannot be used as written: ${p.where}: ${p.message}`), ...v.reasons],
+  };
+}
+
 function verifyOutput(
   table: SpecTable,
   o: number,
   impl: ImplProgram,
-  mapping: NameMapping | undefined,
+  pairs: readonly Mapped[],
   options: VerifyOptions,
   symbolic: SymbolicSpec | undefined,
 ): OutputVerdict {
@@ -233,8 +351,8 @@ function verifyOutput(
     conflicted: 0,
     cannotJudge: [],
   };
-  const candidates = impl.pous.flatMap((pou) => pou.outputs.filter((out) => stands(mapping, spec.signal, pou, out.name)).map((out) => ({ pou, out })));
-  const pair = pairFor(mapping, spec.signal);
+  const candidates = impl.pous.flatMap((pou) => pou.outputs.filter((out) => stands(pairs, spec.signal, pou, out.name)).map((out) => ({ pou, out })));
+  const pair = pairFor(pairs, spec.signal)?.pair;
   if (candidates.length === 0) {
     const reason = pair
       ? `the mapping (${pair.where}) names ${pair.program}, which no POU assigns`
@@ -250,17 +368,17 @@ function verifyOutput(
   if (!out.expr) {
     return { ...found, status: 'unchecked', cannotJudge: out.cannotJudge, reasons: out.cannotJudge.map((c) => `${c.what} (${c.pou}, line ${c.line})`) };
   }
-  const remapped = toSpecInputs(out, pou, table, mapping);
+  const remapped = toSpecInputs(out, pou, table, pairs);
   if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons, cannotJudge: remapped.cannotJudge };
   if (symbolic) {
     const judged = compareSymbolically(remapped.expr, table, o, options, symbolic);
-    return 'tooLarge' in judged ? { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}): ${judged.tooLarge}`] } : { ...found, ...judged };
+    return 'tooLarge' in judged ? { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}): ${judged.tooLarge}`] } : { ...found, byMapping: remapped.byMapping, ...judged };
   }
   const work = nodeCount(remapped.expr) * Math.ceil(2 ** n / 32);
   if (work > MAX_EVALUATION_WORDS) {
     return { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}) is too large to evaluate over ${n} inputs (${nodeCount(remapped.expr)} distinct operations)`] };
   }
-  return { ...found, ...compare(remapped.expr, table, o, options) };
+  return { ...found, byMapping: remapped.byMapping, ...compare(remapped.expr, table, o, options) };
 }
 
 /**
@@ -271,34 +389,39 @@ function toSpecInputs(
   out: ImplOutput,
   pou: ImplPou,
   table: SpecTable,
-  mapping: NameMapping | undefined,
-): { ok: true; expr: Expr } | { ok: false; reasons: string[]; cannotJudge: CannotJudge[] } {
+  pairs: readonly Mapped[],
+): { ok: true; expr: Expr; byMapping: string[] } | { ok: false; reasons: string[]; cannotJudge: CannotJudge[] } {
   const index: number[] = [];
   const reasons: string[] = [];
   const cannotJudge: CannotJudge[] = [];
-  const undriven = new Map(pou.undriven.map((u) => [u.name.toLowerCase(), u.item]));
-  const mapped = (name: string): boolean =>
-    mapping?.pairs.some((p) => {
-      const q = qualified(p.program);
-      return same(q.name, name) && (q.pou === undefined || same(q.pou, pou.name));
-    }) ?? false;
+  const undriven = new Map(pou.undriven.map((u) => [pathKey(u.name), u.item]));
+  const mapped = (name: string): boolean => pairs.some((m) => names(m, pou, name));
   pou.inputs.forEach((name, j) => {
-    const matches = table.inputs.map((s, i) => (stands(mapping, s, pou, name) ? i : -1)).filter((i) => i >= 0);
+    const matches = table.inputs.map((s, i) => (stands(pairs, s, pou, name) ? i : -1)).filter((i) => i >= 0);
     if (matches.length > 1) reasons.push(`${name} stands for more than one spec input (${matches.map((i) => table.inputs[i]!.header).join(', ')})`);
     index[j] = matches.length === 1 ? matches[0]! : -1;
   });
-  for (const j of varsOf(out.expr!)) {
+  const used = varsOf(out.expr!);
+  const byMapping = new Set<string>();
+  for (const j of used) {
     const name = pou.inputs[j]!;
-    const item = undriven.get(name.toLowerCase());
+    const item = undriven.get(pathKey(name));
     if (item && !mapped(name)) {
       reasons.push(`${item.what} (${item.pou}, line ${item.line})`);
       cannotJudge.push(item);
     } else if (index[j] === -1 && !reasons.some((r) => r.startsWith(`${name} `))) {
       reasons.push(`${out.name} uses ${name}, which matches no input of the spec table (map it in a mapping table)`);
+    } else if (used.some((k) => k < j && samePath(pou.inputs[k]!, name))) {
+      reasons.push(
+        `${out.name} reads ${name} before and after its block is called (two values in one scan): one spec input cannot stand for both`,
+      );
+    } else if (index[j] !== -1 && (item || isPath(name)) && mapped(name)) {
+      const signal = table.inputs[index[j]!]!;
+      byMapping.add(`${name} taken as the spec input ${signal.header}, by mapping (${pairFor(pairs, signal)!.pair.where})`);
     }
   }
   if (reasons.length > 0) return { ok: false, reasons, cannotJudge };
-  return { ok: true, expr: mapVars(out.expr!, (v) => variable(index[v.input]!, table.inputs[index[v.input]!]!.identifier)) };
+  return { ok: true, expr: mapVars(out.expr!, (v) => variable(index[v.input]!, table.inputs[index[v.input]!]!.identifier)), byMapping: [...byMapping] };
 }
 
 function compare(

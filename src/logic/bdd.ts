@@ -202,12 +202,21 @@ export class Dd {
   }
 
   orAll(fs: readonly Node[]): Node {
-    // Pairwise, so that the intermediate diagrams stay balanced.
+    return this.pairwise(OR, fs);
+  }
+
+  /** XOR of many (a long XOR form: a chain grows one large diagram term by term). */
+  xorAll(fs: readonly Node[]): Node {
+    return this.pairwise(XOR, fs);
+  }
+
+  /** Pairwise, so that the intermediate diagrams stay balanced. */
+  private pairwise(op: number, fs: readonly Node[]): Node {
     let layer = [...fs];
     if (layer.length === 0) return FALSE;
     while (layer.length > 1) {
       const next: Node[] = [];
-      for (let i = 0; i < layer.length; i += 2) next.push(i + 1 < layer.length ? this.or(layer[i]!, layer[i + 1]!) : layer[i]!);
+      for (let i = 0; i < layer.length; i += 2) next.push(i + 1 < layer.length ? this.apply(op, layer[i]!, layer[i + 1]!) : layer[i]!);
       layer = next;
     }
     return layer[0]!;

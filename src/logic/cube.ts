@@ -37,11 +37,25 @@ export function cubeMembers(n: number, c: Cube): Combination[] {
 }
 
 export function cubeToSet(n: number, c: Cube, into: BitSet = emptySet(n)): BitSet {
-  const free = ((1 << n) - 1) & ~c.mask;
+  if (n < 5) {
+    const free = ((1 << n) - 1) & ~c.mask;
+    let sub = 0;
+    do {
+      add(into, c.bits | sub);
+      sub = (sub - free) & free;
+    } while (sub !== 0);
+    return into;
+  }
+  // A word at a time: the low 5 inputs give one in-word pattern, the others pick the words
+  // (a row with one literal at 24 inputs is 8 M combinations, 256 K words).
+  let pattern = 0;
+  for (let j = 0; j < 32; j++) if ((j & c.mask & 31) === (c.bits & 31)) pattern |= 1 << j;
+  const freeWords = ((1 << (n - 5)) - 1) & ~(c.mask >>> 5);
+  const base = c.bits >>> 5;
   let sub = 0;
   do {
-    add(into, c.bits | sub);
-    sub = (sub - free) & free;
+    into[base | sub]! |= pattern;
+    sub = (sub - freeWords) & freeWords;
   } while (sub !== 0);
   return into;
 }

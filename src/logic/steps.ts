@@ -39,56 +39,103 @@ export interface TestStep {
 export function uniqueCauseSteps(cubes: readonly Cube[], fn: BoolFunction, signals?: readonly Signal[]): TestStep[] {
   const n = fn.n;
   const names = signals ?? Array.from({ length: n }, (_, i) => ({ header: `input ${i + 1}`, identifier: `I${i + 1}` }));
-  const off = offSet(fn);
-  const steps = new StepList();
-  if (cubes.length === 0) {
-    const [k] = members(off, 1);
+  const sets: StepSets<BitSet, Combination> = {
+    on: fn.on,
+    off: offSet(fn),
+    none: emptySet(n),
+    term: (j) => truthTable(sopToExpr([cubes[j]!], names), n),
+    or: union,
+    and: intersect,
+    minus,
+    isEmpty,
+    first: (set) => members(set, 1)[0],
+    has,
+    flipInput: (set, input) => flipBit(set, n - 1 - input),
+    flip: (k, input) => k ^ (1 << (n - 1 - input)),
+  };
+  const terms = cubes.map((c): StepTerm => {
+    const inputs: number[] = [];
+    for (let i = 0; i < n; i++) if (c.mask & (1 << (n - 1 - i))) inputs.push(i);
+    return { inputs, flippedTo: (i) => (c.bits & (1 << (n - 1 - i)) ? 0 : 1), text: printSt(sopToExpr([c], names)) };
+  });
+  return causeSteps(sets, terms, names);
+}
+
+/** The set operations the steps need, over bit sets (here) or BDDs (wide-steps.ts); K a combination. */
+export interface StepSets<S, K> {
+  /** The function's ON and OFF combinations (don't-cares are neither). */
+  readonly on: S;
+  readonly off: S;
+  readonly none: S;
+  /** The combinations of term j. */
+  term(j: number): S;
+  or(a: S, b: S): S;
+  and(a: S, b: S): S;
+  minus(a: S, b: S): S;
+  isEmpty(set: S): boolean;
+  /** The smallest combination of the set. */
+  first(set: S): K | undefined;
+  has(set: S, k: K): boolean;
+  /** The combinations k for which k with the input flipped is in the set. */
+  flipInput(set: S, input: number): S;
+  /** k with the input flipped. */
+  flip(k: K, input: number): K;
+}
+
+/** A product term as the steps see it: its inputs (leftmost first), the value each flips to, its text. */
+export interface StepTerm {
+  readonly inputs: readonly number[];
+  flippedTo(input: number): 0 | 1;
+  readonly text: string;
+}
+
+/** `uniqueCauseSteps` over any set representation: the same operations give the same steps. */
+export function causeSteps<S, K>(sets: StepSets<S, K>, terms: readonly StepTerm[], names: readonly Signal[]): { combination: K; expected: 0 | 1; reason: string }[] {
+  const steps = new StepList<K>();
+  if (terms.length === 0) {
+    const k = sets.first(sets.off);
     if (k !== undefined) steps.add(k, 0, 'no product term: the output is never on');
     return steps.list();
   }
-  const termSets = cubes.map((c) => truthTable(sopToExpr([c], names), n));
-  const others = unionOfOthers(termSets, n);
-  const offFlipped = new Map<number, BitSet>();
-  const offIfFlipped = (input: number): BitSet => {
+  const termSets = terms.map((_, j) => sets.term(j));
+  const others = unionOfOthers(sets, termSets);
+  const offFlipped = new Map<number, S>();
+  const offIfFlipped = (input: number): S => {
     let set = offFlipped.get(input);
-    if (!set) offFlipped.set(input, (set = flipInput(off, n, input)));
+    if (set === undefined) offFlipped.set(input, (set = sets.flipInput(sets.off, input)));
     return set;
   };
 
-  cubes.forEach((c, j) => {
+  terms.forEach((t, j) => {
     const term = `term ${j + 1}`;
-    const text = printSt(sopToExpr([c], names));
-    const onInTerm = intersect(termSets[j]!, fn.on);
-    const alone = minus(onInTerm, others[j]!);
-    const literals = inputsOf(c, n);
+    const onInTerm = sets.and(termSets[j]!, sets.on);
+    const alone = sets.minus(onInTerm, others[j]!);
     // Prefer an ON combination from which every single-literal flip lands on a specified OFF.
     let best = alone;
-    for (const i of literals) {
-      const narrower = intersect(best, offIfFlipped(i));
-      if (!isEmpty(narrower)) best = narrower;
+    for (const i of t.inputs) {
+      const narrower = sets.and(best, offIfFlipped(i));
+      if (!sets.isEmpty(narrower)) best = narrower;
     }
-    const [k] = members(isEmpty(best) ? onInTerm : best, 1);
+    const k = sets.first(sets.isEmpty(best) ? onInTerm : best);
     if (k === undefined) return; // the term covers only don't-cares: nothing to test
-    const isAlone = has(alone, k);
-    const onReason = isAlone ? `${term} alone: ${text}` : `${term} (other terms are true with it on every specified combination): ${text}`;
+    const isAlone = sets.has(alone, k);
+    const onReason = isAlone ? `${term} alone: ${t.text}` : `${term} (other terms are true with it on every specified combination): ${t.text}`;
     const untestable: string[] = [];
-    const pairs: [Combination, 0 | 1, string][] = [];
-    for (const i of literals) {
-      const bit = 1 << (n - 1 - i);
-      const flippedTo = c.bits & bit ? 0 : 1;
-      const offReason = `${term} with ${names[i]!.identifier} = ${flippedTo}: output off`;
-      if (has(offIfFlipped(i), k)) {
-        pairs.push([k ^ bit, 0, offReason]);
+    const pairs: [K, 0 | 1, string][] = [];
+    for (const i of t.inputs) {
+      const offReason = `${term} with ${names[i]!.identifier} = ${t.flippedTo(i)}: output off`;
+      if (sets.has(offIfFlipped(i), k)) {
+        pairs.push([sets.flip(k, i), 0, offReason]);
         continue;
       }
-      const [other] = members(intersect(alone, offIfFlipped(i)), 1);
-      const [any] = other === undefined ? members(intersect(onInTerm, offIfFlipped(i)), 1) : [other];
+      const other = sets.first(sets.and(alone, offIfFlipped(i)));
+      const any = other === undefined ? sets.first(sets.and(onInTerm, offIfFlipped(i))) : other;
       if (any === undefined) {
         untestable.push(names[i]!.identifier);
         continue;
       }
-      pairs.push([any, 1, has(alone, any) ? `${term} alone: ${text}` : `${term} with other terms: ${text}`]);
-      pairs.push([any ^ bit, 0, offReason]);
+      pairs.push([any, 1, sets.has(alone, any) ? `${term} alone: ${t.text}` : `${term} with other terms: ${t.text}`]);
+      pairs.push([sets.flip(any, i), 0, offReason]);
     }
     const note = untestable.length
       ? `; flipping ${untestable.join(', ')} alone never turns the output off on a specified combination`
@@ -109,46 +156,33 @@ export function fullTableSteps(fn: BoolFunction): TestStep[] {
 }
 
 /** Steps unique by combination, reasons merged, in the order first added. */
-class StepList {
-  private readonly byCombination = new Map<Combination, { expected: 0 | 1; reasons: string[] }>();
+class StepList<K> {
+  private readonly byCombination = new Map<K, { expected: 0 | 1; reasons: string[] }>();
 
-  add(combination: Combination, expected: 0 | 1, reason: string): void {
+  add(combination: K, expected: 0 | 1, reason: string): void {
     const step = this.byCombination.get(combination);
     if (!step) this.byCombination.set(combination, { expected, reasons: [reason] });
     else if (!step.reasons.includes(reason)) step.reasons.push(reason);
   }
 
-  list(): TestStep[] {
+  list(): { combination: K; expected: 0 | 1; reason: string }[] {
     return [...this.byCombination].map(([combination, s]) => ({ combination, expected: s.expected, reason: s.reasons.join('; ') }));
   }
 }
 
-/** Inputs a cube has a literal for, leftmost first. */
-function inputsOf(c: Cube, n: number): number[] {
-  const out: number[] = [];
-  for (let i = 0; i < n; i++) if (c.mask & (1 << (n - 1 - i))) out.push(i);
-  return out;
-}
-
 /** For each set, the union of all the others (prefix and suffix unions: linear in the count). */
-function unionOfOthers(sets: readonly BitSet[], n: number): BitSet[] {
-  const before: BitSet[] = [];
-  let acc = emptySet(n);
-  for (const s of sets) {
+function unionOfOthers<S, K>(sets: StepSets<S, K>, terms: readonly S[]): S[] {
+  const before: S[] = [];
+  let acc = sets.none;
+  for (const t of terms) {
     before.push(acc);
-    acc = union(acc, s);
+    acc = sets.or(acc, t);
   }
-  const out: BitSet[] = new Array(sets.length);
-  acc = emptySet(n);
-  for (let j = sets.length - 1; j >= 0; j--) {
-    out[j] = union(before[j]!, acc);
-    acc = union(acc, sets[j]!);
+  const out: S[] = new Array<S>(terms.length);
+  acc = sets.none;
+  for (let j = terms.length - 1; j >= 0; j--) {
+    out[j] = sets.or(before[j]!, acc);
+    acc = sets.or(acc, terms[j]!);
   }
   return out;
-}
-
-/** Within-word swap masks for bit positions 0..4 of a combination. */
-/** The combinations k for which k with input i flipped is in the set. */
-function flipInput(set: BitSet, n: number, input: number): BitSet {
-  return flipBit(set, n - 1 - input);
 }

@@ -32,7 +32,7 @@ export function exprToBdd(dd: Dd, expr: Expr): Node {
     } else if (x.kind === 'not') f = dd.not(values.get(x.arg)!);
     else {
       const args = x.args.map((a) => values.get(a)!);
-      f = x.kind === 'and' ? args.reduce((g, a) => dd.and(g, a), TRUE) : x.kind === 'or' ? dd.orAll(args) : args.reduce((g, a) => dd.xor(g, a), FALSE);
+      f = x.kind === 'and' ? args.reduce((g, a) => dd.and(g, a), TRUE) : x.kind === 'or' ? dd.orAll(args) : dd.xorAll(args);
     }
     values.set(x, f);
   }

@@ -226,7 +226,7 @@ function programView(report: VerifyReport): CheckView {
     lists: [
       { title: 'Spec signals not matched to the program', items: report.unmatchedSpec },
       { title: 'Program variables not matched to the spec', items: report.unmatchedProgram },
-      { title: 'Mapping entries not used', items: report.unusedMapping },
+      { title: 'Mapping entries that cannot be used (the outputs they touch are UNCHECKED)', items: report.unusedMapping },
       { title: 'What a truth table cannot judge (combinational logic only)', items: report.cannotJudge.map((c) => `${c.pou} line ${c.line}: ${kindWord(c.kind)}: ${c.what}`) },
       { title: 'Notes', items: report.notes },
     ],

@@ -19,6 +19,7 @@ export function verifyReportJson(report: VerifyReport): unknown {
       cell: o.cell,
       status: o.status,
       ...(o.variable ? { variable: o.variable, line: o.line } : {}),
+      ...(o.byMapping && o.byMapping.length > 0 ? { byMapping: o.byMapping } : {}),
       combinations: o.combinations,
       mismatchCount: o.mismatchCount,
       unsafeCount: o.unsafeCount,
@@ -37,6 +38,7 @@ export function verifyReportJson(report: VerifyReport): unknown {
     unmatchedSpec: report.unmatchedSpec,
     unmatchedProgram: report.unmatchedProgram,
     unusedMapping: report.unusedMapping,
+    mappingProblems: report.mappingProblems,
     cannotJudge: report.cannotJudge,
     notes: report.notes,
   });
@@ -69,7 +71,7 @@ export function verifyReportText(report: VerifyReport): string {
   };
   list('Spec signals not matched to the program:', report.unmatchedSpec);
   list('Program variables not matched to the spec:', report.unmatchedProgram);
-  list('Mapping entries not used:', report.unusedMapping);
+  list('Mapping entries that cannot be used (the outputs they touch are UNCHECKED):', report.unusedMapping);
   list(
     'What a truth table cannot judge (combinational logic only):',
     report.cannotJudge.map((c) => `${c.pou} line ${c.line}: ${kindWord(c.kind)}: ${c.what}`),

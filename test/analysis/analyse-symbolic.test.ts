@@ -51,7 +51,7 @@ describe('the symbolic engine in the bit-set types', () => {
 
   // 20 to 24 inputs, where the symbolic engine is the default: both paths give one resolved function.
   const sparse = fc.constantFrom<CellValue>(1, 0, ...Array.from({ length: 14 }, () => '-' as const));
-  it("resolves the don't-cares at the safe value into the function the bit-set path resolves, at 20 to 24 inputs (property)", () => {
+  it("resolves the don't-cares at the safe value into the function the bit-set path resolves and gives its test steps, at 20 to 24 inputs (property)", () => {
     fc.assert(
       fc.property(tablesOf(SYMBOLIC_FROM_INPUTS, 24, 4, 'safe', sparse), (t) => {
         const ours = analyseTable(t);
@@ -62,6 +62,8 @@ describe('the symbolic engine in the bit-set types', () => {
           expect(equals(o.resolved.on, b.resolved.on)).toBe(true);
           // The plain XOR form is determined by the function; best polarity searches differ past 16 inputs.
           expect([o.permitsAlsoCount, o.xor.terms, o.xor.text]).toEqual([b.permitsAlsoCount, b.xor.terms, b.xor.text]);
+          // Test steps from the BDDs: the bit-set path's steps for the same form.
+          if (o.andOr.text === b.andOr.text) expect(o.steps).toEqual(b.steps);
         });
       }),
       { numRuns: 6 },

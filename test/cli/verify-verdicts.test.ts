@@ -179,3 +179,98 @@ describe('verify: gaps are judged at the safe value', () => {
     expect(doc.outputs[0]).toMatchObject({ status: 'equal', gaps: { judged: false, unsafe: 2 } });
   });
 });
+
+describe('verify: structure members, block outputs and the mapping', () => {
+  const SYNC_SPEC = 'input;input;output\nSSOV1 closed;Sync fault;Valve permit\n0;0;0\n0;1;0\n1;0;1\n1;1;0\n';
+  const syncProgram = {
+    name: 'sync.st',
+    text: `TYPE ST_IO : STRUCT
+  bSSOV1Closed : BOOL;
+  bSSOV2Closed : BOOL;
+END_STRUCT; END_TYPE
+VAR_GLOBAL io : ST_IO; END_VAR
+PROGRAM Valves
+VAR_EXTERNAL io : ST_IO; END_VAR
+VAR_OUTPUT bValvePermit : BOOL; END_VAR
+VAR tonSync : TON; bSyncFault : BOOL; END_VAR
+tonSync(IN := io.bSSOV1Closed XOR io.bSSOV2Closed, PT := T#2s);
+bSyncFault := tonSync.Q;
+bValvePermit := io.bSSOV1Closed AND NOT bSyncFault;
+END_PROGRAM
+`,
+  };
+  const run = async (map: string, ...more: string[]) => {
+    const f = files(syncProgram, SYNC_SPEC, map);
+    return runCli('verify', f.spec, '--impl', f.impl, '--map', f.map!, ...more);
+  };
+
+  it('a structure member and a timer output mapped to spec inputs: equal, and the result says the timer output was taken by mapping', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync.Q\n');
+    expect(r.code).toBe(0);
+    expect(r.out).toContain('EQUAL  Valve permit [spec!C2] = Valves.bValvePermit (line 12)');
+    expect(r.out).toContain('Valve permit: tonSync.Q taken as the spec input Sync fault, by mapping (map.csv line 3)');
+    expect(r.out).not.toContain('has no variable');
+  });
+
+  it('the JSON says per output which program expressions were taken as spec inputs by mapping', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync.Q\n', '--json');
+    const [out] = JSON.parse(r.out).outputs;
+    expect(out.byMapping).toContain('tonSync.Q taken as the spec input Sync fault, by mapping (map.csv line 3)');
+  });
+
+  it('the JSON lists each mapping problem with its code and line', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync\n', '--json');
+    expect(JSON.parse(r.out).mappingProblems).toEqual([expect.objectContaining({ code: 'mapping-not-bool', where: 'map.csv line 3' })]);
+  });
+
+  it('the timer output left unmapped: unchecked, saying it may be mapped, and the member is not reported missing', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+    expect(r.out).toContain(
+      "tonSync.Q is a member of the timer tonSync (TON), read at line 11: its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one (Valves, line 11)",
+    );
+    expect(r.out).not.toContain('has no variable');
+  });
+
+  it('a mapping that names an unknown spec signal: one problem at its line, the outputs reading its variable unchecked', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync falt,tonSync.Q\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain('Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: no spec table has a signal \'Sync falt\'\n');
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+    expect(r.out).toContain("  the mapping cannot be used as written: map.csv line 3: no spec table has a signal 'Sync falt'");
+  });
+
+  it('a mapping that names an unknown program variable: one problem at its line, the outputs of the table unchecked', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSnyc.Q\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain("Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: the program has no variable, member or element 'tonSnyc.Q'\n");
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+  });
+
+  it('two spec signals mapped to one variable: one problem naming both lines, the outputs unchecked', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,io.bSSOV1Closed\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain(
+      "Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: spec signals 'SSOV1 closed' (map.csv line 2) and 'Sync fault' (map.csv line 3) are both mapped to io.bSSOV1Closed\n",
+    );
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+    expect(r.out).not.toContain('EQUAL');
+  });
+
+  it('a mapping to a variable that is not a BOOL: one problem naming its type and line, the outputs unchecked', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,tonSync\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain("Mapping entries that cannot be used (the outputs they touch are UNCHECKED):\n  map.csv line 3: 'tonSync' is TON in Valves (line 9), not BOOL\n");
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+  });
+
+  it('a spec input mapped to a variable the program assigns: one problem, the outputs unchecked', async () => {
+    const r = await run('Valve permit,bValvePermit\nSSOV1 closed,io.bSSOV1Closed\nSync fault,bSyncFault\n');
+    expect(r.code).toBe(1);
+    expect(r.out).toContain(
+      "map.csv line 3: 'bSyncFault' cannot stand for the spec input 'Sync fault': Valves assigns it (line 11), so it is no input; map what it is assigned from",
+    );
+    expect(r.out).toContain('UNCHECKED  Valve permit');
+  });
+});

@@ -7,6 +7,8 @@ export type BExpr =
   | { readonly k: 'ref'; readonly name: string }
   /** An output of a function block or timer instance: `Inst.Q`. */
   | { readonly k: 'member'; readonly inst: string; readonly field: string }
+  /** A call of a FUNCTION of the program, arguments by position: `Fn1(a, b)`. */
+  | { readonly k: 'fcall'; readonly fn: string; readonly args: readonly BExpr[] }
   | { readonly k: 'not'; readonly a: BExpr }
   | { readonly k: 'and' | 'or' | 'xor'; readonly args: readonly BExpr[] };
 
@@ -56,7 +58,8 @@ export interface Action {
 }
 
 export interface Pou {
-  readonly kind: 'PROGRAM' | 'FUNCTION_BLOCK';
+  /** A FUNCTION returns BOOL: the value its body assigns to its name. */
+  readonly kind: 'PROGRAM' | 'FUNCTION_BLOCK' | 'FUNCTION';
   readonly name: string;
   readonly blocks: readonly VarBlock[];
   readonly actions: readonly Action[];
@@ -72,7 +75,7 @@ export interface Pou {
 export type Feature = string;
 
 export interface Program {
-  /** Function blocks first, the PROGRAM last. */
+  /** Functions and function blocks first, the PROGRAM last. */
   readonly pous: readonly Pou[];
   readonly format: 'st' | 'xml';
   /** PLCopen only: ST bodies as one text, or as text mixed with <p> and <br/> elements. */
@@ -80,6 +83,14 @@ export interface Program {
   /** Seed of the split of body lines into <p>/<br/> pieces (mixed only). */
   readonly mixSeed: number;
   readonly features: readonly Feature[];
+  /**
+   * Spec inputs the PROGRAM reads as a structure member (`io.Jog`) or an array element
+   * (`aIn[2]`) instead of a VAR_INPUT of their name: spec input -> path as printed. The
+   * implementation check is then given a mapping of these pairs.
+   */
+  readonly inputPaths?: Readonly<Record<string, string>>;
+  /** The structure type the members belong to (TYPE ... STRUCT of BOOL members). */
+  readonly struct?: { readonly name: string; readonly members: readonly string[] };
 }
 
 export const TRUE_E: BExpr = { k: 'const', v: true };

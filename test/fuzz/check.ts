@@ -2,10 +2,11 @@
 // the program file by readImplementation, then verifyImplementation), judged against the
 // interpreter. A contradiction: an EQUAL the interpreter does not confirm, or a DIFFERS whose
 // listed counterexample it does not confirm, or a valid program the reader rejects.
+import { readMappingCsv, type NameMapping } from '../../src/impl/mapping.js';
 import { readImplementation } from '../../src/impl/read.js';
 import { verifyImplementation, type OutputVerdict } from '../../src/impl/verify.js';
 import { readSpecTables } from '../../src/table/read-tables.js';
-import type { FuzzCase } from './generate.js';
+import { eachExpr, refsOf, type FuzzCase } from './generate.js';
 import { expectedVerdicts, TooManyStates, type Expected } from './interpreter.js';
 import { programFile } from './print.js';
 import { combinationOf, inputValues, safeValues, specGrid } from './spec.js';
@@ -85,7 +86,7 @@ export function judge(c: FuzzCase): CaseResult {
   if (!impl.ok) {
     return { contradictions: [{ kind: 'rejected', output: '', product: impl.error.message, interpreter: 'a valid program' }], verdicts: [], uncheckedKnown: 0, skipped: false };
   }
-  const report = verifyImplementation([table], impl.value);
+  const report = verifyImplementation([table], impl.value, mappingOf(c));
   const contradictions: Contradiction[] = [];
   const verdicts: string[] = [];
   let uncheckedKnown = 0;
@@ -99,6 +100,17 @@ export function judge(c: FuzzCase): CaseResult {
     else if ((v.status === 'unchecked' || v.status === 'not-found') && e.verdict !== 'state') uncheckedKnown++;
   });
   return { contradictions, verdicts, uncheckedKnown, skipped: false };
+}
+
+/** The mapping the generator's member and element inputs need: one pair per one the program reads. */
+function mappingOf(c: FuzzCase): NameMapping | undefined {
+  const read = new Set<string>();
+  eachExpr(c.program.pous, (e) => (refsOf(e, read), e));
+  const lines = Object.entries(c.program.inputPaths ?? {}).filter(([, path]) => [...read].some((r) => lowName(r) === lowName(path)));
+  if (lines.length === 0) return undefined;
+  const map = readMappingCsv('fuzz-map.csv', lines.map(([input, path]) => `${input},${path}`).join('\n'));
+  if (!map.ok) throw new Error(`the fuzz wrote a mapping the product does not read: ${map.error.message}`);
+  return map.value;
 }
 
 const lowName = (s: string): string => s.toLowerCase();

@@ -21,6 +21,8 @@ export function mapRefs(e: BExpr, f: (name: string) => BExpr): BExpr {
       return f(e.name);
     case 'not':
       return notE(mapRefs(e.a, f));
+    case 'fcall':
+      return { ...e, args: e.args.map((a) => mapRefs(a, f)) };
     case 'and':
     case 'or':
     case 'xor':
@@ -33,7 +35,7 @@ export function mapRefs(e: BExpr, f: (name: string) => BExpr): BExpr {
 export function refsOf(e: BExpr, into: Set<string> = new Set()): Set<string> {
   if (e.k === 'ref') into.add(e.name);
   else if (e.k === 'not') refsOf(e.a, into);
-  else if (e.k === 'and' || e.k === 'or' || e.k === 'xor') e.args.forEach((a) => refsOf(a, into));
+  else if (e.k === 'and' || e.k === 'or' || e.k === 'xor' || e.k === 'fcall') e.args.forEach((a) => refsOf(a, into));
   return into;
 }
 
@@ -420,6 +422,75 @@ export function generateCase(seed: number): FuzzCase {
   const mixed = xml && rng.chance(0.5);
   if (xml) b.features.add('xml');
   if (mixed) b.features.add('mixed-xhtml');
-  const program: Program = { pous, format: xml ? 'xml' : 'st', xhtml: mixed ? 'mixed' : 'plain', mixSeed: rng.seed(), features: [...b.features].sort() };
+  const mixSeed = rng.seed();
+  // Its own generator, so that the cases of a seed stay what they were before this style.
+  const paths = new Prng(seed ^ 0x2545f491);
+  const read: { pous: Pou[]; extra?: Pick<Program, 'inputPaths' | 'struct'> } = paths.chance(0.25) ? inputsAsPaths(paths, pous, b.features) : { pous };
+  if (paths.chance(0.2)) read.pous = asFunctions(paths, read.pous, b.features);
+  const program: Program = { pous: read.pous, format: xml ? 'xml' : 'st', xhtml: mixed ? 'mixed' : 'plain', mixSeed, features: [...b.features].sort(), ...read.extra };
   return { seed, spec, program };
+}
+
+/**
+ * Some spec inputs read by the PROGRAM as members of a structure `io` or elements of an array
+ * `aIn` (both VAR_INPUT) instead of plain VAR_INPUTs; the check maps them to the spec inputs.
+ */
+/**
+ * Some top-level assignments of the PROGRAM written as a call of a FUNCTION of the program
+ * (`y := Fn1(a, b);`, the function `Fn1 := X1 AND NOT X2;` over its VAR_INPUTs).
+ */
+function asFunctions(rng: Prng, pous: Pou[], features: Set<Feature>): Pou[] {
+  const main = pous[pous.length - 1]!;
+  const fns: Pou[] = [];
+  const body = main.body.map((s): Stmt => {
+    if (s.k !== 'assign' || !rng.chance(0.5)) return s;
+    const names = [...new Map([...refsOf(s.value)].map((n) => [low(n), n])).values()];
+    if (names.length === 0) return s;
+    const fn = `Fn${fns.length + 1}`;
+    const param = new Map(names.map((n, i) => [low(n), `X${i + 1}`]));
+    fns.push({
+      kind: 'FUNCTION',
+      name: fn,
+      blocks: [{ section: 'VAR_INPUT', decls: names.map((_, i) => ({ name: `X${i + 1}`, type: 'BOOL' })) }],
+      actions: [],
+      body: [{ k: 'assign', target: fn, value: mapRefs(s.value, (n) => ref(param.get(low(n))!)) }],
+    });
+    return { ...s, value: { k: 'fcall', fn, args: names.map((n) => ref(n)) } };
+  });
+  if (fns.length === 0) return pous;
+  features.add('function');
+  return [...fns, ...pous.slice(0, -1), { ...main, body }];
+}
+
+function inputsAsPaths(rng: Prng, pous: Pou[], features: Set<Feature>): { pous: Pou[]; extra?: Pick<Program, 'inputPaths' | 'struct'> } {
+  const main = pous[pous.length - 1]!;
+  const inputs = main.blocks.find((b) => b.section === 'VAR_INPUT');
+  if (!inputs) return { pous };
+  const members: string[] = [];
+  const elements: string[] = [];
+  for (const d of inputs.decls) {
+    const r = rng.next();
+    if (r < 0.4) members.push(d.name);
+    else if (r < 0.8) elements.push(d.name);
+  }
+  if (members.length + elements.length === 0) return { pous };
+  if (members.length > 0) features.add('member-input');
+  if (elements.length > 0) features.add('element-input');
+  const offset = rng.int(0, 2);
+  const pathOf = (name: string): string | undefined => {
+    const m = members.find((x) => low(x) === low(name));
+    if (m !== undefined) return `io.${name}`;
+    const e = elements.findIndex((x) => low(x) === low(name));
+    return e >= 0 ? `aIn[${e + offset}]` : undefined;
+  };
+  const kept = inputs.decls.filter((d) => pathOf(d.name) === undefined);
+  const declared: Decl[] = [
+    ...kept,
+    ...(members.length > 0 ? [{ name: 'io', type: 'ST_FuzzIn' }] : []),
+    ...(elements.length > 0 ? [{ name: 'aIn', type: `ARRAY [${offset}..${offset + elements.length - 1}] OF BOOL` }] : []),
+  ];
+  const blocks = main.blocks.map((b) => (b === inputs ? { ...b, decls: declared } : b));
+  const [rewritten] = eachExpr([{ ...main, blocks }], (e) => mapRefs(e, (name) => ref(pathOf(name) ?? name)));
+  const inputPaths = Object.fromEntries([...members, ...elements].map((name) => [name, pathOf(name)!]));
+  return { pous: [...pous.slice(0, -1), rewritten!], extra: { inputPaths, ...(members.length > 0 ? { struct: { name: 'ST_FuzzIn', members } } : {}) } };
 }

@@ -44,7 +44,7 @@ describe('fuzz generator', () => {
 
   it('uses every style over a run of seeds, in both file formats', () => {
     const seen = new Set(cases.flatMap((c) => c.program.features));
-    for (const f of ['constant', 'init-local', 'locals', 'temp', 'if', 'case', 'fb', 'in-out', 'action', 'last-wins', 'timer', 'seal-in', 'mutated', 'xml', 'mixed-xhtml', 'constant-as-input']) {
+    for (const f of ['constant', 'init-local', 'locals', 'temp', 'if', 'case', 'fb', 'in-out', 'action', 'last-wins', 'timer', 'seal-in', 'mutated', 'xml', 'mixed-xhtml', 'constant-as-input', 'member-input', 'element-input', 'function']) {
       expect(seen, f).toContain(f);
     }
     expect(cases.some((c) => c.program.format === 'st')).toBe(true);

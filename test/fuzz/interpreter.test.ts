@@ -53,6 +53,24 @@ describe('fuzz interpreter: one scan of a program', () => {
     expect(column(program([set('y', xor(or(a, b), TRUE_E))]))).toEqual([1, 0, 0, 0]);
   });
 
+  it('reads a spec input the program holds as a member or an element at that location', () => {
+    // a is io.a and b is aIn[1]: y = io.a AND NOT aIn[1] = a AND NOT b: 0, 0, 1, 0
+    const p = program([set('y', and(ref('io.a'), notE(ref('aIn[1]'))))]);
+    expect(column({ ...p, inputPaths: { a: 'io.a', b: 'aIn[1]' }, struct: { name: 'ST_In', members: ['a'] } })).toEqual([0, 0, 1, 0]);
+  });
+
+  it('runs a FUNCTION of the program on its arguments', () => {
+    // Fn1(X1, X2) := X1 AND NOT X2, called as Fn1(b, a): y = b AND NOT a: 0, 1, 0, 0
+    const fn: Pou = {
+      kind: 'FUNCTION',
+      name: 'Fn1',
+      blocks: [{ section: 'VAR_INPUT', decls: [{ name: 'X1', type: 'BOOL' }, { name: 'X2', type: 'BOOL' }] }],
+      actions: [],
+      body: [set('Fn1', and(ref('X1'), notE(ref('X2'))))],
+    };
+    expect(column(program([set('y', { k: 'fcall', fn: 'Fn1', args: [b, a] })], [], { fbs: [fn] }))).toEqual([0, 1, 0, 0]);
+  });
+
   it('takes a constant named like an input at its value, not as the input', () => {
     // b is a VAR CONSTANT TRUE here (the spec's b is ignored): y = a AND TRUE = a: 0, 0, 1, 1
     const p = program([set('y', and(a, b))]);

@@ -164,6 +164,8 @@ class Scan {
         return this.read(frame, e.name) === true;
       case 'member':
         return this.readPath(`${this.where(frame, e.inst)}.${low(e.field)}`) === true;
+      case 'fcall':
+        return this.callFunction(frame, e);
       case 'not':
         return !this.bool(frame, e.a);
       case 'and':
@@ -204,6 +206,21 @@ class Scan {
           break;
       }
     }
+  }
+
+  /** A FUNCTION: its inputs set from the arguments, its body run in a frame of its own, its result read. */
+  private callFunction(frame: Frame, e: Extract<BExpr, { k: 'fcall' }>): boolean {
+    const fn = this.program.pous.find((p) => p.kind === 'FUNCTION' && low(p.name) === low(e.fn));
+    if (!fn) throw new Error(`interpreter: no function ${e.fn}`);
+    const params = fn.blocks.filter((b) => b.section === 'VAR_INPUT').flatMap((b) => b.decls);
+    const args = e.args.map((a) => this.bool(frame, a));
+    const inner: Frame = { pou: fn, path: `${low(fn.name)}#${++this.steps}`, refs: new Map() };
+    params.forEach((p, i) => this.store.set(`${inner.path}.${low(p.name)}`, args[i] ?? false));
+    this.enter(inner);
+    this.exec(inner, fn.body);
+    const result = this.store.get(`${inner.path}.${low(fn.name)}`);
+    if (result === undefined) throw new Error(`interpreter: ${fn.name} assigns no result`);
+    return result === true;
   }
 
   private value(frame: Frame, v: CallValue): Value | undefined {
@@ -276,6 +293,8 @@ export function outcomeTable(program: Program, spec: GenSpec): Outcome[][] {
       const i = spec.inputs.findIndex((s) => low(s) === low(name));
       inputs.set(name, i >= 0 ? values[i]! : false);
     }
+    // Spec inputs read as a member or element: that location holds the input's value.
+    for (const [input, path] of Object.entries(program.inputPaths ?? {})) inputs.set(path, values[spec.inputs.indexOf(input)]!);
     const out = scanOutcomes(program, inputs, spec.outputs);
     spec.outputs.forEach((o, j) => table[j]!.push(out.get(low(o)) ?? 0));
   }

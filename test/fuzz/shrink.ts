@@ -14,6 +14,7 @@ function mentioned(pous: readonly Pou[]): Set<string> {
     refsOf(x).forEach((n) => names.add(low(n)));
     const members = (y: BExpr): void => {
       if (y.k === 'member') names.add(low(y.inst));
+      else if (y.k === 'fcall') (names.add(low(y.fn)), y.args.forEach(members));
       else if (y.k === 'not') members(y.a);
       else if (y.k === 'and' || y.k === 'or' || y.k === 'xor') y.args.forEach(members);
     };

@@ -135,21 +135,23 @@ describe('small hand-drawn diagrams', () => {
     expect(verdict(report, 'q').cannotJudge.map((c) => c.kind)).toEqual(['previous-scan']);
   });
 
-  it('a timer in the path leaves its output unchecked, naming the block and its line; the other output is still proved', () => {
+  it('a timer in the path leaves its output unchecked, naming its output T1.Q, the block and its line; the other output is still proved', () => {
     const spec = specOf(['start', 'guard'], { run: ([s, g]) => s + g === 2, lamp: ([, g]) => g === 0 });
     const report = verifyImplementation([spec], fbd('timer.xml'));
     expect(statuses(report)).toEqual({ run: 'unchecked', lamp: 'equal' });
-    expect(verdict(report, 'run').reasons).toEqual(['timer block T1 (TON), localId 3 (Delayed, line 45)']);
-    expect(verdict(report, 'run').cannotJudge).toEqual([{ kind: 'timer', pou: 'Delayed', line: 45, what: 'timer block T1 (TON), localId 3' }]);
+    const what = "T1.Q is a member of the timer T1 (TON), read at block localId 3: its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one";
+    expect(verdict(report, 'run').reasons).toEqual([`${what} (Delayed, line 45)`]);
+    expect(verdict(report, 'run').cannotJudge).toEqual([{ kind: 'timer', pou: 'Delayed', line: 45, what }]);
   });
 
-  it('a mapping cannot yet stand a spec input for the timer output: T1.Q reads as POU T1, and run stays unchecked', () => {
+  it('a mapping stands the timer output T1.Q for a spec input: run is then equal, and the result says so', () => {
     const spec = specOf(['Delayed start', 'guard'], { run: ([s, g]) => s + g === 2 });
     const map = readMappingCsv('map.csv', 'Delayed start;T1.Q\n');
     if (!map.ok) throw new Error(map.error.message);
     const report = verifyImplementation([spec], fbd('timer.xml'), map.value);
-    expect(statuses(report)).toEqual({ run: 'unchecked' });
-    expect(report.unusedMapping).toEqual(["map.csv line 1: the program has no variable 'T1.Q'"]);
+    expect(statuses(report)).toEqual({ run: 'equal' });
+    expect(report.unusedMapping).toEqual([]);
+    expect(verdict(report, 'run').byMapping).toEqual(['T1.Q taken as the spec input Delayed start, by mapping (map.csv line 1)']);
   });
 
   it('two blocks feeding each other are refused, the loop named by its localIds', () => {

@@ -115,6 +115,19 @@ describe('FBD variables', () => {
     expect(output(pou, 'r').cannotJudge.map((c) => c.what)).toEqual(['timer T1 (TON): T1.Q, localId 5']);
   });
 
+  it('a structure member and an array element are read as variables of their own', () => {
+    const face: Interface = { inputs: [], outputs: ['q'], locals: { io: 'ST_In', aIn: 'ARRAY [1..4] OF BOOL' }, structs: { ST_In: ['bClosed'] } };
+    const pou = read([inVariable(1, 'io.bClosed'), inVariable(2, 'aIn[3]'), block(3, 'AND', [{ param: 'IN1', from: 1 }, { param: 'IN2', from: 2 }]), outVariable(4, 'q', { from: 3 })], face);
+    expect(pou.undriven.map((u) => u.name)).toEqual(['io.bClosed', 'aIn[3]']);
+    expectFunction(pou, 'q', 'io.bClosed AND "aIn[3]"');
+  });
+
+  it('a member written above is substituted where it is read below', () => {
+    const face: Interface = { inputs: ['a', 'b'], outputs: ['q'], locals: { st: 'ST_In' }, structs: { ST_In: ['bClosed'] } };
+    const pou = read([inVariable(1, 'a'), outVariable(2, 'st.bClosed', { from: 1 }), inVariable(3, 'st.bClosed'), inVariable(4, 'b'), block(5, 'OR', [{ param: 'IN1', from: 3 }, { param: 'IN2', from: 4 }]), outVariable(6, 'q', { from: 5 })], face);
+    expectFunction(pou, 'q', 'a OR b');
+  });
+
   it('writing a member of an instance is named as unsupported', () => {
     const pou = read([inVariable(1, 'a'), outVariable(2, 'T1.IN', { from: 1 })], { inputs: ['a'], outputs: [], locals: { T1: 'TON' } });
     expect(pou.cannotJudge.map((c) => [c.kind, c.what])).toEqual([['unsupported', 'outVariable writes T1.IN, localId 2']]);

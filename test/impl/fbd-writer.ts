@@ -68,12 +68,24 @@ export function continuation(id: number, name: string): string {
 export interface Interface {
   readonly inputs: readonly string[];
   readonly outputs: readonly string[];
-  /** name -> type (BOOL, or a block type such as TON). */
+  /** name -> type (BOOL, a block type such as TON, a structure of `structs`, or `ARRAY [l..u] OF BOOL`). */
   readonly locals?: Readonly<Record<string, string>>;
+  /** Structure types of the project: name -> its BOOL members. */
+  readonly structs?: Readonly<Record<string, readonly string[]>>;
 }
 
-const declare = (name: string, type: string): string =>
-  `<variable name="${name}"><type>${type === 'BOOL' ? '<BOOL/>' : `<derived name="${type}"/>`}</type></variable>`;
+function typeXml(type: string): string {
+  const array = /^ARRAY \[(-?\d+)\.\.(-?\d+)\] OF BOOL$/.exec(type);
+  if (array) return `<array><dimension lower="${array[1]}" upper="${array[2]}"/><baseType><BOOL/></baseType></array>`;
+  return type === 'BOOL' ? '<BOOL/>' : `<derived name="${type}"/>`;
+}
+
+const declare = (name: string, type: string): string => `<variable name="${name}"><type>${typeXml(type)}</type></variable>`;
+
+const dataTypes = (structs: Readonly<Record<string, readonly string[]>>): string =>
+  Object.entries(structs)
+    .map(([name, members]) => `<dataType name="${name}"><baseType><struct>${members.map((m) => declare(m, 'BOOL')).join('')}</struct></baseType></dataType>`)
+    .join('');
 
 /** A whole project with one program whose body is the FBD elements given. */
 export function fbdProject(pou: string, face: Interface, elements: readonly string[]): string {
@@ -82,7 +94,7 @@ export function fbdProject(pou: string, face: Interface, elements: readonly stri
 <project xmlns="http://www.plcopen.org/xml/tc6_0201">
 <fileHeader companyName="Test" productName="FBD writer" productVersion="1" creationDateTime="2026-01-05T08:00:00"/>
 <contentHeader name="${pou}"><coordinateInfo><fbd><scaling x="1" y="1"/></fbd><ld><scaling x="1" y="1"/></ld><sfc><scaling x="1" y="1"/></sfc></coordinateInfo></contentHeader>
-<types><dataTypes/><pous><pou name="${pou}" pouType="program"><interface>
+<types><dataTypes>${dataTypes(face.structs ?? {})}</dataTypes><pous><pou name="${pou}" pouType="program"><interface>
 <inputVars>${face.inputs.map((n) => declare(n, 'BOOL')).join('')}</inputVars>
 <outputVars>${face.outputs.map((n) => declare(n, 'BOOL')).join('')}</outputVars>${
     locals.length > 0 ? `\n<localVars>${locals.map(([n, t]) => declare(n, t)).join('')}</localVars>` : ''

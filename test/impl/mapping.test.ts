@@ -35,12 +35,29 @@ describe('name mapping', () => {
     expect(pairsOf('Jog pressed\t%IX0.3\n')).toEqual([['Jog pressed', '%IX0.3', 'map.csv line 1']]);
   });
 
+  it('accepts members, elements and instance outputs as program variables, spaces around their punctuation dropped', () => {
+    expect(pairsOf('A,io.bClosed\nB,aIn[ 3 ]\nC,Main.tonSync.Q\nD,"g[1, 2].b"\n').map(([, program]) => program)).toEqual([
+      'io.bClosed',
+      'aIn[3]',
+      'Main.tonSync.Q',
+      'g[1,2].b',
+    ]);
+  });
+
+  it('refuses an element with an index that is not an integer', () => {
+    expect(csvError('A,aIn[i]\n')).toBe(
+      "map.csv line 1: 'aIn[i]' is not a program variable name (Name, Pou.Name, a member io.bClosed, an element aIn[3] or %IX0.1)",
+    );
+  });
+
   it('refuses a row with no program variable, naming its line', () => {
     expect(csvError('Guard A closed,I_A\nGuard B closed,\n')).toBe("map.csv line 2: no program variable for spec signal 'Guard B closed'");
   });
 
   it('refuses a program variable that is not a name', () => {
-    expect(csvError('Guard A closed,I A\n')).toBe("map.csv line 1: 'I A' is not a program variable name (Name, Pou.Name or %IX0.1)");
+    expect(csvError('Guard A closed,I A\n')).toBe(
+      "map.csv line 1: 'I A' is not a program variable name (Name, Pou.Name, a member io.bClosed, an element aIn[3] or %IX0.1)",
+    );
   });
 
   it('refuses a spec signal mapped twice (case-insensitively)', () => {
@@ -56,6 +73,6 @@ describe('name mapping', () => {
     const r = readMappingGrid({ sheet: 'Tag map', origin: 'B2', cells: [['Spec signal', 'Tag'], ['Guard A closed', 'I_A'], ['Jog pressed', null]] });
     expect(r.ok ? null : r.error.message).toBe("'Tag map'!C4: no program variable for spec signal 'Jog pressed'");
     const good = readMappingGrid({ sheet: 'Map', origin: 'A1', cells: [['Guard A closed', 'I_A']] });
-    expect(good.ok && good.value.pairs).toEqual([{ spec: 'Guard A closed', program: 'I_A', where: 'Map!A1' }]);
+    expect(good.ok && good.value.pairs).toEqual([{ spec: 'Guard A closed', program: 'I_A', where: 'Map!A1', programWhere: 'Map!B1' }]);
   });
 });

@@ -54,6 +54,17 @@ function errorOf(text: string): string {
 }
 
 describe('PLCopen LD body', () => {
+  it('a contact on an array element and a coil on a structure member read and write them as variables', () => {
+    const vars =
+      '<inputVars><variable name="aIn"><type><array><dimension lower="0" upper="3"/><baseType><BOOL/></baseType></array></type></variable>' +
+      '<variable name="a"><type><BOOL/></type></variable></inputVars><outputVars><variable name="io"><type><derived name="ST_Out"/></type></variable></outputVars>';
+    const text = project(`<LD>\n${[left(1), contact(2, 'aIn[2]', [1]), contact(3, 'a', [2], 'negated="true"'), coil(4, 'io.bRun', [3]), right(5, [4])].join('\n')}\n</LD>`, { vars }).replace(
+      '<types><pous>',
+      '<types><dataTypes><dataType name="ST_Out"><baseType><struct><variable name="bRun"><type><BOOL/></type></variable></struct></baseType></dataType></dataTypes><pous>',
+    );
+    expectFunction(pouOf(text), 'io.bRun', '"aIn[2]" AND NOT a');
+  });
+
   it('contacts in series are an AND', () => {
     expectFunction(pouOf(ld(left(1), contact(2, 'a', [1]), contact(3, 'b', [2]), coil(4, 'q', [3]), right(5, [4]))), 'q', 'a AND b');
   });

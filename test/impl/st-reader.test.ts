@@ -42,6 +42,11 @@ function kinds(out: ImplOutput): CannotJudgeKind[] {
   return out.cannotJudge.map((c) => c.kind);
 }
 
+/** Reads that are inputs only when a mapping names them: name and kind. */
+function sources(pou: ImplPou): [string, CannotJudgeKind][] {
+  return pou.undriven.map((u) => [u.name, u.item.kind]);
+}
+
 const program = (vars: string, body: string): string =>
   `PROGRAM P\nVAR_INPUT\n  a, b, c, d : BOOL;\nEND_VAR\nVAR_OUTPUT\n  q, r : BOOL;\nEND_VAR\n${vars}\n${body}\nEND_PROGRAM\n`;
 
@@ -159,33 +164,39 @@ describe('Structured Text reader: what a truth table cannot judge', () => {
     expect(out.cannotJudge[0]!.what).toMatch(/q \(line 9\) uses r from the previous scan/);
   });
 
-  it('a timer instance, its call and its output are reported; outputs not using it stay checked', () => {
+  it('a timer instance, its call and its output are reported; its output is a named source; outputs not using it stay checked', () => {
     const pou = pouOf(program('VAR T_Clamp : TON; END_VAR', 'T_Clamp(IN := a, PT := T#2s);\nq := T_Clamp.Q AND b;\nr := c;'));
     expect(pou.cannotJudge.map((c) => [c.kind, c.line, c.what])).toEqual([
       ['timer', 9, 'timer T_Clamp (TON) called at line 9'],
-      ['timer', 10, 'timer T_Clamp (TON): T_Clamp.Q at line 10'],
+      [
+        'timer',
+        10,
+        "T_Clamp.Q is a member of the timer T_Clamp (TON), read at line 10: its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one",
+      ],
     ]);
-    expect(kinds(output(pou, 'q'))).toEqual(['timer']);
+    expectFunction(pou, 'q', 'T_Clamp.Q AND b');
+    expect(sources(pou)).toEqual([['T_Clamp.Q', 'timer']]);
     expectFunction(pou, 'r', 'c');
   });
 
-  it('a call output written with => takes the block kind', () => {
+  it('a call output written with => is the block member it names', () => {
     const pou = pouOf(program('VAR Cnt : CTU; END_VAR', 'Cnt(CU := a, PV := 3, Q => q);'));
-    expect(kinds(output(pou, 'q'))).toEqual(['counter']);
+    expectFunction(pou, 'q', 'Cnt.Q');
+    expect(sources(pou)).toEqual([['Cnt.Q', 'counter']]);
   });
 
-  it('R_TRIG and F_TRIG are edge detection', () => {
+  it('R_TRIG and F_TRIG outputs are named sources of edge detection', () => {
     const pou = pouOf(program('VAR Up : R_TRIG; END_VAR', 'Up(CLK := a);\nq := Up.Q;'));
-    expect(kinds(output(pou, 'q'))).toEqual(['edge']);
+    expect(sources(pou)).toEqual([['Up.Q', 'edge']]);
   });
 
-  it('S= and R= and SR blocks are set/reset storage', () => {
-    const pou = pouOf(program('VAR Latch : SR; END_VAR', 'q S= a;\nq R= b;\nLatch(S1 := a, RESET := b);\nr := Latch.Q1;'));
+  it('S= and R= are set/reset storage; an SR output is a named source of its kind', () => {
+    const pou = pouOf(program('VAR Latch : SR; END_VAR', 'q S= a;\nq R= b;\nLatch(S1 := a, R := b);\nr := Latch.Q1;'));
     expect(output(pou, 'q').cannotJudge.map((c) => [c.kind, c.what])).toEqual([
       ['set-reset', 'S= on q at line 9'],
       ['set-reset', 'R= on q at line 10'],
     ]);
-    expect(kinds(output(pou, 'r'))).toEqual(['set-reset']);
+    expect(sources(pou)).toEqual([['Latch.Q1', 'set-reset']]);
   });
 
   it('a function other than AND, OR, XOR, NOT is a function call', () => {

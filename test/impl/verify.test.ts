@@ -130,12 +130,13 @@ describe('implementation check: what cannot be judged, and open combinations', (
       'Head lower permit': 'equal',
     });
     expect(reasons('Spindle run permit')).toEqual(['seal-in @22: Spindle_run_permit feeds back into itself (seal-in / latch), read at line 22']);
-    expect(reasons('Air supply OK')).toEqual(['timer @26: timer AirDebounce (TON): AirDebounce.Q at line 26']);
+    const fromState = "its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one";
+    expect(reasons('Air supply OK')).toEqual([`timer @26: AirDebounce.Q is a member of the timer AirDebounce (TON), read at line 26: ${fromState}`]);
     expect(reasons('Chuck air release')).toEqual([
       'set-reset @28: S= on Chuck_air_release at line 28',
       'set-reset @29: R= on Chuck_air_release at line 29',
     ]);
-    expect(reasons('Cap feeder enable')).toEqual(['edge @32: edge detection HeadUp (F_TRIG): HeadUp.Q at line 32']);
+    expect(reasons('Cap feeder enable')).toEqual([`edge @32: HeadUp.Q is a member of the edge detection HeadUp (F_TRIG), read at line 32: ${fromState}`]);
     expect(verifyExitCode(report)).toBe(1);
   });
 
@@ -201,7 +202,7 @@ describe('implementation check: what cannot be judged, and open combinations', (
     ]);
   });
 
-  it('mapping entries that name nothing are listed', () => {
+  it('mapping entries that name nothing are listed, and the output they name is unchecked', () => {
     const map = readMappingCsv('m.csv', 'Ghost signal,I_Ghost\nAir supply OK,Q_Nowhere\n');
     if (!map.ok) throw new Error(map.error.message);
     const r = verifyImplementation(tables.slice(1, 2), implementation('capper-cell.st'), map.value);
@@ -210,7 +211,11 @@ describe('implementation check: what cannot be judged, and open combinations', (
       "m.csv line 1: the program has no variable 'I_Ghost'",
       "m.csv line 2: the program has no variable 'Q_Nowhere'",
     ]);
-    expect(r.outputs[0]!.reasons).toEqual(['the mapping (m.csv line 2) names Q_Nowhere, which no POU assigns']);
+    expect(r.outputs[0]!.status).toBe('unchecked');
+    expect(r.outputs[0]!.reasons).toEqual([
+      "the mapping cannot be used as written: m.csv line 2: the program has no variable 'Q_Nowhere'",
+      'the mapping (m.csv line 2) names Q_Nowhere, which no POU assigns',
+    ]);
   });
 });
 

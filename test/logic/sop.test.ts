@@ -139,6 +139,23 @@ function sparseTableGaps(): BoolFunction {
   return { n, on: complement(named, n), dc: emptySet(n) };
 }
 
+describe('cubes as bit sets', () => {
+  it('paint exactly the combinations of the cube, word by word from 5 inputs on (property)', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 12 }).chain((n) => fc.tuple(fc.constant(n), fc.nat(2 ** n - 1), fc.nat(2 ** n - 1))),
+        ([n, mask, bits]) => {
+          const c = cube(mask, bits);
+          const expected = emptySet(n);
+          for (const k of cubeMembers(n, c)) add(expected, k);
+          expect(equals(cubeToSet(n, c), expected)).toBe(true);
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+});
+
 describe('minimal AND/OR forms: out of time', () => {
   const f = sparseTableGaps();
   for (const budgetMs of [0, 50]) {

@@ -142,7 +142,9 @@ describe('implementation check sheet', () => {
     expect(rowsOf(block, 'Verdict').map((r) => r[1])).toEqual(['UNCHECKED', 'UNCHECKED', 'UNCHECKED', 'UNCHECKED', 'EQUAL']);
     const why = rowsOf(block, 'Why unchecked').map((r) => r[1]);
     expect(why).toContain('Spindle_run_permit feeds back into itself (seal-in / latch), read at line 22 (CapperStateful, line 22)');
-    expect(why).toContain('timer AirDebounce (TON): AirDebounce.Q at line 26 (CapperStateful, line 26)');
+    expect(why).toContain(
+      "AirDebounce.Q is a member of the timer AirDebounce (TON), read at line 26: its value comes from the block's own state, not from this scan's inputs; map it to a spec input to take it as one (CapperStateful, line 26)",
+    );
     expect(values(block)).toContainEqual(['What a truth table cannot judge (combinational logic only)']);
     expect(values(block)).toContainEqual(['CapperStateful line 22: seal-in: Spindle_run_permit feeds back into itself (seal-in / latch), read at line 22']);
   });

@@ -83,10 +83,10 @@ describe('the pane checks a program through a mapping sheet', () => {
     expect(answer.ok ? 'checked' : answer.error.message).toBe("Map!A4: spec signal 'Run permit' is mapped twice (also at map.csv line 1)");
   });
 
-  it('a mapping entry naming no program variable is listed with its cell', async () => {
+  it('a mapping entry naming no program variable is listed with its cells: the signal\'s and the variable\'s', async () => {
     const { host, verify } = await pane([...MAP, ['Start pressed 2', 'I_Start_2']]);
     const answer = verify([await readMappingSheet(host, 'Map')]);
     if (!answer.ok) throw new Error(answer.error.message);
-    expect(answer.value.report.unusedMapping).toEqual(["Map!A5: no spec table has a signal 'Start pressed 2'", "Map!A5: the program has no variable 'I_Start_2'"]);
+    expect(answer.value.report.unusedMapping).toEqual(["Map!A5: no spec table has a signal 'Start pressed 2'", "Map!B5: the program has no variable 'I_Start_2'"]);
   });
 });
