@@ -108,22 +108,25 @@ export function andPermitTable(n: number): CellValue[][] {
   return sheet(names, rows, 'Permit');
 }
 
+/** One row's input cells: 3-10 literals on random inputs at random values, the rest '-'. */
+function randomRow(n: number, next: () => number): CellValue[] {
+  const row: CellValue[] = Array.from({ length: n }, () => '-');
+  const want = 3 + Math.floor(next() * 8);
+  for (let literals = 0; literals < want; ) {
+    const i = Math.floor(next() * n);
+    if (row[i] !== '-') continue;
+    row[i] = next() < 0.5 ? 1 : 0;
+    literals++;
+  }
+  return row;
+}
+
 /** A stress table: `count` rows of 3-10 random literals, output 1 or 0 evenly, drawn with no regard to each other (most ON rows overlap OFF rows). */
 export function randomRowsTable(n: number, count: number, seed: number): CellValue[][] {
   const next = random(seed);
   const names = inputNames(n, 'Sig');
   const rows: CellValue[][] = [];
-  for (let k = 0; k < count; k++) {
-    const row: CellValue[] = names.map(() => '-');
-    const want = 3 + Math.floor(next() * 8);
-    for (let literals = 0; literals < want; ) {
-      const i = Math.floor(next() * n);
-      if (row[i] !== '-') continue;
-      row[i] = next() < 0.5 ? 1 : 0;
-      literals++;
-    }
-    rows.push([...row, next() < 0.5 ? 1 : 0]);
-  }
+  for (let k = 0; k < count; k++) rows.push([...randomRow(n, next), next() < 0.5 ? 1 : 0]);
   return sheet(names, rows, 'Enable');
 }
 
@@ -141,16 +144,9 @@ export function consistentRowsTable(n: number, count: number, seed: number): Cel
   const rows: CellValue[][] = [];
   const cubes: { cube: WideCube; on: boolean }[] = [];
   while (rows.length < count) {
-    const row: CellValue[] = names.map(() => '-');
-    const want = 3 + Math.floor(next() * 8);
-    for (let literals = 0; literals < want; ) {
-      const i = Math.floor(next() * n);
-      if (row[i] !== '-') continue;
-      row[i] = next() < 0.5 ? 1 : 0;
-      literals++;
-    }
+    const row = randomRow(n, next);
     const on = next() < 0.5;
-    for (let literals = want; ; literals++) {
+    for (let literals = row.filter((v) => v !== '-').length; ; literals++) {
       const cube = wideRowCube(row as (0 | 1 | '-')[]);
       const against = cubes.filter((c) => c.on !== on && !wideDisjoint(c.cube, cube)).map((c) => c.cube);
       if (against.length === 0) {
