@@ -17,7 +17,7 @@ import { analysisJson } from '../src/report/analysis-json.js';
 import type { TableAnalysis } from '../src/analysis/analysis-types.js';
 import { readSpecTables } from '../src/table/read-tables.js';
 import { now } from '../src/logic/deadline.js';
-import { wideDisjoint } from '../src/logic/wide-cube.js';
+import { inputBit, wideDisjoint, type WideCube } from '../src/logic/wide-cube.js';
 import { wideRowCube } from '../src/table/read-wide.js';
 
 interface Baseline {
@@ -108,21 +108,65 @@ export function andPermitTable(n: number): CellValue[][] {
   return sheet(names, rows, 'Permit');
 }
 
-/** Robot-cell interlocks: `count` rows of 3-10 random literals, output 1 or 0 evenly. */
+/** One row's input cells: 3-10 literals on random inputs at random values, the rest '-'. */
+function randomRow(n: number, next: () => number): CellValue[] {
+  const row: CellValue[] = Array.from({ length: n }, () => '-');
+  const want = 3 + Math.floor(next() * 8);
+  for (let literals = 0; literals < want; ) {
+    const i = Math.floor(next() * n);
+    if (row[i] !== '-') continue;
+    row[i] = next() < 0.5 ? 1 : 0;
+    literals++;
+  }
+  return row;
+}
+
+/** A stress table: `count` rows of 3-10 random literals, output 1 or 0 evenly, drawn with no regard to each other (most ON rows overlap OFF rows). */
 export function randomRowsTable(n: number, count: number, seed: number): CellValue[][] {
   const next = random(seed);
   const names = inputNames(n, 'Sig');
   const rows: CellValue[][] = [];
-  for (let k = 0; k < count; k++) {
-    const row: CellValue[] = names.map(() => '-');
-    const want = 3 + Math.floor(next() * 8);
-    for (let literals = 0; literals < want; ) {
-      const i = Math.floor(next() * n);
-      if (row[i] !== '-') continue;
-      row[i] = next() < 0.5 ? 1 : 0;
-      literals++;
+  for (let k = 0; k < count; k++) rows.push([...randomRow(n, next), next() < 0.5 ? 1 : 0]);
+  return sheet(names, rows, 'Enable');
+}
+
+/**
+ * Robot-cell interlocks as an engineer writes them: `count` rows of 3-10 random literals, output
+ * 1 or 0 evenly, and no ON row overlapping an OFF row. Plain rejection of random rows cannot
+ * reach 300 (a random row is disjoint from another with chance ~0.4, so from 150 of them almost
+ * never); instead each drawn row is repaired: while it overlaps rows of the other value,
+ * add the literal (an input the row leaves open, at the value opposite to theirs) that
+ * contradicts most of them; a row that would need more than 10 literals is rejected.
+ */
+export function consistentRowsTable(n: number, count: number, seed: number): CellValue[][] {
+  const next = random(seed);
+  const names = inputNames(n, 'Sig');
+  const rows: CellValue[][] = [];
+  const cubes: { cube: WideCube; on: boolean }[] = [];
+  while (rows.length < count) {
+    const row = randomRow(n, next);
+    const on = next() < 0.5;
+    for (let literals = row.filter((v) => v !== '-').length; ; literals++) {
+      const cube = wideRowCube(row as (0 | 1 | '-')[]);
+      const against = cubes.filter((c) => c.on !== on && !wideDisjoint(c.cube, cube)).map((c) => c.cube);
+      if (against.length === 0) {
+        rows.push([...row, on ? 1 : 0]);
+        cubes.push({ cube, on });
+        break;
+      }
+      if (literals === 10) break;
+      let best = { i: -1, value: 0 as 0 | 1, hits: 0 };
+      names.forEach((_, i) => {
+        if (row[i] !== '-') return;
+        const bit = inputBit(n, i);
+        for (const value of [0, 1] as const) {
+          const hits = against.filter((c) => (c.mask & bit) !== 0n && ((c.bits & bit) !== 0n) !== (value === 1)).length;
+          if (hits > best.hits) best = { i, value, hits };
+        }
+      });
+      if (best.i < 0) break;
+      row[best.i] = best.value;
     }
-    rows.push([...row, next() < 0.5 ? 1 : 0]);
   }
   return sheet(names, rows, 'Enable');
 }
@@ -179,6 +223,10 @@ function conflictingPairs(cells: CellValue[][]): string {
   return `${pairs} of ${all} ON/OFF row pairs overlap`;
 }
 
+const CONSISTENT = '64 inputs x 300 rows of 3-10 literals, consistent';
+/** A stress figure: rows drawn with no regard to each other, most ON/OFF pairs overlapping. */
+const CONTRADICTORY = '64 inputs x 300 rows of 3-10 literals, self-contradictory';
+
 export async function run(): Promise<void> {
   console.log('whole analysis in-process (read, forms, proofs, JSON); peak = largest RSS sampled');
   const base = await baselineEngine();
@@ -209,12 +257,13 @@ export async function run(): Promise<void> {
     ['48 inputs, 8 ON rows of 8 literals + 2 OFF rows', permitTable(48, 1048)],
     ['40-cause OR trip', orTripTable(40)],
     ['40-condition AND permissive', andPermitTable(40)],
-    ['64 inputs x 300 rows of 3-10 literals', randomRowsTable(64, 300, 64300)],
+    [CONSISTENT, consistentRowsTable(64, 300, 64300)],
+    [CONTRADICTORY, randomRowsTable(64, 300, 64300)],
   ];
   for (const [what, cells] of wide) {
     const runs = symbolicRuns(what, cells);
     const r = runs.ours;
-    const rows = what.includes(' x 300 ') ? ` (${conflictingPairs(cells)})` : '';
+    const rows = what === CONTRADICTORY || what === CONSISTENT ? ` (${conflictingPairs(cells)})` : '';
     console.log(`${what}: symbolic ${r.ms.toFixed(0)} ms (peak ${r.mb.toFixed(0)} MB; ${summary(r.a)})${rows}${runs.before}`);
   }
   if (typeof base === 'string') console.log(`baseline: ${baseline.source}; not run now: ${base}`);
