@@ -180,8 +180,9 @@ export function retestRecordSheet(c: TableComparison, retest: Retest, options: R
     ...sheet,
     name: sheet.name.replace(/ record$/, ' retest').slice(0, 31),
     rows: [...rows.slice(0, head), [{ value: note, style: 'label' }], ...rows.slice(head)],
-    // The note row goes above the column titles, which stay frozen.
+    // The note row goes above the column titles, which stay frozen and print on every page.
     ...(sheet.freezeRows !== undefined ? { freezeRows: sheet.freezeRows + 1 } : {}),
+    ...(sheet.print ? { print: { ...sheet.print, titleRows: { first: sheet.print.titleRows.first + 1, last: sheet.print.titleRows.last + 1 } } } : {}),
     columnWidths: [...(sheet.columnWidths ?? []), 44],
   };
 }

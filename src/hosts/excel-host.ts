@@ -199,7 +199,7 @@ function layout(sheet: XlWorksheet, block: SheetBlock, supports: XlSupports): st
       page.orientation = print.landscape ? 'Landscape' : 'Portrait';
       // Zero pages tall: as many pages down as needed, as fitToHeight="0" in the file (from memory).
       if (print.fitToWidth) page.zoom = { horizontalFitToPages: 1, verticalFitToPages: 0 };
-      if (print.titleRows > 0) page.setPrintTitleRows(`$1:$${print.titleRows}`);
+      page.setPrintTitleRows(`$${print.titleRows.first}:$${print.titleRows.last}`);
       page.headersFooters.defaultForAllPages.leftFooter = footerText(print.footer);
       page.headersFooters.defaultForAllPages.rightFooter = PAGE_FOOTER;
     } else notApplied.push('the print setup (landscape, one page wide, title rows, footer) is not applied (this Excel lacks ExcelApi 1.9)');

@@ -298,10 +298,12 @@ class PackageEdit {
       `${this.wp}sheets`,
       `<${this.wp}sheet xmlns:r="${REL_NS}" name="${escapeXmlText(name)}" sheetId="${this.nextSheetId++}" r:id="${id}"/>`,
     );
-    if (block.print && block.print.titleRows > 0)
+    if (block.print) {
+      const { first, last } = block.print.titleRows;
       this.definedNames.push(
-        `<${this.wp}definedName name="_xlnm.Print_Titles" localSheetId="${this.sheetCount}">${escapeXmlText(`'${name.replace(/'/g, "''")}'!$1:$${block.print.titleRows}`)}</${this.wp}definedName>`,
+        `<${this.wp}definedName name="_xlnm.Print_Titles" localSheetId="${this.sheetCount}">${escapeXmlText(`'${name.replace(/'/g, "''")}'!$${first}:$${last}`)}</${this.wp}definedName>`,
       );
+    }
     this.sheetCount++;
     this.added.push({ path, xml: worksheetXml(block, this.styles) });
   }

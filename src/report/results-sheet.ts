@@ -122,7 +122,7 @@ function liveCheckBlock(analysis: TableAnalysis, live: LiveCheck): SheetBlock {
     freezeRows: live.titleRow + 1,
     columnWidths: [8, ...Array.from({ length: analysis.inputs.length + 4 * analysis.outputs.length }, () => 12), 10, 30],
     statusRanges: [live.statusRange],
-    print: printSetup(`Live check of ${where}`),
+    print: printSetup(`Live check of ${where}`, live.titleRow + 1),
   };
 }
 

@@ -51,8 +51,8 @@ export function renameSheetRefs(block: SheetBlock, from: string, to: string): Sh
 export interface PrintSetup {
   readonly landscape: boolean;
   readonly fitToWidth: boolean;
-  /** Rows repeated at the top of every printed page (from row 1). */
-  readonly titleRows: number;
+  /** Rows repeated at the top of every printed page, 1-based and inclusive: the title row, or a table's column titles. */
+  readonly titleRows: { readonly first: number; readonly last: number };
   /** Footer text (left part); the page number goes on the right. */
   readonly footer: string;
 }

@@ -42,7 +42,10 @@ export function footerText(text: string): string {
   return text.replace(/&/g, '&&');
 }
 
-/** How our sheets print: landscape, one page wide (as many pages down as needed), the title row on every page. */
-export function printSetup(footer: string): PrintSetup {
-  return { landscape: true, fitToWidth: true, titleRows: 1, footer };
+/**
+ * How our sheets print: landscape, one page wide (as many pages down as needed), and on every
+ * page the sheet's title row or, for a sheet of steps or checks, its column titles (`titleRow`).
+ */
+export function printSetup(footer: string, titleRow = 1): PrintSetup {
+  return { landscape: true, fitToWidth: true, titleRows: { first: titleRow, last: titleRow }, footer };
 }

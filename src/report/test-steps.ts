@@ -277,7 +277,7 @@ export function testRecordSheet(analysis: TableAnalysis, options: RecordOptions 
     rows,
     ...(above <= MAX_FROZEN_ROWS ? { freezeRows: above } : {}),
     columnWidths: [15, 14, 18, 40, 30, ...Array.from({ length: 2 * m }, () => 12), 10, 24, 16, 16, 12, 60],
-    print: printSetup(`Test record of ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}, ${revisionStamp(analysis.table).slice(0, 19)}`),
+    print: printSetup(`Test record of ${qualifiedAddress(analysis.table.sheet, analysis.table.range)}, ${revisionStamp(analysis.table).slice(0, 19)}`, above),
   };
 }
 

@@ -170,7 +170,7 @@ describe('writing', () => {
     expect(double.activeSheet).toBe('Results');
   });
 
-  const laidOut: SheetBlock = { ...block, freezeRows: 2, print: { landscape: true, fitToWidth: true, titleRows: 2, footer: 'Results of Purge!A2:C5 & more' } };
+  const laidOut: SheetBlock = { ...block, freezeRows: 2, print: { landscape: true, fitToWidth: true, titleRows: { first: 1, last: 2 }, footer: 'Results of Purge!A2:C5 & more' } };
 
   test('where Excel has ExcelApi 1.9, the sheet prints as the block says and its heading rows are frozen', async () => {
     const { double, host } = setup();

@@ -15,7 +15,7 @@ const RESULTS: SheetBlock = {
   ],
   columnWidths: [12, 40, 10],
   statusRanges: ['C4:C4'],
-  print: { landscape: true, fitToWidth: true, titleRows: 2, footer: 'Purge!A2:C5 & revision 1a2b' },
+  print: { landscape: true, fitToWidth: true, titleRows: { first: 1, last: 2 }, footer: 'Purge!A2:C5 & revision 1a2b' },
 };
 
 const decode = (b: Uint8Array | undefined): string => new TextDecoder().decode(b);

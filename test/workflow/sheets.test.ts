@@ -69,6 +69,15 @@ describe('writing the sheets of a run', () => {
     expect(double.read('Vote record', `A${titleRows[2]}:B${titleRows[2]}`)).toEqual([['Step', 'Test ID']]);
   });
 
+  it('in Excel (ExcelApi 1.9 and later) the record and the live check print their column titles on every page', async () => {
+    const double = new ExcelDouble();
+    double.addSheet('Vote', GOOD.sheets.Vote!.map((r) => [...r]));
+    const blocks = await blocksOf(new RowsHost(GOOD));
+    await writeSheets(createExcelHost(double.run, double.supports), blocks);
+    const heading = (b: (typeof blocks)[number]) => b.rows.findIndex((r) => r[0]?.value === '#' || r[0]?.value === 'Step') + 1;
+    expect(blocks.map((b) => double.sheet(b.name)!.print.titleRows)).toEqual(['$1:$1', `$${heading(blocks[1]!)}:$${heading(blocks[1]!)}`, `$${heading(blocks[2]!)}:$${heading(blocks[2]!)}`]);
+  });
+
   it('in a results workbook the record and live check sheets hold a frozen pane just below their column titles', async () => {
     const dir = scratch();
     const input = join(dir, 'good.xlsx');
@@ -90,5 +99,22 @@ describe('writing the sheets of a run', () => {
       expect(text(partOf(sheet))).toContain(`<pane ySplit="${row}" topLeftCell="A${row + 1}" activePane="bottomLeft" state="frozen"/>`);
     }
     expect(text(partOf('Vote results'))).not.toContain('<pane');
+  });
+
+  it('in a results workbook the record and live check print their column titles on every page, the results sheet its title row', async () => {
+    const dir = scratch();
+    const input = join(dir, 'good.xlsx');
+    writeFileSync(input, xlsxBytes({ ...GOOD, sheets: { Vote: GOOD.sheets.Vote! } }));
+    const out = join(dir, 'results.xlsx');
+    expect((await runCli('analyze', input, '-o', out)).code).toBe(0);
+    const workbook = new TextDecoder().decode(partsOf(new Uint8Array(readFileSync(out))).get('xl/workbook.xml')!);
+    const blocks = await blocksOf(new RowsHost(GOOD));
+    const sheetIds = [...workbook.matchAll(/<sheet [^>]*name="([^"]+)"/g)].map((m) => m[1]!);
+    const titlesOf = (sheet: string) => new RegExp(`name="_xlnm.Print_Titles" localSheetId="${sheetIds.indexOf(sheet)}">'${sheet}'!\\$(\\d+):\\$(\\d+)<`).exec(workbook)?.slice(1);
+    for (const [sheet, title] of [['Vote live check', '#'], ['Vote record', 'Step']] as const) {
+      const row = String(blocks.find((b) => b.name === sheet)!.rows.findIndex((r) => r[0]?.value === title) + 1);
+      expect(titlesOf(sheet)).toEqual([row, row]);
+    }
+    expect(titlesOf('Vote results')).toEqual(['1', '1']);
   });
 });
