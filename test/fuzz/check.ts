@@ -50,18 +50,19 @@ function describeProduct(v: OutputVerdict): string {
 /**
  * Whether the product's verdict on one output says more than the interpreter confirms: EQUAL
  * where it is not known to be equal, or DIFFERS with a claim (a counterexample, or a gap said
- * to be off its safe value) that is not a known disagreement with the same values.
+ * to be off its safe value) that is not a known disagreement with the same values, or whose
+ * kind is wrong (unsafe exactly where the spec requires the safe value).
  */
 export function contradictionOf(e: Expected, v: Pick<OutputVerdict, 'status' | 'counterexamples' | 'gaps'>): 'false-equal' | 'unconfirmed-differs' | undefined {
   if (v.status === 'equal') return e.verdict === 'equal' ? undefined : 'false-equal';
   if (v.status !== 'differs') return undefined;
   const claims = [
-    ...v.counterexamples.map((x) => ({ k: combinationOf(x.inputs), expected: x.expected, actual: x.actual })),
-    ...v.gaps.unsafeExamples.map((k) => ({ k: Number(k), expected: v.gaps.safe, actual: (1 - v.gaps.safe) as 0 | 1 })),
+    ...v.counterexamples.map((x) => ({ k: combinationOf(x.inputs), expected: x.expected, actual: x.actual, unsafe: x.kind === 'unsafe' })),
+    ...v.gaps.unsafeExamples.map((k) => ({ k: Number(k), expected: v.gaps.safe, actual: (1 - v.gaps.safe) as 0 | 1, unsafe: true })),
   ];
   const confirmed = claims.length > 0 && claims.every((x) => {
     const m = e.mismatches.get(x.k);
-    return m !== undefined && m.expected === x.expected && m.actual === x.actual;
+    return m !== undefined && m.expected === x.expected && m.actual === x.actual && x.unsafe === (m.expected === v.gaps.safe);
   });
   return confirmed ? undefined : 'unconfirmed-differs';
 }

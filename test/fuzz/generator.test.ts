@@ -109,6 +109,13 @@ describe('fuzz judge', () => {
     expect(contradictionOf(differs, { status: 'differs', counterexamples: [], gaps: { ...gaps, unsafe: 1, unsafeExamples: [2] } })).toBeUndefined();
   });
 
+  it('takes a DIFFERS only when each counterexample is unsafe exactly where the spec requires the safe value', () => {
+    expect(contradictionOf(differs, { status: 'differs', counterexamples: [{ ...at2[0]!, kind: 'spurious-trip' }], gaps })).toBe('unconfirmed-differs');
+    const brake = { ...gaps, safe: 1 as const };
+    const spuriousAtBrake = [{ ...at2[0]!, kind: 'spurious-trip' as const }];
+    expect(contradictionOf(differs, { status: 'differs', counterexamples: spuriousAtBrake, gaps: brake })).toBeUndefined();
+  });
+
   it('accepts UNCHECKED and not-found whatever the interpreter says', () => {
     for (const e of [equal, differs, state]) {
       expect(contradictionOf(e, { status: 'unchecked', counterexamples: [], gaps })).toBeUndefined();
