@@ -3,7 +3,7 @@
 // over every combination (fast-check).
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { has, inputValue } from '../../src/logic/bits.js';
+import { has } from '../../src/logic/bits.js';
 import { buildFunction, type BoolFunction, type TableRow } from '../../src/logic/boolfn.js';
 import { cubeContains, cubeFromPattern, type Cube } from '../../src/logic/cube.js';
 import type { Expr } from '../../src/logic/expr/ast.js';
@@ -12,6 +12,7 @@ import { conditionText, kindOf, sideSentence } from '../../src/logic/difference.
 import { checkImplementation } from '../../src/logic/implcheck.js';
 import type { Signal } from '../../src/logic/signals.js';
 import { exprArb, letterSignals, specArb } from './expr/arbitraries.js';
+import { valueAt } from './expr/reference-value.js';
 
 const row = (pattern: string, value: 0 | 1 | '-'): TableRow => ({ cube: cubeFromPattern(pattern), value });
 const signals = (...ids: string[]): Signal[] => ids.map((identifier) => ({ identifier, header: identifier.replace(/_/g, ' ') }));
@@ -28,23 +29,6 @@ function program(text: string, sigs: readonly Signal[]): Expr {
   return r.value;
 }
 
-/** The value of an expression on one combination, by walking it (independent of the bit-set evaluators). */
-function valueAt(e: Expr, n: number, k: number): boolean {
-  switch (e.kind) {
-    case 'const':
-      return e.value;
-    case 'var':
-      return inputValue(n, k, e.input) === 1;
-    case 'not':
-      return !valueAt(e.arg, n, k);
-    case 'and':
-      return e.args.every((a) => valueAt(a, n, k));
-    case 'or':
-      return e.args.some((a) => valueAt(a, n, k));
-    case 'xor':
-      return e.args.reduce((v, a) => v !== valueAt(a, n, k), false);
-  }
-}
 
 // Run permit (safe value 0): ON only with the guard closed and the start pressed.
 const RUN = signals('Guard_closed', 'Start');

@@ -1,31 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { has, members } from '../../../src/logic/bits.js';
-import { FALSE, TRUE, and, not, or, variable, xor, type Expr } from '../../../src/logic/expr/ast.js';
+import { FALSE, TRUE, and, not, or, variable, xor } from '../../../src/logic/expr/ast.js';
 import { truthTable } from '../../../src/logic/expr/evaluate.js';
 import { exprArb, letterSignals } from './arbitraries.js';
+import { valueAt } from './reference-value.js';
 
 const a = variable(0, 'a');
 const b = variable(1, 'b');
 const c = variable(2, 'c');
 
-/** The plain meaning of an expression at one combination, one value at a time. */
-function valueAt(e: Expr, n: number, k: number): boolean {
-  switch (e.kind) {
-    case 'const':
-      return e.value;
-    case 'var':
-      return ((k >>> (n - 1 - e.input)) & 1) === 1;
-    case 'not':
-      return !valueAt(e.arg, n, k);
-    case 'and':
-      return e.args.every((x) => valueAt(x, n, k));
-    case 'or':
-      return e.args.some((x) => valueAt(x, n, k));
-    case 'xor':
-      return e.args.filter((x) => valueAt(x, n, k)).length % 2 === 1;
-  }
-}
 
 describe('truth tables of expressions', () => {
   it('the leftmost input is the most significant bit of a combination', () => {
