@@ -79,13 +79,7 @@ describe('writing the sheets of a run', () => {
   });
 
   it('in a results workbook the record and live check sheets hold a frozen pane just below their column titles', async () => {
-    const dir = scratch();
-    const input = join(dir, 'good.xlsx');
-    writeFileSync(input, xlsxBytes({ ...GOOD, sheets: { Vote: GOOD.sheets.Vote! } }));
-    const out = join(dir, 'results.xlsx');
-    expect((await runCli('analyze', input, '-o', out)).code).toBe(0);
-    const parts = partsOf(new Uint8Array(readFileSync(out)));
-    const text = (name: string) => new TextDecoder().decode(parts.get(name)!);
+    const text = await resultsWorkbookParts();
     const workbook = text('xl/workbook.xml');
     const rels = text('xl/_rels/workbook.xml.rels');
     const partOf = (sheet: string) => {
@@ -102,12 +96,7 @@ describe('writing the sheets of a run', () => {
   });
 
   it('in a results workbook the record and live check print their column titles on every page, the results sheet its title row', async () => {
-    const dir = scratch();
-    const input = join(dir, 'good.xlsx');
-    writeFileSync(input, xlsxBytes({ ...GOOD, sheets: { Vote: GOOD.sheets.Vote! } }));
-    const out = join(dir, 'results.xlsx');
-    expect((await runCli('analyze', input, '-o', out)).code).toBe(0);
-    const workbook = new TextDecoder().decode(partsOf(new Uint8Array(readFileSync(out))).get('xl/workbook.xml')!);
+    const workbook = (await resultsWorkbookParts())('xl/workbook.xml');
     const blocks = await blocksOf(new RowsHost(GOOD));
     const sheetIds = [...workbook.matchAll(/<sheet [^>]*name="([^"]+)"/g)].map((m) => m[1]!);
     const titlesOf = (sheet: string) => new RegExp(`name="_xlnm.Print_Titles" localSheetId="${sheetIds.indexOf(sheet)}">'${sheet}'!\\$(\\d+):\\$(\\d+)<`).exec(workbook)?.slice(1);
@@ -118,3 +107,14 @@ describe('writing the sheets of a run', () => {
     expect(titlesOf('Vote results')).toEqual(['1', '1']);
   });
 });
+
+/** `analyze -o` on the good workbook: each part of the results workbook as text. */
+async function resultsWorkbookParts(): Promise<(part: string) => string> {
+  const dir = scratch();
+  const input = join(dir, 'good.xlsx');
+  writeFileSync(input, xlsxBytes({ ...GOOD, sheets: { Vote: GOOD.sheets.Vote! } }));
+  const out = join(dir, 'results.xlsx');
+  expect((await runCli('analyze', input, '-o', out)).code).toBe(0);
+  const parts = partsOf(new Uint8Array(readFileSync(out)));
+  return (part) => new TextDecoder().decode(parts.get(part)!);
+}
