@@ -3,8 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { and, FALSE, not, or, variable, type Expr } from '../../src/logic/expr/ast.js';
 import { parseExpression } from '../../src/logic/expr/parse.js';
 import { printSt } from '../../src/logic/expr/print-st.js';
-import { checkImplementation } from '../../src/logic/implcheck.js';
-import { verifyImplementation } from '../../src/impl/verify.js';
+import { verifyExpression, verifyImplementation } from '../../src/impl/verify.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { checkSheet } from '../../src/report/check-sheet.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
@@ -18,7 +17,7 @@ const rowsOf = (block: SheetBlock, first: string) => values(block).filter((r) =>
 function expressionSheet(table: SpecTable, output: number, expression: string): SheetBlock {
   const parsed = parseExpression(expression, table.inputs);
   if (!parsed.ok) throw new Error(parsed.error.message);
-  return checkSheet({ kind: 'expression', table, output, expression, check: checkImplementation(parsed.value, table.outputs[output]!.built.fn) });
+  return checkSheet({ kind: 'expression', table, expression, verdict: verifyExpression(table, output, parsed.value) });
 }
 
 /** The counterexample rows: from the column titles ('Expected (spec)' among them) to the next label. */
@@ -71,11 +70,11 @@ describe('implementation check sheet', () => {
     fc.assert(
       fc.property(fc.uniqueArray(fc.integer({ min: 0, max: 7 })), (on) => {
         const expr = on.length === 0 ? FALSE : or(...on.map(minterm));
-        const check = checkImplementation(expr, vote.outputs[0]!.built.fn);
-        const block = checkSheet({ kind: 'expression', table: vote, output: 0, expression: printSt(expr), check });
+        const verdict = verifyExpression(vote, 0, expr);
+        const block = checkSheet({ kind: 'expression', table: vote, expression: printSt(expr), verdict });
         const rows = counterexampleRows(block).map((r) => r.slice(0, 5));
-        expect(rows).toEqual(check.counterexamples.map((c) => [...c.inputs, c.expected, c.actual]));
-        expect(rowsOf(block, 'Verdict')[0]![2]).toBe(check.equal ? 'equal on all 8 combinations' : `differs on ${check.mismatchCount} of 8 combinations`);
+        expect(rows).toEqual(verdict.counterexamples.map((c) => [...c.inputs, c.expected, c.actual]));
+        expect(rowsOf(block, 'Verdict')[0]![2]).toBe(verdict.status === 'equal' ? 'equal on all 8 combinations' : `differs on ${verdict.mismatchCount} of 8 combinations`);
       }),
     );
   });
