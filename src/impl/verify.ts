@@ -372,7 +372,7 @@ function judgeExpression(expr: Expr, table: SpecTable, o: number, options: Verif
 export function verifyExpression(table: SpecTable, o: number, expr: Expr, options: VerifyOptions = {}): OutputVerdict {
   const base = blankVerdict(table, o, options);
   const judged = judgeExpression(expr, table, o, options, table.wide ? symbolicSpec(table) : undefined);
-  return 'tooLarge' in judged ? { ...base, status: 'unchecked', reasons: [`the expression is ${judged.tooLarge}`] } : { ...base, ...judged };
+  return 'tooLarge' in judged ? { ...base, status: 'unchecked', reasons: [`the check is ${judged.tooLarge}`] } : { ...base, ...judged };
 }
 
 function verifyOutput(

@@ -105,7 +105,7 @@ export function readWide(
       'symbolic-engine',
       tableRange,
       `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms, proofs and unique-cause test steps go to the report, ` +
-        `the JSON document, the results sheet and test record (no live check: that takes at most 12 inputs), the hand-over files and verify`,
+        `the JSON document, the results sheet and test record (no live check: that takes at most 12 inputs), the hand-over files and verify, and the pane's result cards and typed expression checks`,
     ),
   );
   return spec;

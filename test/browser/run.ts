@@ -24,6 +24,7 @@ import { check, expect, ORIGIN, results, ROOT, same, SHOTS } from './harness.js'
 import { compareChecks } from './compare.js';
 import { mappingChecks } from './mapping.js';
 import { recordChecks, settingsChecks, wideLadderChecks } from './settings-records.js';
+import { wideTableChecks } from './wide.js';
 
 const SAMPLE = join(ROOT, 'sample-workbooks/capper-cell.xlsx');
 const CHROMIUM = '/usr/bin/chromium';
@@ -138,6 +139,7 @@ async function main(): Promise<number> {
     await settingsChecks(page, work);
     await recordChecks(page, work);
     await wideLadderChecks(page, work);
+    await wideTableChecks(page, work);
     await compareChecks(page, work);
     await mappingChecks(page, work);
     await taskpaneChecks(context, origin, pageErrors);
