@@ -3,17 +3,9 @@
 // combination. Differences are split into unsafe ones (marked) and spurious trips, each with
 // its count and a plain sentence; the ANF terms are a detail below.
 import { useEffect, useState } from 'preact/hooks';
-import {
-  sideSentence,
-  type Counterexample,
-  type EngineError,
-  type ImplCheck,
-  type Monomial,
-  type SideSentence,
-  type Signal,
-} from '../src/logic/index.js';
+import type { EngineError, SideSentence, Signal } from '../src/logic/index.js';
 import { verifyReportText, type SheetBlock } from '../src/report/index.js';
-import { printMonomial, type OutputVerdict } from '../src/impl/index.js';
+import type { Count, OutputVerdict } from '../src/impl/index.js';
 import { implementationWord, readMappingSheet, type MappingSource, type TableView } from '../src/workflow/index.js';
 import type { WorkbookHost } from '../src/hosts/index.js';
 import type { Answers } from './engine-protocol.js';
@@ -113,11 +105,11 @@ function SideSentences({ unsafe, trips }: { unsafe: SideSentence | undefined; tr
 const KIND_WORD = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' } as const;
 
 /** Counterexamples as a table, one column per input, the kind beside; unsafe rows marked. */
-function Counterexamples({ inputs, rows }: { inputs: readonly Signal[]; rows: readonly Pick<Counterexample, 'combination' | 'expected' | 'actual' | 'kind'>[] }) {
+function Counterexamples({ inputs, rows }: { inputs: readonly Signal[]; rows: OutputVerdict['counterexamples'] }) {
   return (
     <CombinationTable
       inputs={inputs}
-      rows={rows.map((c) => c.combination)}
+      rows={rows.map((c) => c.inputs.join(''))}
       rowClass={(r) => (rows[r]!.kind === 'unsafe' ? 'unsafe' : undefined)}
       extra={{ titles: ['spec', 'yours', 'kind'], cells: (r) => [rows[r]!.expected, rows[r]!.actual, KIND_WORD[rows[r]!.kind]] }}
     />
@@ -125,38 +117,43 @@ function Counterexamples({ inputs, rows }: { inputs: readonly Signal[]; rows: re
 }
 
 /** The ANF terms by which they differ: a detail under the sentences. */
-function AnfDetail({ terms, total }: { terms: readonly string[]; total: number }) {
+function AnfDetail({ terms, total }: { terms: readonly string[]; total: Count }) {
   return (
     <details class="anf-detail">
-      <summary>Detail: the XOR of {count(total)} ANF term{total === 1 ? '' : 's'} by which spec and program differ</summary>
+      <summary>Detail: the XOR of {count(total)} ANF term{Number(total) === 1 ? '' : 's'} by which spec and program differ</summary>
       <code>{terms.join(' XOR ')}</code>
       {total > terms.length ? ' …' : ''}
     </details>
   );
 }
 
-function CheckResult({ result, table }: { result: ImplCheck; table: TableView }) {
-  const inputs = table.inputs;
-  if (result.equal) {
+/** A typed expression's verdict: the same fields as a program output's, at up to 64 inputs. */
+function CheckResult({ result, table }: { result: OutputVerdict; table: TableView }) {
+  if (result.status === 'equal') {
     return (
       <p class="verdict equal" role="status">
         Equal: the expression agrees with the spec on all {count(result.combinations)} combinations
-        {result.dontCareOn > 0 ? ` (it turns on ${count(result.dontCareOn)} don't-care combinations)` : ''}.
+        {result.dontCare.implementationOn > 0 ? ` (it turns on ${count(result.dontCare.implementationOn)} don't-care combinations)` : ''}.
       </p>
     );
   }
-  const n = inputs.length;
-  const monos = result.differenceMonomials.map((m: Monomial) => printMonomial(m, inputs));
+  if (result.status !== 'differs') {
+    return (
+      <p class="verdict unchecked" role="status">
+        Not checked: {result.reasons.join('; ')}.
+      </p>
+    );
+  }
   return (
     <div class="verdict differs" role="status">
       <p>
         Differs on {count(result.mismatchCount)} of {count(result.combinations)} combinations. Counterexamples
-        {result.counterexamples.length < result.mismatchCount ? ` (the first of each kind)` : ''}, unsafe first:
+        {BigInt(result.counterexamples.length) < BigInt(result.mismatchCount) ? ` (the first of each kind)` : ''}, unsafe first:
       </p>
       <SideCounts unsafe={result.unsafeCount} trips={result.spuriousTripCount} />
-      <SideSentences unsafe={sideSentence('unsafe', n, result.unsafeWhen, inputs)} trips={sideSentence('spurious-trip', n, result.spuriousTripWhen, inputs)} />
-      <Counterexamples inputs={inputs} rows={result.counterexamples} />
-      <AnfDetail terms={monos} total={result.differenceMonomialCount} />
+      <SideSentences unsafe={result.unsafeWhen} trips={result.spuriousTripWhen} />
+      <Counterexamples inputs={table.inputs} rows={result.counterexamples} />
+      <AnfDetail terms={result.differenceMonomials} total={result.differenceMonomialCount} />
     </div>
   );
 }
@@ -213,7 +210,7 @@ export function ExpressionCheck({ table, engine, write }: { table: TableView; en
         <WriteCheckSheet
           key={answer.run}
           write={write}
-          label={checked.check.equal ? 'Write the verdict to a new sheet' : 'Write counterexamples to a new sheet'}
+          label={checked.check.counterexamples.length > 0 ? 'Write counterexamples to a new sheet' : 'Write the verdict to a new sheet'}
           sheet={checked.sheet}
         />
       )}

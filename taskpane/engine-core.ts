@@ -46,7 +46,7 @@ export class EngineCore {
         const checked = checkExpression(workbook, request.table, request.output, request.text);
         if (!checked.ok) return { kind: 'check', value: checked };
         const table = workbook.tables[request.table]!.table;
-        const sheet = checkSheet({ kind: 'expression', table, output: request.output, expression: request.text, check: checked.value });
+        const sheet = checkSheet({ kind: 'expression', table, expression: request.text, verdict: checked.value });
         return { kind: 'check', value: ok({ check: checked.value, sheet }) };
       }
       case 'verify': {

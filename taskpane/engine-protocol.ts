@@ -2,8 +2,8 @@
 // its answer type, and every answer is tagged with the kind it answers. The worker keeps the
 // workbook it examined; later requests name its tables by id instead of sending them again.
 // Everything is plain data (structured clone).
-import type { ImplCheck, Result } from '../src/logic/index.js';
-import type { VerifyReport } from '../src/impl/index.js';
+import type { Result } from '../src/logic/index.js';
+import type { OutputVerdict, VerifyReport } from '../src/impl/index.js';
 import type { SheetBlock } from '../src/report/index.js';
 import type {
   CompareView,
@@ -38,7 +38,7 @@ export interface Requests {
 export interface Answers {
   readonly examine: Result<WorkbookView, ReadFailure>;
   /** The check, and the sheet that writes it down. */
-  readonly check: Result<{ readonly check: ImplCheck; readonly sheet: SheetBlock }>;
+  readonly check: Result<{ readonly check: OutputVerdict; readonly sheet: SheetBlock }>;
   readonly verify: Result<{ readonly report: VerifyReport; readonly sheet: SheetBlock }>;
   /** Refused (with the reason) when the workflow allows no results write. */
   readonly sheets: Result<SheetBlock[], string>;

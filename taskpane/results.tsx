@@ -1,10 +1,10 @@
 // What the engine found in a spec table: signals, problems, and per output its forms with
-// their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on.
+// their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on. Either
+// engine's outputs (up to 64 inputs) come as the same views; counts are exact (BigInt).
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { inputValue, type Combination, type Signal } from '../src/logic/index.js';
-import { ladderSvg } from '../src/report/index.js';
-import type { AndOrForm, OutputAnalysis, XorForm } from '../src/analysis/index.js';
-import { describeCube, qualifiedAddress, type Problem, type RoleRule } from '../src/table/index.js';
+import { inputBit, type Signal } from '../src/logic/index.js';
+import { ladderSvg, minimumWords, type FormView, type OutputView } from '../src/report/index.js';
+import { describePattern, qualifiedAddress, type Problem, type RoleRule } from '../src/table/index.js';
 import { verdictWords, type Permission, type TableView, type Verdict } from '../src/workflow/index.js';
 import { copyText, download, safeFileName } from './files.js';
 
@@ -16,7 +16,7 @@ const ROLE_RULE: Readonly<Record<RoleRule, string>> = {
   'user-choice': 'your choice of how many columns are inputs',
 };
 
-const plural = (n: number, one: string, many = `${one}s`) => `${n.toLocaleString('en')} ${n === 1 ? one : many}`;
+const plural = (n: number | bigint, one: string, many = `${one}s`) => `${n.toLocaleString('en')} ${BigInt(n) === 1n ? one : many}`;
 
 /** A cell address that selects the cell in Excel when clicked (plain text where there is no live sheet). */
 export function CellLink({ sheet, cell, selectCell, bare }: { sheet: string; cell: string; selectCell?: SelectCell | undefined; bare?: boolean }) {
@@ -62,10 +62,10 @@ function CopyButton({ text, what }: { text: string; what: string }) {
   );
 }
 
-function proofLine(proof: { combinations: number; mismatchCount: number }): string {
-  return proof.mismatchCount === 0
-    ? `proof: all ${plural(proof.combinations, 'combination')} checked, every one agrees with the spec`
-    : `proof FAILED: ${plural(proof.mismatchCount, 'combination')} of ${proof.combinations.toLocaleString('en')} differ from the spec`;
+function proofLine(form: Pick<FormView, 'combinations' | 'mismatchCount'>): string {
+  return form.mismatchCount === 0n
+    ? `proof: all ${plural(form.combinations, 'combination')} checked, every one agrees with the spec`
+    : `proof FAILED: ${plural(form.mismatchCount, 'combination')} of ${form.combinations.toLocaleString('en')} differ from the spec`;
 }
 
 const BADGE: Readonly<Record<Verdict['kind'], string>> = { proven: 'good', heuristic: 'warn', differs: 'bad', 'not-analysed': 'bad' };
@@ -75,18 +75,19 @@ function VerdictBadge({ verdict }: { verdict: Verdict }) {
   return <span class={`badge ${BADGE[verdict.kind]}`}>{verdictWords(verdict)}</span>;
 }
 
-function FormView({ title, form, meta, verdict }: { title: string; form: AndOrForm | XorForm; meta: string; verdict?: Verdict }) {
-  const ok = form.proof.mismatchCount === 0;
+/** One form: its Structured Text (or, too long to print, what it is instead), cost, and proof. */
+function FormBlock({ title, form, meta, verdict }: { title: string; form: FormView; meta: string; verdict?: Verdict }) {
+  const ok = form.mismatchCount === 0n;
   return (
     <div class="form" data-form={title}>
       <div class="form-head">
         <h4>{title}</h4>
         {verdict && <VerdictBadge verdict={verdict} />}
-        <CopyButton text={form.text} what={title} />
+        {form.expr && <CopyButton text={form.text} what={title} />}
       </div>
-      <pre class="expr">{form.text}</pre>
+      {form.expr ? <pre class="expr">{form.text}</pre> : <p class="expr not-printed">{form.text}</p>}
       <p class="meta">{meta}</p>
-      <p class={ok ? 'proof ok' : 'proof bad'}>{proofLine(form.proof)}</p>
+      <p class={ok ? 'proof ok' : 'proof bad'}>{proofLine(form)}</p>
     </div>
   );
 }
@@ -115,21 +116,21 @@ export function CombinationTable({
   rowClass,
 }: {
   inputs: readonly Signal[];
-  rows: readonly Combination[];
+  /** Each a pattern over the inputs, leftmost first ("0110"). */
+  rows: readonly string[];
   extra?: { titles: string[]; cells: (k: number) => (string | number)[] };
   /** A class for row r (e.g. to mark unsafe counterexamples). */
   rowClass?: (r: number) => string | undefined;
 }) {
-  const n = inputs.length;
   return (
     <div class="scroll">
       <table class="combos">
         <SignalHeads signals={inputs} extra={extra?.titles} />
         <tbody>
-          {rows.map((k, r) => (
+          {rows.map((pattern, r) => (
             <tr key={r} class={rowClass?.(r)}>
               {inputs.map((_, i) => (
-                <td key={i}>{inputValue(n, k, i)}</td>
+                <td key={i}>{pattern[i]}</td>
               ))}
               {extra?.cells(r).map((c, j) => <td key={`x${j}`} class="strong">{c}</td>)}
             </tr>
@@ -140,7 +141,7 @@ export function CombinationTable({
   );
 }
 
-function LadderPicture({ output, inputs, handOver }: { output: OutputAnalysis; inputs: readonly Signal[]; handOver: Permission }) {
+function LadderPicture({ output, inputs, handOver }: { output: OutputView; inputs: readonly Signal[]; handOver: Permission }) {
   const svg = useMemo(() => ladderSvg(output, inputs), [output, inputs]);
   const [url, setUrl] = useState<string>();
   useEffect(() => {
@@ -170,18 +171,17 @@ function LadderPicture({ output, inputs, handOver }: { output: OutputAnalysis; i
 }
 
 /** The output's commissioning test steps, as on its test record: the inputs to set and what to expect. */
-function StepsView({ output, inputs }: { output: OutputAnalysis; inputs: readonly Signal[] }) {
-  const n = inputs.length;
+function StepsView({ output, inputs }: { output: OutputView; inputs: readonly Signal[] }) {
   const steps = output.steps;
   return (
     <details class="steps-record">
       <summary>Test steps ({plural(steps.length, 'step')})</summary>
       <CombinationTable
         inputs={inputs}
-        rows={steps.map((s) => s.combination)}
+        rows={steps.map((s) => s.pattern)}
         extra={{
           titles: ['Test ID', `Expected ${output.signal.identifier}`, 'Pass/Fail'],
-          cells: (r) => [`T-${inputs.map((_, i) => inputValue(n, steps[r]!.combination, i)).join('')}`, steps[r]!.expected, ''],
+          cells: (r) => [`T-${steps[r]!.pattern}`, steps[r]!.expected, ''],
         }}
       />
     </details>
@@ -216,6 +216,13 @@ function PrintButton({ card }: { card: { current: HTMLElement | null } }) {
   );
 }
 
+/** How many inputs the best-polarity XOR form takes complemented. */
+function complemented(output: OutputView, n: number): number {
+  let k = 0;
+  for (let i = 0; i < n; i++) if (output.bestXor.polarity & inputBit(n, i)) k++;
+  return k;
+}
+
 function OutputCard({
   output,
   verdict,
@@ -223,15 +230,17 @@ function OutputCard({
   handOver,
   selectCell,
 }: {
-  output: OutputAnalysis;
+  output: OutputView;
   verdict: Verdict;
   table: TableView;
   handOver: Permission;
   selectCell?: SelectCell | undefined;
 }) {
   const inputs = table.inputs;
+  const n = inputs.length;
   const { andOr, xor, bestXor } = output;
   const unused = output.unusedInputs.map((i) => inputs[i]!.identifier);
+  const flipped = complemented(output, n);
   const card = useRef<HTMLElement>(null);
   return (
     <section class="card output" aria-label={`Output ${output.signal.header}`} ref={card}>
@@ -245,31 +254,31 @@ function OutputCard({
         Spec table {qualifiedAddress(table.sheet, table.range)}: {verdictWords(verdict)}
       </p>
       <p class="meta">safe value {output.safe}; {plural(output.dontCareCount, "don't-care combination")}</p>
-      <FormView
+      <FormBlock
         title="AND/OR form"
         form={andOr}
-        meta={`sum of products: ${plural(andOr.terms, 'product term')}, ${plural(andOr.literals, 'literal')}`}
+        meta={`sum of products: ${plural(andOr.terms, 'product term')}, ${plural(andOr.literals, 'literal')}; ${minimumWords(andOr)}`}
         verdict={verdict}
       />
-      <FormView title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
-      <FormView
+      <FormBlock title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
+      <FormBlock
         title="Best-polarity XOR form"
         form={bestXor}
-        meta={`${plural(bestXor.terms, 'term')}; ${bestXor.exhaustive ? 'every polarity tried' : 'not every polarity tried'}`}
+        meta={`${plural(bestXor.terms, 'term')}, ${flipped === 0 ? 'no input complemented' : `${plural(flipped, 'input')} complemented`}; ${bestXor.exhaustive ? 'every polarity tried' : 'not every polarity tried'}`}
       />
       <dl class="facts">
         <dt>Inputs that do not matter</dt>
         <dd>{unused.length === 0 ? 'none: every input matters' : unused.join(', ')}</dd>
         <dt>Gaps</dt>
         <dd>
-          {output.gapCount === 0 ? (
+          {output.gapCount === 0n ? (
             'none: every combination is covered by a row'
           ) : (
             <>
               {plural(output.gapCount, 'combination')} no row covers; they take the safe value {output.safe}:
               <ul>
                 {output.gaps.map((c, i) => (
-                  <li key={i}>{describeCube(c, inputs)}</li>
+                  <li key={i}>{describePattern(c, inputs)}</li>
                 ))}
               </ul>
             </>
@@ -285,7 +294,7 @@ function OutputCard({
                 <li key={i}>
                   rows <CellLink sheet={table.sheet} cell={c.rowCellsA} selectCell={selectCell} /> and{' '}
                   <CellLink sheet={table.sheet} cell={c.rowCellsB} selectCell={selectCell} /> ask for 1 and 0 on{' '}
-                  {plural(c.combinations, 'combination')}; the safe value {output.safe} is used
+                  {plural(c.combinations, 'combination')}, e.g. <code>{c.example}</code>; the safe value {output.safe} is used
                 </li>
               ))}
             </ul>
@@ -293,11 +302,12 @@ function OutputCard({
         </dd>
         <dt>Permits also</dt>
         <dd>
-          {andOr.permitsAlso.length === 0 ? (
+          {andOr.permitsAlsoCount === 0n ? (
             "the AND/OR form turns on no don't-care combination"
           ) : (
             <>
-              the AND/OR form turns on {plural(andOr.permitsAlso.length, "don't-care combination")}:
+              the AND/OR form turns on {plural(andOr.permitsAlsoCount, "don't-care combination")}
+              {andOr.permitsAlsoCount > BigInt(andOr.permitsAlso.length) && ` (the first ${andOr.permitsAlso.length.toLocaleString('en')} below)`}:
               <CombinationTable inputs={inputs} rows={andOr.permitsAlso} />
             </>
           )}
@@ -324,12 +334,7 @@ export function SpecTableView({ table, handOver, selectCell }: { table: TableVie
           outputs told apart by {ROLE_RULE[table.roleRule]}.
           {table.xReading === 'dont-care' && ' X cells were read as any / don\'t-care.'}
         </p>
-        {table.limit && (
-          <p class="verdict" role="status">
-            {table.limit}.
-          </p>
-        )}
-        {!table.analysed && !table.limit && (
+        {!table.analysed && (
           <p class="verdict not-analysed" role="status">
             No form was derived or proven and nothing of this table is handed over: fix the cells below and read it again.
           </p>
@@ -370,8 +375,15 @@ export function SpecTableView({ table, handOver, selectCell }: { table: TableVie
           </div>
         </details>
       </section>
-      {table.analysed?.map((o, j) => (
-        <OutputCard key={o.signal.identifier} output={o} verdict={table.outputs[j]!.verdict} table={table} handOver={handOver} selectCell={selectCell} />
+      {table.analysed?.map((o) => (
+        <OutputCard
+          key={o.signal.identifier}
+          output={o}
+          verdict={table.outputs.find((t) => t.signal.header === o.signal.header)!.verdict}
+          table={table}
+          handOver={handOver}
+          selectCell={selectCell}
+        />
       ))}
     </div>
   );

@@ -4,4 +4,4 @@ export { kindWord } from './constructs.js';
 export { readMappingCsv, readMappingGrid, type NameMapping, type NamePair } from './mapping.js';
 export { readImplementation } from './read.js';
 export { type ImplProgram } from './types.js';
-export { NO_DIFFERENCE, printMonomial, specRowOf, verifyExitCode, verifyImplementation, type Count, type OutputVerdict, type VerifyReport } from './verify.js';
+export { NO_DIFFERENCE, printMonomial, specRowOf, verifyExitCode, verifyExpression, verifyImplementation, type Count, type OutputVerdict, type VerifyReport } from './verify.js';

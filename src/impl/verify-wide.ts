@@ -16,7 +16,7 @@ import {
   type WideBuilt,
 } from '../logic/index.js';
 import { wideBuilt, type SpecTable } from '../table/index.js';
-import { printMonomial, specRowOf, type CounterexampleRow, type OutputVerdict, type VerifyOptions } from './verify.js';
+import { printMonomial, specRowOf, type CounterexampleRow, type Judged, type VerifyOptions } from './verify.js';
 
 /** A wide table's functions, built once for all of its outputs; or why they could not be. */
 export type SymbolicSpec = { readonly dd: Dd; readonly built: readonly WideBuilt[] } | { readonly tooLarge: string };
@@ -29,23 +29,6 @@ export function symbolicSpec(table: SpecTable): SymbolicSpec {
     return { tooLarge: tooLargeWords(table.inputs.length, e) };
   }
 }
-
-type Judged = Pick<
-  OutputVerdict,
-  | 'status'
-  | 'mismatchCount'
-  | 'unsafeCount'
-  | 'spuriousTripCount'
-  | 'counterexamples'
-  | 'unsafeWhen'
-  | 'spuriousTripWhen'
-  | 'differenceMonomials'
-  | 'differenceMonomialCount'
-  | 'dontCare'
-  | 'gaps'
-  | 'conflicted'
-  | 'reasons'
->;
 
 /** Output `o` of a wide table against the program's expression over the spec's inputs. */
 export function compareSymbolically(expr: Expr, table: SpecTable, o: number, options: VerifyOptions, spec: SymbolicSpec): Judged | { tooLarge: string } {

@@ -330,17 +330,11 @@ function withMappingProblems(v: OutputVerdict, table: SpecTable, impl: ImplProgr
   };
 }
 
-function verifyOutput(
-  table: SpecTable,
-  o: number,
-  impl: ImplProgram,
-  pairs: readonly Mapped[],
-  options: VerifyOptions,
-  symbolic: SymbolicSpec | undefined,
-): OutputVerdict {
+/** An output's verdict before anything is compared: nothing found different, nothing counted. */
+function blankVerdict(table: SpecTable, o: number, options: VerifyOptions) {
   const spec = specOutputs(table)[o]!;
   const n = table.inputs.length;
-  const base = {
+  return {
     table: qualifiedAddress(table.sheet, table.range),
     output: spec.signal,
     cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
@@ -351,6 +345,46 @@ function verifyOutput(
     conflicted: 0,
     cannotJudge: [],
   };
+}
+
+/** What comparing an expression with an output's spec finds (the rest of a verdict names the program). */
+export type Judged = Pick<
+  OutputVerdict,
+  'status' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'counterexamples' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'
+>;
+
+/**
+ * An expression over the spec's inputs against output `o`, on every combination: symbolically
+ * (BDDs) for a table of more than 24 inputs, on truth tables below; or why it is too large to.
+ */
+function judgeExpression(expr: Expr, table: SpecTable, o: number, options: VerifyOptions, symbolic: SymbolicSpec | undefined): Judged | { tooLarge: string } {
+  if (symbolic) return compareSymbolically(expr, table, o, options, symbolic);
+  const n = table.inputs.length;
+  const work = nodeCount(expr) * Math.ceil(2 ** n / 32);
+  if (work > MAX_EVALUATION_WORDS) return { tooLarge: `too large to evaluate over ${n} inputs (${nodeCount(expr)} distinct operations)` };
+  return compare(expr, table, o, options);
+}
+
+/**
+ * A typed or pasted expression (over the spec's inputs) checked against output `o` of a table,
+ * exactly as a program's output is: the same verdict, counts, sides and counterexamples.
+ */
+export function verifyExpression(table: SpecTable, o: number, expr: Expr, options: VerifyOptions = {}): OutputVerdict {
+  const base = blankVerdict(table, o, options);
+  const judged = judgeExpression(expr, table, o, options, table.wide ? symbolicSpec(table) : undefined);
+  return 'tooLarge' in judged ? { ...base, status: 'unchecked', reasons: [`the check is ${judged.tooLarge}`] } : { ...base, ...judged };
+}
+
+function verifyOutput(
+  table: SpecTable,
+  o: number,
+  impl: ImplProgram,
+  pairs: readonly Mapped[],
+  options: VerifyOptions,
+  symbolic: SymbolicSpec | undefined,
+): OutputVerdict {
+  const spec = specOutputs(table)[o]!;
+  const base = blankVerdict(table, o, options);
   const candidates = impl.pous.flatMap((pou) => pou.outputs.filter((out) => stands(pairs, spec.signal, pou, out.name)).map((out) => ({ pou, out })));
   const pair = pairFor(pairs, spec.signal)?.pair;
   if (candidates.length === 0) {
@@ -370,15 +404,8 @@ function verifyOutput(
   }
   const remapped = toSpecInputs(out, pou, table, pairs);
   if (!remapped.ok) return { ...found, status: 'unchecked', reasons: remapped.reasons, cannotJudge: remapped.cannotJudge };
-  if (symbolic) {
-    const judged = compareSymbolically(remapped.expr, table, o, options, symbolic);
-    return 'tooLarge' in judged ? { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}): ${judged.tooLarge}`] } : { ...found, byMapping: remapped.byMapping, ...judged };
-  }
-  const work = nodeCount(remapped.expr) * Math.ceil(2 ** n / 32);
-  if (work > MAX_EVALUATION_WORDS) {
-    return { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}) is too large to evaluate over ${n} inputs (${nodeCount(remapped.expr)} distinct operations)`] };
-  }
-  return { ...found, byMapping: remapped.byMapping, ...compare(remapped.expr, table, o, options) };
+  const judged = judgeExpression(remapped.expr, table, o, options, symbolic);
+  return 'tooLarge' in judged ? { ...found, status: 'unchecked', reasons: [`${out.name} (line ${out.line}): ${judged.tooLarge}`] } : { ...found, byMapping: remapped.byMapping, ...judged };
 }
 
 /**
@@ -424,15 +451,7 @@ function toSpecInputs(
   return { ok: true, expr: mapVars(out.expr!, (v) => variable(index[v.input]!, table.inputs[index[v.input]!]!.identifier)), byMapping: [...byMapping] };
 }
 
-function compare(
-  expr: Expr,
-  table: SpecTable,
-  o: number,
-  options: VerifyOptions,
-): Pick<
-  OutputVerdict,
-  'status' | 'mismatchCount' | 'unsafeCount' | 'spuriousTripCount' | 'counterexamples' | 'unsafeWhen' | 'spuriousTripWhen' | 'differenceMonomials' | 'differenceMonomialCount' | 'dontCare' | 'gaps' | 'conflicted' | 'reasons'
-> {
+function compare(expr: Expr, table: SpecTable, o: number, options: VerifyOptions): Judged {
   const spec = table.outputs[o]!;
   const { fn, gaps, conflicted } = spec.built;
   const n = fn.n;

@@ -2,18 +2,8 @@
 // counterexamples as rows (inputs 0/1, expected, actual, the spec row they contradict), the
 // ANF monomials by which implementation and spec differ, and the don't-care/gap notes. A pasted
 // expression (one output) and a program file (every output) come to the same sections.
-import {
-  appendAll,
-  count,
-  has,
-  maxOf,
-  sideSentence,
-  type Combination,
-  type CounterexampleKind,
-  type ImplCheck,
-  type Signal,
-} from '../logic/index.js';
-import { kindWord, printMonomial, specRowOf, type OutputVerdict, type VerifyReport } from '../impl/index.js';
+import { appendAll, combinationPattern, maxOf, type CounterexampleKind, type Signal } from '../logic/index.js';
+import { kindWord, type OutputVerdict, type VerifyReport } from '../impl/index.js';
 import { qualifiedAddress, type SpecTable } from '../table/index.js';
 import { sideCountsText, sideTotals } from './verify-report.js';
 import { CAUTION_LINES } from './caution.js';
@@ -23,8 +13,8 @@ import { sheetName } from './test-steps.js';
 import { fit, plural } from './text.js';
 
 export type CheckSubject =
-  /** An expression typed or pasted for one output of a table, checked by `checkImplementation`. */
-  | { readonly kind: 'expression'; readonly table: SpecTable; readonly output: number; readonly expression: string; readonly check: ImplCheck }
+  /** An expression typed or pasted for one output of a table, checked by `verifyExpression`. */
+  | { readonly kind: 'expression'; readonly table: SpecTable; readonly expression: string; readonly verdict: OutputVerdict }
   /** A program file checked against every output by `verifyImplementation`. */
   | { readonly kind: 'program'; readonly report: VerifyReport };
 
@@ -131,53 +121,47 @@ function verdictText(s: Section): string {
   }
 }
 
-function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>): CheckView {
-  const { table, output: o, check } = subject;
-  const spec = table.outputs[o]!;
-  const n = table.inputs.length;
-  const where = qualifiedAddress(table.sheet, table.range);
-  const { fn, gaps, conflicted } = spec.built;
-  const openNote = (k: Combination): string =>
-    has(gaps, k) ? `gap (no row covers it): safe value ${spec.safe}` : has(conflicted, k) ? `conflict: safe value ${spec.safe}` : '-';
-  const notes: [string, string][] = [];
-  const dc = count(fn.dc);
-  if (dc > 0) notes.push(["Don't-care", `${plural(dc, 'combination')}; the expression turns ${check.dontCareOn} of them ON (not counted as differences)`]);
-  const gapCount = count(gaps);
-  if (gapCount > 0) notes.push(['Gaps', `${plural(gapCount, 'combination')} no row covers; they take the safe value ${spec.safe} and are checked against it`]);
-  const conflictCount = count(conflicted);
-  if (conflictCount > 0) notes.push(['Conflicts', `${plural(conflictCount, 'combination')} the spec asks to be both 1 and 0; they take the safe value ${spec.safe} and are checked against it`]);
-  const unsafeWhen = sideSentence('unsafe', n, check.unsafeWhen, table.inputs);
-  const spuriousTripWhen = sideSentence('spurious-trip', n, check.spuriousTripWhen, table.inputs);
-  const section: Section = {
-    output: spec.signal,
-    cell: qualifiedAddress(table.sheet, table.headerCells[n + o] ?? ''),
-    status: check.equal ? 'equal' : 'differs',
-    combinations: check.combinations,
-    mismatchCount: check.mismatchCount,
-    unsafeCount: check.unsafeCount,
-    spuriousTripCount: check.spuriousTripCount,
-    ...(unsafeWhen ? { unsafeWhen } : {}),
-    ...(spuriousTripWhen ? { spuriousTripWhen } : {}),
-    safe: spec.safe,
-    differenceMonomials: check.differenceMonomials.map((m) => printMonomial(m, table.inputs)),
-    differenceMonomialCount: check.differenceMonomialCount,
-    inputs: table.inputs,
-    implementation: { value: 'the expression above' },
-    counterexamples: check.counterexamples.map((c) => {
-      const row = specRowOf(table, o, c.combination, c.expected);
-      return { inputs: c.inputs, expected: c.expected, actual: c.actual, kind: c.kind, specRow: row ? specRowText(row) : openNote(c.combination) };
-    }),
+/** One output's verdict as a section; `word` names what was checked ("expression", "implementation"). */
+function sectionOf(v: OutputVerdict, inputs: readonly Signal[], implementation: BlockCell, word: string): Section {
+  const safe = v.gaps.safe;
+  const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
+  if (v.status === 'equal' || v.status === 'differs') {
+    if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the ${word} turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
+    if (v.gaps.count > 0 && v.gaps.judged) notes.push(['Gaps', `${plural(v.gaps.count, 'combination')} no row covers; they take the safe value ${safe} and are checked against it`]);
+    if (v.gaps.count > 0 && !v.gaps.judged) {
+      const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => combinationPattern(inputs.length, BigInt(k)));
+      notes.push([
+        'Gaps',
+        `${plural(v.gaps.count, 'combination')} no row covers (safe value ${safe}); the ${word} is not at the safe value on ${v.gaps.unsafe} of them` +
+          `${examples.length > 0 ? `, e.g. ${examples.join(', ')}` : ''} (not judged: not counted as differences)`,
+      ]);
+    }
+    if (v.conflicted > 0) notes.push(['Conflicts', `${plural(v.conflicted, 'combination')} the spec asks to be both 1 and 0; they take the safe value ${safe} and are checked against it`]);
+  }
+  const openNote = (source: OutputVerdict['counterexamples'][number]['source']): string =>
+    source === 'gap' ? `gap (no row covers it): safe value ${safe}` : source === 'conflict' ? `conflict: safe value ${safe}` : '-';
+  return {
+    ...v,
+    safe,
+    inputs,
+    implementation,
+    counterexamples: v.counterexamples.map((c) => ({ ...c, specRow: c.specRow ? specRowText(c.specRow) : openNote(c.source) })),
     notes,
   };
+}
+
+function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>): CheckView {
+  const { table, verdict } = subject;
+  const where = qualifiedAddress(table.sheet, table.range);
   return {
     name: sheetName(table.sheet, ' check'),
     title: `Interlock Algebra implementation check: ${where}`,
     about: [
-      ['Checked', { value: `an expression for output ${spec.signal.header}` }],
+      ['Checked', { value: `an expression for output ${verdict.output.header}` }],
       ['Expression', code(fit(subject.expression, CELL_CHARS))],
       ['Spec table', { value: where }],
     ],
-    sections: [section],
+    sections: [sectionOf(verdict, table.inputs, { value: 'the expression above' }, 'expression')],
     lists: [],
   };
 }
@@ -185,30 +169,9 @@ function expressionView(subject: Extract<CheckSubject, { kind: 'expression' }>):
 function programView(report: VerifyReport): CheckView {
   const tally = (s: OutputVerdict['status']): number => report.outputs.filter((o) => o.status === s).length;
   const tables = [...new Set(report.outputs.map((o) => o.table))];
-  const sections = report.outputs.map((v): Section => {
-    const notes: [string, string][] = v.reasons.map((r) => [v.status === 'not-found' ? 'Why not found' : 'Why unchecked', r]);
-    if (v.status === 'equal' || v.status === 'differs') {
-      const n = Math.log2(Number(v.combinations));
-      if (v.dontCare.count > 0) notes.push(["Don't-care", `${plural(v.dontCare.count, 'combination')}; the implementation turns ${v.dontCare.implementationOn} of them ON (not counted as differences)`]);
-      if (v.gaps.count > 0) {
-        const examples = v.gaps.unsafeExamples.slice(0, 10).map((k) => k.toString(2).padStart(n, '0'));
-        notes.push([
-          'Gaps',
-          `${plural(v.gaps.count, 'combination')} no row covers (safe value ${v.gaps.safe}); the implementation is not at the safe value on ${v.gaps.unsafe} of them` +
-            `${examples.length > 0 ? `, e.g. ${examples.join(', ')}` : ''} (not counted as differences)`,
-        ]);
-      }
-      if (v.conflicted > 0) notes.push(['Conflicts', `${plural(v.conflicted, 'combination')} the spec asks to be both 1 and 0 (not counted)`]);
-    }
-    return {
-      ...v,
-      safe: v.gaps.safe,
-      inputs: report.inputs[v.table] ?? [],
-      implementation: { value: v.variable ? `${v.variable} (line ${v.line})` : 'none found' },
-      counterexamples: v.counterexamples.map((c) => ({ ...c, specRow: c.specRow ? specRowText(c.specRow) : '-' })),
-      notes,
-    };
-  });
+  const sections = report.outputs.map((v) =>
+    sectionOf(v, report.inputs[v.table] ?? [], { value: v.variable ? `${v.variable} (line ${v.line})` : 'none found' }, 'implementation'),
+  );
   return {
     name: sheetName(report.file.replace(/\.[^.]*$/, ''), ' check'),
     title: `Interlock Algebra implementation check: ${report.file}`,

@@ -52,6 +52,16 @@ export interface OutputView {
   readonly gapCount: bigint;
   readonly conflicts: readonly { readonly rowCellsA: string; readonly rowCellsB: string; readonly combinations: bigint; readonly example: string }[];
   readonly dontCareCount: bigint;
+  /** Of the XOR form (algebraic normal form). */
+  readonly degree: number;
+  /** The unique-cause test steps of the AND/OR form, combinations as patterns. */
+  readonly steps: readonly StepView[];
+}
+
+export interface StepView {
+  readonly pattern: string;
+  /** What the resolved function gives there: what the step expects. */
+  readonly expected: 0 | 1;
 }
 
 /** The outputs of a table, whichever engine analysed it. */
@@ -82,6 +92,8 @@ export function outputViews(analysis: TableAnalysis): OutputView[] {
         gapCount: analysis.wide!.gapCount,
         conflicts: conflicts(o.conflicts),
         dontCareCount: o.dontCareCount,
+        degree: o.degree,
+        steps: o.steps.map((t) => ({ pattern: pattern(t.combination), expected: t.expected })),
       };
     });
   }
@@ -107,6 +119,8 @@ export function outputViews(analysis: TableAnalysis): OutputView[] {
       gapCount: BigInt(o.gapCount),
       conflicts: conflicts(o.conflicts),
       dontCareCount: BigInt(o.dontCareCount),
+      degree: o.degree,
+      steps: o.steps.map((t) => ({ pattern: pattern(t.combination), expected: t.expected })),
     };
   });
 }

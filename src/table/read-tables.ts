@@ -11,7 +11,6 @@ import {
   minOf,
   toIdentifiers,
   WIDE_MAX_INPUTS,
-  type Cube,
   type OutputValue,
   type SafeValue,
   type Signal,
@@ -32,6 +31,7 @@ import {
   readDataCell,
   type BadCellKind,
 } from './cell-values.js';
+import { describeCube } from './describe.js';
 import { findBlocks } from './find-blocks.js';
 import {
   cellAddress,
@@ -634,16 +634,6 @@ function buildOutput(
     problems.push(sheet.problem('error', 'conflict', b.outputCells[j]!, message));
   }
   return { signal, safe, built: built.value };
-}
-
-/** "GuardA=1, GuardB=0", or "every combination" for the cube of all inputs. */
-export function describeCube(c: Cube, inputs: readonly Signal[]): string {
-  const n = inputs.length;
-  const parts = inputs.flatMap((s, i) => {
-    const bit = 1 << (n - 1 - i);
-    return c.mask & bit ? [`${s.header}=${c.bits & bit ? 1 : 0}`] : [];
-  });
-  return parts.length === 0 ? 'every combination' : parts.join(', ');
 }
 
 /** One warning per table: the rows leave the same combinations uncovered for every output. */

@@ -14,6 +14,7 @@ import {
   type WideBuilt,
   type WideCube,
 } from '../logic/index.js';
+import { describeCube } from './describe.js';
 import type { Problem, ProblemCode, Severity, SpecRow, WideSpec } from './types.js';
 
 /** How many gap cubes a gap warning names. */
@@ -75,7 +76,7 @@ export function readWide(
       const r = rows[c.rowB]!;
       const plural = c.combinations === 1n ? 'combination takes' : 'combinations take';
       const message =
-        `rows ${a.cells} and ${r.cells} both cover ${describeWide(overlapCube(cubes[c.rowA]!, cubes[c.rowB]!), inputs)} but ask ${signal.header} ` +
+        `rows ${a.cells} and ${r.cells} both cover ${describeCube(overlapCube(cubes[c.rowA]!, cubes[c.rowB]!), inputs)} but ask ${signal.header} ` +
         `for ${a.values[j]} and ${r.values[j]}; ${c.combinations} ${plural} the safe value ${safe}`;
       problems.push(problemAt('error', 'conflict', r.outputCells[j]!, message));
     }
@@ -104,20 +105,10 @@ export function readWide(
       'symbolic-engine',
       tableRange,
       `${n} inputs: analysed by the symbolic engine (up to 64 inputs); its forms, proofs and unique-cause test steps go to the report, ` +
-        `the JSON document, the results sheet and test record (no live check: that takes at most 12 inputs), the hand-over files and verify`,
+        `the JSON document, the results sheet and test record (no live check: that takes at most 12 inputs), the hand-over files and verify, and the pane's result cards and typed expression checks`,
     ),
   );
   return spec;
-}
-
-/** "GuardA=1, GuardB=0", or "every combination" for the cube of all inputs. */
-function describeWide(c: WideCube, inputs: readonly Signal[]): string {
-  const n = inputs.length;
-  const parts = inputs.flatMap((s, i) => {
-    const bit = inputBit(n, i);
-    return c.mask & bit ? [`${s.header}=${c.bits & bit ? 1 : 0}`] : [];
-  });
-  return parts.length === 0 ? 'every combination' : parts.join(', ');
 }
 
 /** Why a table could not be checked: the symbolic engine's limit, with what to do. */

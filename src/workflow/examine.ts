@@ -1,6 +1,6 @@
 // Read -> analyse -> verdicts -> what may be written and handed over: the one path every host
 // takes. Tables with errors are not analysed; their verdict says so, with the first error.
-import { MAX_INPUTS, type Signal } from '../logic/index.js';
+import type { Signal } from '../logic/index.js';
 import { analyseTable, type TableAnalysis } from '../analysis/index.js';
 import { qualifiedAddress, type Problem, type SpecTable } from '../table/index.js';
 import { plural } from '../report/index.js';
@@ -61,18 +61,6 @@ export function examineTable(table: SpecTable, id: number, analyse: (t: SpecTabl
       })
     : analysis.outputs.map(outputVerdict);
   return { id, table, verdict: outputs.length > 0 ? weakest(outputs) : notAnalysed(analysis.problems)!, outputs, analysis, problems: analysis.problems };
-}
-
-/**
- * Why a table's forms cannot go where 24 inputs is the most (the pane's result cards and a
- * typed expression check); undefined when they can. Sheets, hand-over and verify take 64.
- */
-export function wideLimit(table: SpecTable): string | undefined {
-  if (!table.wide) return undefined;
-  return (
-    `${qualifiedAddress(table.sheet, table.range)} has ${table.inputs.length} inputs: its forms and proofs are in the report, the JSON document, ` +
-    `the results sheet and the hand-over files; the pane's result cards and a typed expression check take at most ${MAX_INPUTS} inputs`
-  );
 }
 
 export function examine(read: TablesRead, options: ExamineOptions): Workbook {

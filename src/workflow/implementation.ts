@@ -1,15 +1,9 @@
 // Implementation checks under the workbook's verdicts: an output of a table that was not
 // analysed (it has errors) is UNCHECKED, whatever the program does, with the reason.
-import {
-  checkImplementation,
-  fail,
-  parseExpression,
-  SYMBOLIC_FROM_INPUTS,
-  type ImplCheck,
-  type Result,
-} from '../logic/index.js';
+import { fail, parseExpression, type Result } from '../logic/index.js';
 import {
   NO_DIFFERENCE,
+  verifyExpression,
   verifyImplementation,
   type ImplProgram,
   type NameMapping,
@@ -17,7 +11,7 @@ import {
   type VerifyReport,
 } from '../impl/index.js';
 import { qualifiedAddress } from '../table/index.js';
-import { wideLimit, type TableResult, type Workbook } from './examine.js';
+import { outputSignals, type TableResult, type Workbook } from './examine.js';
 import { verdictWords } from './verdict.js';
 
 /** The words of an implementation check's verdict, in every host. */
@@ -51,15 +45,15 @@ export function programCleared(wb: Workbook, report: VerifyReport): boolean {
   return wb.handOver.allowed && report.outputs.length > 0 && report.outputs.every((o) => implementationWord(o) === 'EQUAL');
 }
 
-/** A typed or pasted expression checked against one output; refused for a table that was not analysed. */
-export function checkExpression(wb: Workbook, tableId: number, output: number, text: string): Result<ImplCheck> {
+/**
+ * A typed or pasted expression checked against one output, as a program's output is checked
+ * (up to 64 inputs: symbolically over 24); refused for a table that was not analysed.
+ */
+export function checkExpression(wb: Workbook, tableId: number, output: number, text: string): Result<OutputVerdict> {
   const t = wb.tables[tableId];
-  const limit = t && wideLimit(t.table);
-  if (limit) return fail({ message: `not checked: ${limit}` });
-  if (!t || !t.table.outputs[output]) return fail({ message: `no table ${tableId} output ${output} in what was read` });
+  if (!t || !outputSignals(t.table)[output]) return fail({ message: `no table ${tableId} output ${output} in what was read` });
   if (!t.analysis) return fail({ message: `not checked: the spec table is ${verdictWords(t.verdict)}` });
   const parsed = parseExpression(text, t.table.inputs);
   if (!parsed.ok) return parsed;
-  const spec = t.table.outputs[output];
-  return { ok: true, value: checkImplementation(parsed.value, spec.built.fn, { safe: spec.safe, symbolicFrom: SYMBOLIC_FROM_INPUTS }) };
+  return { ok: true, value: verifyExpression(t.table, output, parsed.value) };
 }

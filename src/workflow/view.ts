@@ -1,9 +1,10 @@
 // What a host shows of a workbook read, without the truth tables behind it: small enough to
-// cross from the pane's worker on every read (a 24-input table's bit sets are 16.8 MB).
+// cross from the pane's worker on every read (a 24-input table's bit sets are 16.8 MB). Either
+// engine's outputs come as the same views (src/report output-view.ts), up to 64 inputs.
 import type { Signal } from '../logic/index.js';
-import type { OutputAnalysis } from '../analysis/index.js';
+import { outputViews, type OutputView } from '../report/index.js';
 import type { Problem, RoleRule, XReading } from '../table/index.js';
-import { wideLimit, type TableResult, type Workbook } from './examine.js';
+import type { TableResult, Workbook } from './examine.js';
 import type { Verdict } from './verdict.js';
 
 export interface TableView {
@@ -17,10 +18,11 @@ export interface TableView {
   readonly xReading: XReading;
   readonly verdict: Verdict;
   readonly problems: readonly Problem[];
-  /** The outputs' forms and findings, only for a table of at most 24 inputs that was analysed. */
-  readonly analysed?: readonly OutputAnalysis[];
-  /** Over 24 inputs: what the host cannot show or check of the table, and where its forms are. */
-  readonly limit?: string;
+  /**
+   * The outputs' forms and findings, only for a table that was analysed; in the order of
+   * `outputs`, less any output the symbolic engine found too large (its error says so).
+   */
+  readonly analysed?: readonly OutputView[];
 }
 
 /** The workbook's verdicts and permissions as they are, its tables as views. */
@@ -30,7 +32,6 @@ export interface WorkbookView extends Omit<Workbook, 'tables'> {
 
 function tableView(t: TableResult): TableView {
   const { table } = t;
-  const limit = wideLimit(table);
   return {
     id: t.id,
     sheet: table.sheet,
@@ -42,8 +43,7 @@ function tableView(t: TableResult): TableView {
     xReading: table.xReading,
     verdict: t.verdict,
     problems: t.problems,
-    ...(t.analysis && !limit ? { analysed: t.analysis.outputs } : {}),
-    ...(limit ? { limit } : {}),
+    ...(t.analysis ? { analysed: outputViews(t.analysis) } : {}),
   };
 }
 

@@ -10,8 +10,7 @@ import { extname, join, normalize } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import XLSX from 'xlsx';
 import { parseExpression } from '../../src/logic/expr/parse.js';
-import { checkImplementation } from '../../src/logic/implcheck.js';
-import { inputValue } from '../../src/logic/bits.js';
+import { verifyExpression } from '../../src/impl/verify.js';
 import { openFile } from '../../src/hosts/file-host.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { checkSheet } from '../../src/report/check-sheet.js';
@@ -25,6 +24,7 @@ import { check, expect, ORIGIN, results, ROOT, same, SHOTS } from './harness.js'
 import { compareChecks } from './compare.js';
 import { mappingChecks } from './mapping.js';
 import { recordChecks, settingsChecks, wideLadderChecks } from './settings-records.js';
+import { wideTableChecks } from './wide.js';
 
 const SAMPLE = join(ROOT, 'sample-workbooks/capper-cell.xlsx');
 const CHROMIUM = '/usr/bin/chromium';
@@ -139,6 +139,7 @@ async function main(): Promise<number> {
     await settingsChecks(page, work);
     await recordChecks(page, work);
     await wideLadderChecks(page, work);
+    await wideTableChecks(page, work);
     await compareChecks(page, work);
     await mappingChecks(page, work);
     await taskpaneChecks(context, origin, pageErrors);
@@ -214,18 +215,16 @@ async function standaloneChecks(page: Page, origin: string, work: string): Promi
     await verdict.waitFor({ timeout: 30_000 });
     const parsed = parseExpression(wrong, analysis.inputs);
     if (!parsed.ok) throw new Error(parsed.error.message);
-    const spec = analysis.table.outputs[0]!;
-    const want = checkImplementation(parsed.value, spec.built.fn, { safe: spec.safe });
+    const want = verifyExpression(analysis.table, 0, parsed.value);
     const head = await verdict.locator('p').first().textContent();
     expect(head?.startsWith(`Differs on ${want.mismatchCount} of ${want.combinations} combinations`) === true, `verdict: ${head}`);
     const rows = await verdict.locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent)));
-    const n = analysis.inputs.length;
     const word = { unsafe: 'unsafe', 'spurious-trip': 'spurious trip' } as const;
-    const wantRows = want.counterexamples.map((c) => [...Array.from({ length: n }, (_, i) => String(inputValue(n, c.combination, i))), String(c.expected), String(c.actual), word[c.kind]]);
+    const wantRows = want.counterexamples.map((c) => [...c.inputs.map(String), String(c.expected), String(c.actual), word[c.kind]]);
     same(rows, wantRows, 'counterexample rows, unsafe first');
     same(await verdict.locator('tbody tr.unsafe').count(), want.counterexamples.filter((c) => c.kind === 'unsafe').length, 'unsafe rows marked');
     same(await verdict.locator('.unsafe-count').textContent(), `${want.unsafeCount} unsafe combination${want.unsafeCount === 1 ? '' : 's'}`, 'unsafe count');
-    checkBlock = checkSheet({ kind: 'expression', table: analysis.table, output: 0, expression: wrong, check: want });
+    checkBlock = checkSheet({ kind: 'expression', table: analysis.table, expression: wrong, verdict: want });
   });
 
   await check('the counterexamples are written to a new sheet of the results workbook, which says so', async () => {

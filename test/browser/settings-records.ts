@@ -49,7 +49,7 @@ function formsInNode(book: TestWorkbook, sheet: string, options: SpecOptions): s
   return read.tables.flatMap((t) => analyseTable(t).outputs.flatMap((o) => [o.andOr.text, o.xor.text, o.bestXor.text]));
 }
 
-async function openBook(page: Page, path: string, fileName: string): Promise<void> {
+export async function openBook(page: Page, path: string, fileName: string): Promise<void> {
   await page.goto(`${ORIGIN.value}/standalone.html`);
   await page.locator('input[type=file][accept*="xlsx"]:not([data-compare])').setInputFiles(path);
   await page.getByText(`Opened ${fileName}`).waitFor({ timeout: 20_000 });
@@ -268,7 +268,7 @@ export async function recordChecks(page: Page, work: string): Promise<void> {
 }
 
 /** A screenshot of one part of the page at 320 and 800 px wide. */
-async function shot(page: Page, selector: string, name: string): Promise<void> {
+export async function shot(page: Page, selector: string, name: string): Promise<void> {
   await check(`screenshots of the ${name} at 320 px and 800 px wide`, async () => {
     for (const width of [320, 800]) {
       await page.setViewportSize({ width, height: 1000 });

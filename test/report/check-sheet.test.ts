@@ -4,12 +4,14 @@ import { and, FALSE, not, or, variable, type Expr } from '../../src/logic/expr/a
 import { parseExpression } from '../../src/logic/expr/parse.js';
 import { printSt } from '../../src/logic/expr/print-st.js';
 import { checkImplementation } from '../../src/logic/implcheck.js';
-import { verifyImplementation } from '../../src/impl/verify.js';
+import { verifyExpression, verifyImplementation } from '../../src/impl/verify.js';
 import { CAUTION_LINES } from '../../src/report/caution.js';
 import { checkSheet } from '../../src/report/check-sheet.js';
 import type { SheetBlock } from '../../src/report/sheet-block.js';
 import type { SpecTable } from '../../src/table/types.js';
+import { readSpecTables } from '../../src/table/read-tables.js';
 import { capperTables, implementation } from '../impl/capper.js';
+import { gridOf, tripRows } from '../workflow/workbooks.js';
 import { GUARD, tinyTable, VOTE } from './fixtures.js';
 
 const values = (block: SheetBlock) => block.rows.map((r) => r.map((c) => c?.value ?? null));
@@ -18,7 +20,7 @@ const rowsOf = (block: SheetBlock, first: string) => values(block).filter((r) =>
 function expressionSheet(table: SpecTable, output: number, expression: string): SheetBlock {
   const parsed = parseExpression(expression, table.inputs);
   if (!parsed.ok) throw new Error(parsed.error.message);
-  return checkSheet({ kind: 'expression', table, output, expression, check: checkImplementation(parsed.value, table.outputs[output]!.built.fn) });
+  return checkSheet({ kind: 'expression', table, expression, verdict: verifyExpression(table, output, parsed.value) });
 }
 
 /** The counterexample rows: from the column titles ('Expected (spec)' among them) to the next label. */
@@ -71,8 +73,9 @@ describe('implementation check sheet', () => {
     fc.assert(
       fc.property(fc.uniqueArray(fc.integer({ min: 0, max: 7 })), (on) => {
         const expr = on.length === 0 ? FALSE : or(...on.map(minterm));
+        const block = checkSheet({ kind: 'expression', table: vote, expression: printSt(expr), verdict: verifyExpression(vote, 0, expr) });
+        // The engine's own check of the expression, beside the sheet's rows.
         const check = checkImplementation(expr, vote.outputs[0]!.built.fn);
-        const block = checkSheet({ kind: 'expression', table: vote, output: 0, expression: printSt(expr), check });
         const rows = counterexampleRows(block).map((r) => r.slice(0, 5));
         expect(rows).toEqual(check.counterexamples.map((c) => [...c.inputs, c.expected, c.actual]));
         expect(rowsOf(block, 'Verdict')[0]![2]).toBe(check.equal ? 'equal on all 8 combinations' : `differs on ${check.mismatchCount} of 8 combinations`);
@@ -107,6 +110,16 @@ describe('implementation check sheet', () => {
       [null, 'Guard_closed AND Mode_setup'],
       [null, 'Two_hand_OK AND Mode_setup'],
     ]);
+  });
+
+  it('an expression checked at 40 inputs writes its exact counts and its counterexamples as 40 input cells', () => {
+    const trip = readSpecTables(gridOf('Trip', tripRows())).tables[0]!;
+    const block = expressionSheet(trip, 0, 'Cause_1 OR NOT Cause_2');
+    // ON with every cause healthy (1 unsafe, against the last row, 43); OFF when Cause_1 = 0 and Cause_2 = 1 (2^38 spurious trips).
+    expect(rowsOf(block, 'Verdict')).toEqual([['Verdict', 'DIFFERS', 'differs on 274877906945 of 1099511627776 combinations']]);
+    expect(rowsOf(block, 'Unsafe combinations')[0]!.slice(0, 2)).toEqual(['Unsafe combinations', 1]);
+    expect(rowsOf(block, 'Spurious trips')[0]!.slice(0, 2)).toEqual(['Spurious trips', 2 ** 38]);
+    expect(counterexampleRows(block)[0]).toEqual([...Array(40).fill(0), 0, 1, 'unsafe', "Trip!A43:AO43 (output cell Trip!AO43)"]);
   });
 
   it('a program report writes each output\'s verdict and implementing variable, and the tally', () => {

@@ -200,7 +200,7 @@ END_FUNCTION_BLOCK
     });
     const good = await run(GOOD, { sheet: 'Cell' });
     const checked = checkExpression(good, 0, 0, 'Guard_closed AND E_stop_healthy');
-    expect(checked.ok && checked.value.equal).toBe(true);
+    expect(checked.ok && checked.value.status).toBe('equal');
   });
 });
 

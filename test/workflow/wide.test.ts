@@ -1,6 +1,5 @@
-// Tables of more than 24 inputs through the workflow: verdicts from the symbolic proofs, sheets,
-// hand-over and verify at up to 64 inputs; what takes at most 24 inputs (the pane's result
-// cards, a typed expression) says so instead of showing nothing.
+// Tables of more than 24 inputs through the workflow: verdicts from the symbolic proofs, the
+// pane's views of their forms, sheets, hand-over, verify and typed expressions at up to 64 inputs.
 import { describe, expect, it } from 'vitest';
 import { readImplementation } from '../../src/impl/read.js';
 import { readSpecTables } from '../../src/table/read-tables.js';
@@ -18,21 +17,9 @@ import {
   workbookView,
   type Workbook,
 } from '../../src/workflow/index.js';
-import { gridOf, type Rows } from './workbooks.js';
+import { CAUSES, gridOf, tripRows, type Rows } from './workbooks.js';
 
-const N = 40;
-const causes = Array.from({ length: N }, (_, i) => `Cause ${i + 1}`);
-
-/** An OR trip: each cause alone trips, all healthy runs; `extra` rows after those. */
-function tripRows(extra: Rows = []): Rows {
-  return [
-    [...causes.map(() => 'input'), 'output'],
-    [...causes, 'Trip'],
-    ...causes.map((_, i) => [...causes.map((_, j) => (j === i ? 1 : '-')), 1]),
-    [...causes.map(() => 0), 0],
-    ...extra,
-  ];
-}
+const N = CAUSES.length;
 
 function examined(rows: Rows, budgetMs?: number): Workbook {
   const read = readSpecTables(gridOf('Trip', rows));
@@ -58,17 +45,22 @@ describe('a 40-cause OR trip through the workflow', () => {
     expect(files.value[1]!.text).toContain('41 steps for 40 inputs');
   });
 
-  it('writes its results sheet and test record; its problems say where its forms are', () => {
+  it('writes its results sheet and test record; its problems say where its forms are, the pane among them', () => {
     expect(sheetsToWrite(wb).map((b) => b.name)).toEqual(['Trip results', 'Trip record']);
     const info = t.problems.find((p) => p.code === 'symbolic-engine');
-    expect(info?.message).toMatch(/the results sheet and test record \(no live check: that takes at most 12 inputs\), the hand-over files and verify/);
+    expect(info?.message).toMatch(/the results sheet and test record \(no live check: that takes at most 12 inputs\), the hand-over files and verify, and the pane's result cards and typed expression checks$/);
   });
 
-  it("gives hosts its outputs' verdicts and the limit, and no bit-set forms to check live", () => {
+  it("gives hosts its outputs' verdicts and forms: the plain XOR form counted, not printed, the best-polarity one printed", () => {
     const view = workbookView(wb).tables[0]!;
     expect(view.outputs.map((o) => [o.signal.header, o.verdict.kind])).toEqual([['Trip', 'proven']]);
-    expect(view.analysed).toBeUndefined();
-    expect(view.limit).toMatch(/has 40 inputs/);
+    const [trip] = view.analysed!;
+    expect([trip!.andOr.terms, trip!.andOr.literals, trip!.andOr.proven, trip!.andOr.mismatchCount, trip!.andOr.combinations]).toEqual([40n, 40, true, 0n, 2n ** 40n]);
+    // OR of 40 CAUSES = XOR of every non-empty product of them: 2^40 - 1 terms.
+    expect([trip!.xor.terms, trip!.xor.expr, trip!.xor.text]).toEqual([2n ** 40n - 1n, null, '1099511627775 terms: not printed (more than 64)']);
+    // = TRUE XOR (NOT Cause_1 AND ... AND NOT Cause_40), every input complemented.
+    expect([trip!.bestXor.terms, trip!.bestXor.polarity, trip!.bestXor.mismatchCount]).toEqual([2n, 2n ** 40n - 1n, 0n]);
+    expect(trip!.steps).toHaveLength(41);
   });
 
   it('puts the verdict beside each output of the JSON document', () => {
@@ -88,19 +80,40 @@ describe('a 40-cause OR trip through the workflow', () => {
     expect(programCleared(wb, report)).toBe(false);
   });
 
-  it('refuses a typed expression, saying it takes at most 24 inputs', () => {
-    const typed = checkExpression(wb, 0, 0, 'Cause_1');
-    expect(typed.ok).toBe(false);
-    if (!typed.ok) expect(typed.error.message).toMatch(/has 40 inputs: .*a typed expression check take at most 24 inputs/);
+  it('checks a typed expression symbolically: the OR of every cause, in any order, is EQUAL on all 2^40 combinations', () => {
+    const typed = checkExpression(wb, 0, 0, [...CAUSES].reverse().map((c) => c.replace(' ', '_')).join(' OR '));
+    if (!typed.ok) throw new Error(typed.error.message);
+    expect([implementationWord(typed.value), typed.value.combinations, typed.value.mismatchCount]).toEqual(['EQUAL', 2n ** 40n, 0n]);
   });
+
+  it('a typed expression missing a cause DIFFERS where that cause alone trips: one spurious trip, counted exactly', () => {
+    const typed = checkExpression(wb, 0, 0, CAUSES.slice(1).map((c) => c.replace(' ', '_')).join(' | '));
+    if (!typed.ok) throw new Error(typed.error.message);
+    const v = typed.value;
+    expect([implementationWord(v), v.mismatchCount, v.unsafeCount, v.spuriousTripCount]).toEqual(['DIFFERS', 1n, 0n, 1n]);
+    expect(v.counterexamples.map((c) => [c.inputs.join(''), c.expected, c.actual, c.kind])).toEqual([[`1${'0'.repeat(N - 1)}`, 1, 0, 'spurious-trip']]);
+    expect(v.spuriousTripWhen?.sentence).toBe(`spurious trip exactly when ${CAUSES.map((c, i) => `${c.replace(' ', '_')} = ${i === 0 ? 1 : 0}`).join(' AND ')}`);
+  });
+
+  it('a typed expression wrong both ways gives each side its exact count and its unsafe combination first', () => {
+    // ON when every cause is healthy (unsafe: the spec requires the safe value 0 there), OFF
+    // when Cause_1 = 0 and Cause_2 = 1 whatever the other 38 (spurious trips: 2^38).
+    const typed = checkExpression(wb, 0, 0, 'Cause_1 OR NOT Cause_2');
+    if (!typed.ok) throw new Error(typed.error.message);
+    const v = typed.value;
+    expect([v.mismatchCount, v.unsafeCount, v.spuriousTripCount]).toEqual([2n ** 38n + 1n, 1n, 2n ** 38n]);
+    expect(v.counterexamples[0]).toMatchObject({ kind: 'unsafe', expected: 0, actual: 1, inputs: CAUSES.map(() => 0) });
+    expect(v.spuriousTripWhen?.sentence).toBe('spurious trip exactly when Cause_1 = 0 AND Cause_2 = 1');
+  });
+
 });
 
 describe('a wide table whose AND/OR search does not finish', () => {
   // Causes that trip in pairs: with no time given the cover is not proven.
   const pairs = (k: number): Rows => [
-    [...causes.map(() => 'input'), 'output'],
-    [...causes, 'Trip'],
-    ...Array.from({ length: k }, (_, i) => [...causes.map((_, j) => (j === i || j === (i * 7 + 3) % N ? 1 : '-')), 1]),
+    [...CAUSES.map(() => 'input'), 'output'],
+    [...CAUSES, 'Trip'],
+    ...Array.from({ length: k }, (_, i) => [...CAUSES.map((_, j) => (j === i || j === (i * 7 + 3) % N ? 1 : '-')), 1]),
   ];
 
   it('is heuristic, never proven', () => {
@@ -128,5 +141,12 @@ describe('a wide table whose AND/OR search does not finish', () => {
     expect(t.problems.find((p) => p.code === 'too-large')?.cell).toBe('AO2');
     expect([verdictWords(t.verdict), ...t.outputs.map(verdictWords)]).toEqual(Array(2).fill('not analysed: 1 error, the first at Trip!AO2'));
     expect(allCleared(wb)).toBe(false);
+  });
+
+  it('too large for the symbolic engine, a typed expression for it is UNCHECKED with the reason, never EQUAL', () => {
+    const typed = checkExpression(examined(pairs(N), 0), 0, 0, 'Cause_1');
+    if (!typed.ok) throw new Error(typed.error.message);
+    expect(implementationWord(typed.value)).toBe('UNCHECKED');
+    expect(typed.value.reasons).toEqual([expect.stringMatching(/^the check is too large to compare symbolically over 40 inputs/)]);
   });
 });

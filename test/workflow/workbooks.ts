@@ -80,6 +80,22 @@ export const NOTES: TestWorkbook = {
 
 export const WORKBOOKS = [GOOD, ERROR_CELL, WORDS_OUTPUT, NOTES] as const;
 
+/** The inputs of the wide trip: Cause 1 ... Cause 40. */
+export const CAUSES = Array.from({ length: 40 }, (_, i) => `Cause ${i + 1}`);
+
+/** An OR trip of 40 causes (the symbolic engine's): each cause alone trips, all healthy runs; `extra` rows after those. */
+export function tripRows(extra: Rows = []): Rows {
+  return [
+    [...CAUSES.map(() => 'input'), 'output'],
+    [...CAUSES, 'Trip'],
+    ...CAUSES.map((_, i) => [...CAUSES.map((_, j) => (j === i ? 1 : '-')), 1]),
+    [...CAUSES.map(() => 0), 0],
+    ...extra,
+  ];
+}
+
+export const TRIP_40: TestWorkbook = { name: 'forty-cause trip', file: 'trip40.xlsx', sheets: { Trip: tripRows() } };
+
 export function gridOf(sheet: string, rows: Rows): Grid {
   return { sheet, origin: 'A1', cells: rows.map((r) => r.map((v): CellValue => (v === '' ? null : v))) };
 }
