@@ -67,7 +67,13 @@ function summary(a: TableAnalysis): string {
   const o = a.outputs[0];
   const w = a.wide?.outputs[0];
   if (o) return `${o.andOr.terms} terms${o.andOr.proven ? ' proven' : ''}, XOR ${o.xor.terms} terms, gaps ${o.gapCount}`;
-  if (w) return `${w.andOr.terms} terms${w.andOr.proven ? ' proven' : ' heuristic'}, XOR ${w.xor.terms} terms, best ${w.bestXor.terms}, gaps ${a.wide!.gapCount}`;
+  if (w) {
+    const { gapCount, engine } = a.wide!;
+    const gaps = gapCount.atLeast === gapCount.atMost ? `${gapCount.atLeast}` : `${gapCount.atLeast}..${gapCount.atMost}`;
+    const form = `${w.andOr.terms} terms${w.andOr.proven ? ' proven' : ` heuristic, at least ${w.andOr.lowerBound.terms}`}`;
+    const xor = w.xor && w.bestXor ? `XOR ${w.xor.terms} terms, best ${w.bestXor.terms}` : 'no XOR form';
+    return `${form}, ${xor}, gaps ${gaps}${engine === 'rows' ? ', on the rows\' cubes' : ''}`;
+  }
   const error = a.problems.find((p) => p.severity === 'error');
   return error ? `${error.code}: ${error.message.split(', so ')[0]}` : 'no output';
 }

@@ -2,8 +2,8 @@
 // their proof, the inputs that do not matter, gaps, conflicts and don't-cares turned on. Either
 // engine's outputs (up to 64 inputs) come as the same views; counts are exact (BigInt).
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { inputBit, type Signal } from '../src/logic/index.js';
-import { ladderSvg, minimumWords, type FormView, type OutputView } from '../src/report/index.js';
+import { boundsWords, inputBit, type Signal } from '../src/logic/index.js';
+import { ladderSvg, minimumWords, NO_XOR, type FormView, type OutputView, type XorView } from '../src/report/index.js';
 import { describePattern, qualifiedAddress, type Problem, type RoleRule } from '../src/table/index.js';
 import { verdictWords, type Permission, type TableView, type Verdict } from '../src/workflow/index.js';
 import { copyText, download, safeFileName } from './files.js';
@@ -217,9 +217,9 @@ function PrintButton({ card }: { card: { current: HTMLElement | null } }) {
 }
 
 /** How many inputs the best-polarity XOR form takes complemented. */
-function complemented(output: OutputView, n: number): number {
+function complemented(bestXor: XorView, n: number): number {
   let k = 0;
-  for (let i = 0; i < n; i++) if (output.bestXor.polarity & inputBit(n, i)) k++;
+  for (let i = 0; i < n; i++) if (bestXor.polarity & inputBit(n, i)) k++;
   return k;
 }
 
@@ -240,7 +240,7 @@ function OutputCard({
   const n = inputs.length;
   const { andOr, xor, bestXor } = output;
   const unused = output.unusedInputs.map((i) => inputs[i]!.identifier);
-  const flipped = complemented(output, n);
+  const flipped = bestXor ? complemented(bestXor, n) : 0;
   const card = useRef<HTMLElement>(null);
   return (
     <section class="card output" aria-label={`Output ${output.signal.header}`} ref={card}>
@@ -260,22 +260,28 @@ function OutputCard({
         meta={`sum of products: ${plural(andOr.terms, 'product term')}, ${plural(andOr.literals, 'literal')}; ${minimumWords(andOr)}`}
         verdict={verdict}
       />
-      <FormBlock title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
-      <FormBlock
-        title="Best-polarity XOR form"
-        form={bestXor}
-        meta={`${plural(bestXor.terms, 'term')}, ${flipped === 0 ? 'no input complemented' : `${plural(flipped, 'input')} complemented`}; ${bestXor.exhaustive ? 'every polarity tried' : 'not every polarity tried'}`}
-      />
+      {xor && bestXor ? (
+        <>
+          <FormBlock title="XOR form" form={xor} meta={`algebraic normal form: ${plural(xor.terms, 'term')}, degree ${output.degree}`} />
+          <FormBlock
+            title="Best-polarity XOR form"
+            form={bestXor}
+            meta={`${plural(bestXor.terms, 'term')}, ${flipped === 0 ? 'no input complemented' : `${plural(flipped, 'input')} complemented`}; ${bestXor.exhaustive ? 'every polarity tried' : 'not every polarity tried'}`}
+          />
+        </>
+      ) : (
+        <p class="meta">XOR forms: {NO_XOR}</p>
+      )}
       <dl class="facts">
         <dt>Inputs that do not matter</dt>
         <dd>{unused.length === 0 ? 'none: every input matters' : unused.join(', ')}</dd>
         <dt>Gaps</dt>
         <dd>
-          {output.gapCount === 0n ? (
+          {output.gapCount.atMost === 0n ? (
             'none: every combination is covered by a row'
           ) : (
             <>
-              {plural(output.gapCount, 'combination')} no row covers; they take the safe value {output.safe}:
+              {boundsWords(output.gapCount, 'combination')} no row covers; they take the safe value {output.safe}:
               <ul>
                 {output.gaps.map((c, i) => (
                   <li key={i}>{describePattern(c, inputs)}</li>

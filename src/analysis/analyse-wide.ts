@@ -15,6 +15,7 @@ import {
 } from '../logic/index.js';
 import { POLICY_WORDS, type AnalyseOptions } from './analyse.js';
 import type { TableAnalysis } from './analysis-types.js';
+import { analyseRows } from './analyse-rows.js';
 import {
   settingName,
   tooLarge,
@@ -36,9 +37,9 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   let done = 0;
   const progress = (what: string): void => options.onProgress?.(++done, total, what);
   const problems: Problem[] = [...table.problems];
-  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs: [], gaps: [], gapCount: 0n, stepFacts: [] } };
-  // Reading has already said so at the table.
-  if (wide.tooLarge !== undefined) return nothing;
+  const nothing: TableAnalysis = { table, inputs: table.inputs, outputs: [], problems, wide: { n, engine: 'diagrams', outputs: [], gaps: [], gapCount: { atLeast: 0n, atMost: 0n }, stepFacts: [] } };
+  // Reading found no diagram of workable size (and said so at the table).
+  if (wide.noDiagram !== undefined) return analyseRows(table, { ...wide, noDiagram: wide.noDiagram }, options);
   let made: ReturnType<typeof wideBuilt>;
   try {
     made = wideBuilt(n, wide, table.rows);
@@ -82,7 +83,7 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
     return [analysed];
   });
   const stepFacts = factsOf(dd, outputs, resolvedOf, builtOf, gapSet);
-  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, outputs, gaps, gapCount, stepFacts } };
+  return { table, inputs: table.inputs, outputs: [], problems, wide: { n, engine: 'diagrams', outputs, gaps, gapCount: { atLeast: gapCount, atMost: gapCount }, stepFacts } };
 }
 
 /** Per combination of any output's steps: every output's expected value, gap, conflict and don't-care. */
@@ -117,13 +118,13 @@ const PERMITS_SHOWN = 8;
 function wideProblems(table: SpecTable, o: WideOutputAnalysis, cell: string): Problem[] {
   const at = (severity: Problem['severity'], code: ProblemCode, message: string): Problem => ({ severity, code, sheet: table.sheet, cell, message });
   const out: Problem[] = [];
-  const forms: [string, { proof: { mismatchCount: bigint } }][] = [
+  const forms: [string, { proof: { mismatchCount: bigint } } | null][] = [
     ['AND/OR form', o.andOr],
     ['XOR form', o.xor],
     ['best-polarity XOR form', o.bestXor],
   ];
   for (const [name, form] of forms)
-    if (form.proof.mismatchCount > 0n)
+    if (form && form.proof.mismatchCount > 0n)
       out.push(at('error', 'form-differs', `the ${name} of ${o.signal.header} differs from the table at ${form.proof.mismatchCount} combinations: do not use it`));
   if (!o.andOr.proven)
     out.push(at('info', 'not-proven', `the AND/OR form of ${o.signal.header} is the best found in the time given, not proven minimal`));

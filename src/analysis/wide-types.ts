@@ -1,6 +1,6 @@
 // What the analysis of a spec table of more than 24 inputs gives (what such a table carries is
 // `WideSpec` in types.ts). Plain data (BigInt included), so that it crosses a worker boundary.
-import type { SafeValue, Signal, WideCombination, WideCube, WideOutputForms, WideTestStep } from '../logic/index.js';
+import type { CountBounds, SafeValue, Signal, WideCombination, WideCube, WideOutputForms, WideTestStep, WideXor } from '../logic/index.js';
 
 export interface WideConflictReport {
   readonly rowCellsA: string;
@@ -10,7 +10,18 @@ export interface WideConflictReport {
   readonly combinations: bigint;
 }
 
-export interface WideOutputAnalysis extends WideOutputForms {
+/**
+ * Which engine analysed the table: `diagrams` (BDDs: every form and count exact) or `rows`
+ * (the rows' union has no decision diagram within the budget: the AND/OR form and its proof
+ * on the rows' cubes, no XOR forms, the gap count possibly bounded).
+ */
+export type WideEngine = 'diagrams' | 'rows';
+
+export interface WideOutputAnalysis extends Omit<WideOutputForms, 'xor' | 'bestXor' | 'degree'> {
+  /** Null where the engine is `rows`: an XOR form needs the function's decision diagram. */
+  readonly xor: WideXor | null;
+  readonly bestXor: WideXor | null;
+  readonly degree: number | null;
   readonly signal: Signal;
   readonly safe: SafeValue;
   readonly conflicts: readonly WideConflictReport[];
@@ -31,10 +42,12 @@ export interface WideStepFacts {
 
 export interface WideTableAnalysis {
   readonly n: number;
+  readonly engine: WideEngine;
   readonly outputs: readonly WideOutputAnalysis[];
   /** Combinations no row covers, as disjoint cubes (the first GAP_CUBES_LISTED). */
   readonly gaps: readonly WideCube[];
-  readonly gapCount: bigint;
+  /** Exact (atLeast = atMost) unless the count on the rows' cubes ran out of time. */
+  readonly gapCount: CountBounds;
   /** Every combination some output's steps use, in the order first used. */
   readonly stepFacts: readonly WideStepFacts[];
 }

@@ -57,7 +57,7 @@ export class Dd {
 
   constructor(
     readonly n: number,
-    readonly nodeLimit = DEFAULT_NODE_LIMIT,
+    private nodeLimit = DEFAULT_NODE_LIMIT,
     readonly timeMs = DEFAULT_DD_TIME_MS,
   ) {
     this.deadline = now() + timeMs;
@@ -69,6 +69,11 @@ export class Dd {
     this.vars[0] = this.vars[1] = n;
     this.table = new Int32Array(capacity * 2);
     this.tableMask = capacity * 2 - 1;
+  }
+
+  /** Raise the node budget (a first phase may be held to less, to give up early). */
+  allowNodes(limit: number): void {
+    this.nodeLimit = Math.max(this.nodeLimit, limit);
   }
 
   /** Nodes made so far (terminals included). */

@@ -41,10 +41,14 @@ export function wideUniqueCauseSteps(dd: Dd, cubes: readonly WideCube[], on: Nod
     flipInput: (f, input) => dd.flip(f, inputBit(n, input)),
     flip: (k, input) => k ^ inputBit(n, input),
   };
-  const terms = cubes.map((c): StepTerm => {
+  return causeSteps(sets, wideStepTerms(n, cubes, signals), signals);
+}
+
+/** The AND/OR form's terms as the steps see them. */
+export function wideStepTerms(n: number, cubes: readonly WideCube[], signals: readonly Signal[]): StepTerm[] {
+  return cubes.map((c): StepTerm => {
     const inputs: number[] = [];
     for (let i = 0; i < n; i++) if (c.mask & inputBit(n, i)) inputs.push(i);
     return { inputs, flippedTo: (i) => (c.bits & inputBit(n, i) ? 0 : 1), text: printSt(wideSopToExpr([c], signals)) };
   });
-  return causeSteps(sets, terms, signals);
 }

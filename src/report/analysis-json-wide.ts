@@ -8,23 +8,30 @@ import { formHead, namedForms, type MismatchJson, type OutputJson, type TableJso
 /** A count: a number while exact, else decimal digits. */
 type Count = number | string;
 
-/** `xor` is Structured Text, or "N terms: not printed (more than 64)". */
-export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
-  readonly xorTerms: Count;
+/**
+ * `xor` is Structured Text, or "N terms: not printed (more than 64)"; null (with `xorTerms`,
+ * `xorProofOf`, `bestXor` and `degree`) where the table was analysed on its rows' cubes.
+ */
+export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'proven' | 'terms' | 'literals'> {
+  readonly xor: string | null;
+  readonly xorTerms: Count | null;
   /** Terms are printed up to this many. */
   readonly xorPrintLimit: number;
   /** What the XOR proofs checked: the printed expression, or the computed terms when not printed. */
-  readonly xorProofOf: WideXor['proofOf'];
+  readonly xorProofOf: WideXor['proofOf'] | null;
   readonly check: { readonly combinations: Count; readonly mismatchCount: Count; readonly mismatches: MismatchJson[] };
   readonly permitsAlso: string[];
   readonly permitsAlsoCount: Count;
   readonly safeValue: 0 | 1;
   readonly dontCares: DontCarePolicy;
-  readonly bestXor: { readonly expr: string; readonly terms: Count; readonly complemented: string[]; readonly exhaustive: boolean; readonly proofOf: WideXor['proofOf'] };
-  readonly degree: number;
+  readonly bestXor: { readonly expr: string; readonly terms: Count; readonly complemented: string[]; readonly exhaustive: boolean; readonly proofOf: WideXor['proofOf'] } | null;
+  readonly degree: number | null;
+  /** The AND/OR form's proven lower bound: every form has at least this many terms. */
+  readonly termsAtLeast: number;
   readonly unusedInputs: string[];
   readonly gaps: string[];
-  readonly gapCount: Count;
+  /** Exact, or bounds where the count on the rows' cubes stopped at its time limit. */
+  readonly gapCount: Count | { readonly atLeast: Count; readonly atMost: Count };
   readonly dontCareCount: Count;
   readonly conflicts: { readonly rows: [string, string]; readonly notes?: [string | null, string | null]; readonly example: string; readonly combinations: Count }[];
   /** The unique-cause test steps, combinations as patterns. */
@@ -32,7 +39,8 @@ export interface WideOutputJson extends Pick<OutputJson, 'name' | 'identifier' |
 }
 
 export interface WideTableJson extends Omit<TableJson, 'outputs'> {
-  readonly engine: 'symbolic';
+  /** `symbolic`: decision diagrams; `row-cubes`: the rows had none of workable size. */
+  readonly engine: 'symbolic' | 'row-cubes';
   readonly outputs: WideOutputJson[];
 }
 
@@ -40,12 +48,13 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
   const { n } = wide;
   const headers = analysis.inputs.map((s) => s.header);
   const output = (o: WideOutputAnalysis): WideOutputJson => {
-    const forms = namedForms<{ proof: WideXor['proof'] }>(o);
+    const forms = namedForms<{ proof: WideXor['proof'] } | null>(o).flatMap(([form, f]) => (f ? [[form, f] as const] : []));
+    const { xor, bestXor } = o;
     return {
-      ...formHead(o),
-      xorTerms: countJson(o.xor.terms),
+      ...formHead(o, xor?.text ?? null),
+      xorTerms: xor && countJson(xor.terms),
       xorPrintLimit: XOR_PRINT_LIMIT,
-      xorProofOf: o.xor.proofOf,
+      xorProofOf: xor?.proofOf ?? null,
       check: {
         combinations: countJson(o.andOr.proof.combinations),
         mismatchCount: countJson(forms.reduce((k, [, f]) => k + f.proof.mismatchCount, 0n)),
@@ -55,17 +64,18 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
       permitsAlsoCount: countJson(o.permitsAlsoCount),
       safeValue: o.safe,
       dontCares: o.dontCares,
-      bestXor: {
-        expr: o.bestXor.text,
-        terms: countJson(o.bestXor.terms),
-        complemented: headers.filter((_, i) => o.bestXor.polarity & inputBit(n, i)),
-        exhaustive: o.bestXor.exhaustive,
-        proofOf: o.bestXor.proofOf,
+      bestXor: bestXor && {
+        expr: bestXor.text,
+        terms: countJson(bestXor.terms),
+        complemented: headers.filter((_, i) => bestXor.polarity & inputBit(n, i)),
+        exhaustive: bestXor.exhaustive,
+        proofOf: bestXor.proofOf,
       },
       degree: o.degree,
+      termsAtLeast: o.andOr.lowerBound.terms,
       unusedInputs: o.unusedInputs.map((i) => headers[i]!),
       gaps: wide.gaps.map((c) => widePattern(n, c)),
-      gapCount: countJson(wide.gapCount),
+      gapCount: wide.gapCount.atLeast === wide.gapCount.atMost ? countJson(wide.gapCount.atLeast) : { atLeast: countJson(wide.gapCount.atLeast), atMost: countJson(wide.gapCount.atMost) },
       dontCareCount: countJson(o.dontCareCount),
       conflicts: o.conflicts.map((c) => ({
         rows: [c.rowCellsA, c.rowCellsB],
@@ -76,5 +86,5 @@ export function wideAnalysisJson(analysis: TableAnalysis, wide: WideTableAnalysi
       steps: o.steps.map((s) => ({ combination: combinationPattern(n, s.combination), expected: s.expected, reason: s.reason })),
     };
   };
-  return { ...table, engine: 'symbolic', outputs: wide.outputs.map(output) };
+  return { ...table, engine: wide.engine === 'rows' ? 'row-cubes' : 'symbolic', outputs: wide.outputs.map(output) };
 }

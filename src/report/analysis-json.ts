@@ -101,17 +101,16 @@ export function namedForms<F>(o: { andOr: F; xor: F; bestXor: F }): [MismatchJso
   ];
 }
 
-/** The fields every output's JSON opens with (both engines' outputs). */
-export function formHead(o: {
-  signal: { header: string; identifier: string };
-  andOr: { text: string; proven: boolean; terms: number; literals: number };
-  xor: { text: string };
-}): Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'xor' | 'proven' | 'terms' | 'literals'> {
+/** The fields every output's JSON opens with (both engines' outputs; a wide one's `xor` may be null). */
+export function formHead<X extends string | null>(
+  o: { signal: { header: string; identifier: string }; andOr: { text: string; proven: boolean; terms: number; literals: number } },
+  xor: X,
+): Pick<OutputJson, 'name' | 'identifier' | 'andOr' | 'proven' | 'terms' | 'literals'> & { xor: X } {
   return {
     name: o.signal.header,
     identifier: o.signal.identifier,
     andOr: o.andOr.text,
-    xor: o.xor.text,
+    xor,
     proven: o.andOr.proven,
     terms: o.andOr.terms,
     literals: o.andOr.literals,
@@ -144,7 +143,7 @@ export function analysisJson(analysis: TableAnalysis): TableJson | WideTableJson
     const pattern = (c: Cube): string => cubeToPattern(n, c);
     const forms = namedForms<{ proof: XorForm['proof'] }>(o);
     return {
-      ...formHead(o),
+      ...formHead(o, o.xor.text),
       lowerBound: o.andOr.lowerBound,
       xorTerms: o.xor.terms,
       check: {

@@ -1,6 +1,7 @@
 // The readable report's lines for an output of a table of more than 24 inputs (symbolic engine).
-import { combinationPattern, inputBit, widePattern, type Signal, type WideProof } from '../logic/index.js';
+import { boundsWords, combinationPattern, inputBit, widePattern, type Signal, type WideProof } from '../logic/index.js';
 import type { WideOutputAnalysis, WideTableAnalysis } from '../analysis/index.js';
+import { NO_XOR } from './text.js';
 
 const LISTED = 8;
 
@@ -21,25 +22,30 @@ export function wideOutputLines(o: WideOutputAnalysis, inputs: readonly Signal[]
   const { n } = wide;
   const id = o.signal.identifier;
   const a = o.andOr;
-  const complemented = inputs.filter((_, i) => o.bestXor.polarity & inputBit(n, i)).map((s) => s.identifier);
-  const lines = ['', `Output ${o.signal.header} (${id}), safe value ${o.safe} (symbolic engine)`];
-  lines.push(`  AND/OR form, ${a.proven ? 'proven minimum' : 'heuristic (not proven minimal)'}: ${plural(a.terms, 'term')}, ${plural(a.literals, 'literal')}`);
+  const lines = ['', `Output ${o.signal.header} (${id}), safe value ${o.safe} (${wide.engine === 'rows' ? "row-cube engine: the rows have no decision diagram of workable size" : 'symbolic engine'})`];
+  const heuristic = `heuristic (not proven minimal; every form has at least ${plural(a.lowerBound.terms, 'term')})`;
+  lines.push(`  AND/OR form, ${a.proven ? 'proven minimum' : heuristic}: ${plural(a.terms, 'term')}, ${plural(a.literals, 'literal')}`);
   lines.push(`    ${id} := ${a.text};`);
-  // A form too long to print is named, never written as if it were a statement.
-  const statement = (f: WideOutputAnalysis['xor']): string => (f.expr ? `    ${id} := ${f.text};` : `    (${f.text}; its terms were proven)`);
-  lines.push(`  XOR form: ${plural(o.xor.terms, 'term')}, degree ${o.degree}`, statement(o.xor));
-  const exhaustive = o.bestXor.exhaustive ? 'best of all polarities' : 'best polarity found (search not exhaustive)';
-  const which = complemented.length === 0 ? 'no input complemented' : `complemented: ${complemented.join(', ')}`;
-  lines.push(`  Best-polarity XOR form: ${plural(o.bestXor.terms, 'term')}, ${exhaustive}, ${which}`, statement(o.bestXor));
-  lines.push(`  Proof over all ${a.proof.combinations} combinations: AND/OR ${proofWord(a.proof)}, XOR ${proofWord(o.xor.proof)}, best XOR ${proofWord(o.bestXor.proof)}`);
-  for (const [label, proof] of [['AND/OR', a.proof], ['XOR', o.xor.proof], ['best XOR', o.bestXor.proof]] as const)
+  const { xor, bestXor } = o;
+  if (xor && bestXor) {
+    const complemented = inputs.filter((_, i) => bestXor.polarity & inputBit(n, i)).map((s) => s.identifier);
+    // A form too long to print is named, never written as if it were a statement.
+    const statement = (f: typeof xor): string => (f.expr ? `    ${id} := ${f.text};` : `    (${f.text}; its terms were proven)`);
+    lines.push(`  XOR form: ${plural(xor.terms, 'term')}, degree ${o.degree}`, statement(xor));
+    const exhaustive = bestXor.exhaustive ? 'best of all polarities' : 'best polarity found (search not exhaustive)';
+    const which = complemented.length === 0 ? 'no input complemented' : `complemented: ${complemented.join(', ')}`;
+    lines.push(`  Best-polarity XOR form: ${plural(bestXor.terms, 'term')}, ${exhaustive}, ${which}`, statement(bestXor));
+  } else lines.push(`  XOR forms: ${NO_XOR}`);
+  const proofs: [string, WideProof][] = [['AND/OR', a.proof], ...(xor && bestXor ? ([['XOR', xor.proof], ['best XOR', bestXor.proof]] as [string, WideProof][]) : [])];
+  lines.push(`  Proof over all ${a.proof.combinations} combinations: ${proofs.map(([label, proof]) => `${label} ${proofWord(proof)}`).join(', ')}`);
+  for (const [label, proof] of proofs)
     if (proof.mismatchCount > 0n) lines.push(`    ${label} differs from the spec at: ${listed(proof.mismatches.map((k) => combinationPattern(n, k)), proof.mismatchCount)}`);
   const unused = o.unusedInputs.map((i) => inputs[i]!.identifier);
   lines.push(`  Inputs that do not matter: ${unused.length === 0 ? 'none' : unused.join(', ')}`);
   lines.push(
-    wide.gapCount === 0n
+    wide.gapCount.atMost === 0n
       ? '  Gaps: none'
-      : `  Gaps: ${plural(wide.gapCount, 'combination')} no row covers, set to the safe value ${o.safe}: ${listed(wide.gaps.map((c) => widePattern(n, c)), BigInt(wide.gaps.length))}`,
+      : `  Gaps: ${boundsWords(wide.gapCount, 'combination')} no row covers, set to the safe value ${o.safe}: ${listed(wide.gaps.map((c) => widePattern(n, c)), BigInt(wide.gaps.length))}`,
   );
   for (const c of o.conflicts)
     lines.push(`  Conflict: rows ${c.rowCellsA} and ${c.rowCellsB} ask for 1 and 0 at ${plural(c.combinations, 'combination')} (e.g. ${combinationPattern(n, c.example)}); the safe value ${o.safe} is used`);

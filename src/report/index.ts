@@ -14,7 +14,7 @@ export { quotedSheet, renameSheetRefs, type BlockCell, type CellStyle, type Shee
 export { footerText, LOOKS, PAGE_FOOTER, printSetup, STATUS_LOOKS, type Look } from './sheet-looks.js';
 export { exportSt, minimumWords, type FormChoice } from './st-export.js';
 export { sheetName, stepsCsv, stepTable, testRecordSheet, type RecordOptions } from './test-steps.js';
-export { plural } from './text.js';
+export { NO_XOR, plural } from './text.js';
 export { verifyReportJson, verifyReportText } from './verify-report.js';
 export { TOOL_NAME, TOOL_VERSION } from './version.js';
 export { outputViews, type AndOrView, type FormView, type OutputView, type StepView, type XorView } from './output-view.js';

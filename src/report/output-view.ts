@@ -4,6 +4,7 @@
 // cubes are patterns over the inputs, leftmost first, as the sheets write them.
 import {
   combinationPattern,
+  type CountBounds,
   cubeToPattern,
   toWide,
   widePattern,
@@ -44,16 +45,18 @@ export interface OutputView {
   readonly signal: Signal;
   readonly safe: 0 | 1;
   readonly andOr: AndOrView;
-  readonly xor: XorView;
-  readonly bestXor: XorView;
+  /** Null where the table was analysed on its rows' cubes (no decision diagram: no XOR form). */
+  readonly xor: XorView | null;
+  readonly bestXor: XorView | null;
   readonly unusedInputs: readonly number[];
-  /** Gap cubes as patterns (the first of them); the count complete. */
+  /** Gap cubes as patterns (the first of them). */
   readonly gaps: readonly string[];
-  readonly gapCount: bigint;
+  /** Exact (atLeast = atMost) unless counting on the rows' cubes ran out of time. */
+  readonly gapCount: CountBounds;
   readonly conflicts: readonly { readonly rowCellsA: string; readonly rowCellsB: string; readonly combinations: bigint; readonly example: string }[];
   readonly dontCareCount: bigint;
-  /** Of the XOR form (algebraic normal form). */
-  readonly degree: number;
+  /** Of the XOR form (algebraic normal form); null with it. */
+  readonly degree: number | null;
   /** The unique-cause test steps of the AND/OR form, combinations as patterns. */
   readonly steps: readonly StepView[];
 }
@@ -80,7 +83,7 @@ export function outputViews(analysis: TableAnalysis): OutputView[] {
         permitsAlso: f.proof.permitsAlso.map(pattern),
         permitsAlsoCount: f.proof.permitsAlsoCount,
       });
-      const xor = (f: typeof o.xor): XorView => ({ ...form(f), expr: f.expr, terms: f.terms, polarity: f.polarity, exhaustive: f.exhaustive });
+      const xor = (f: typeof o.xor): XorView | null => f && { ...form(f), expr: f.expr, terms: f.terms, polarity: f.polarity, exhaustive: f.exhaustive };
       return {
         signal: o.signal,
         safe: o.safe,
@@ -116,7 +119,7 @@ export function outputViews(analysis: TableAnalysis): OutputView[] {
       bestXor: xor(o.bestXor),
       unusedInputs: o.unusedInputs,
       gaps: o.gaps.map((c) => cubeToPattern(n, c)),
-      gapCount: BigInt(o.gapCount),
+      gapCount: { atLeast: BigInt(o.gapCount), atMost: BigInt(o.gapCount) },
       conflicts: conflicts(o.conflicts),
       dontCareCount: BigInt(o.dontCareCount),
       degree: o.degree,

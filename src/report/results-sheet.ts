@@ -4,6 +4,7 @@
 // Excel formulas from the input cells, one row per combination, with a status that reads
 // OK/DIFFERS under frozen column titles; the results sheet counts its DIFFERS near the top.
 import {
+  boundsWords,
   appendAll,
   has,
   inputBit,
@@ -22,7 +23,7 @@ import { printSetup } from './sheet-looks.js';
 import { chosenForm, FORM_LABEL, minimumWords, type FormChoice } from './st-export.js';
 import { outputViews, type OutputView } from './output-view.js';
 import { cautionRows, recordSteps, sheetName, stepBlockRows } from './test-steps.js';
-import { plural } from './text.js';
+import { NO_XOR, plural } from './text.js';
 
 /** The live check writes one row per combination up to this many inputs (4,096 rows). */
 export const LIVE_CHECK_MAX_INPUTS = 12;
@@ -134,6 +135,10 @@ function outputSection(analysis: TableAnalysis, o: OutputView): Row[] {
   ];
   for (const form of FORMS) {
     const f = chosenForm(o, form);
+    if (!f) {
+      rows.push([label(FORM_LABEL[form]), { value: NO_XOR }]);
+      continue;
+    }
     const cost = form === 'andOr' ? `${plural(o.andOr.terms, 'term')}, ${plural(o.andOr.literals, 'literal')}` : plural(f.terms, 'term');
     rows.push([label(FORM_LABEL[form]), code(cellText(f.text)), { value: cost }, { value: minimumText(o, form, n) }, { value: proofCell(f) }]);
   }
@@ -141,7 +146,7 @@ function outputSection(analysis: TableAnalysis, o: OutputView): Row[] {
   rows.push([label('Inputs that do not matter'), { value: unused.length === 0 ? 'none' : unused.join(', ') }]);
   rows.push([
     label('Gaps (take the safe value)'),
-    { value: o.gapCount === 0n ? 'none' : `${plural(o.gapCount, 'combination')}: ${listed(o.gaps, o.gaps.length)}` },
+    { value: o.gapCount.atMost === 0n ? 'none' : `${boundsWords(o.gapCount, 'combination')}: ${listed(o.gaps, o.gaps.length)}` },
   ]);
   if (o.conflicts.length === 0) rows.push([label('Conflicts'), { value: 'none' }]);
   for (const c of o.conflicts) {
@@ -153,7 +158,7 @@ function outputSection(analysis: TableAnalysis, o: OutputView): Row[] {
   rows.push([label("Don't-care combinations"), { value: `${o.dontCareCount}` }]);
   for (const form of FORMS) {
     const f = chosenForm(o, form);
-    if (f.permitsAlsoCount === 0n) continue;
+    if (!f || f.permitsAlsoCount === 0n) continue;
     rows.push([label(`${FORM_LABEL[form]} turns on`), { value: listed(f.permitsAlso, f.permitsAlsoCount) }]);
   }
   return rows;
@@ -161,11 +166,12 @@ function outputSection(analysis: TableAnalysis, o: OutputView): Row[] {
 
 function minimumText(o: OutputView, form: FormChoice, n: number): string {
   if (form === 'andOr') return minimumWords(o.andOr);
-  if (form === 'xor') return 'unique (algebraic normal form)';
+  if (form === 'xor' || !o.bestXor) return 'unique (algebraic normal form)';
+  const { polarity, exhaustive } = o.bestXor;
   const complemented = [];
-  for (let i = 0; i < n; i++) if (o.bestXor.polarity & inputBit(n, i)) complemented.push(i);
+  for (let i = 0; i < n; i++) if (polarity & inputBit(n, i)) complemented.push(i);
   const which = complemented.length === 0 ? 'no input complemented' : `${plural(complemented.length, 'input')} complemented`;
-  return `${which}; ${o.bestXor.exhaustive ? `fewest terms of all 2^${n} polarities` : 'best found, not all polarities searched'}`;
+  return `${which}; ${exhaustive ? `fewest terms of all 2^${n} polarities` : 'best found, not all polarities searched'}`;
 }
 
 function proofCell(p: { combinations: bigint; mismatchCount: bigint }): string {

@@ -1,7 +1,7 @@
 // Structured Text hand-over: one FUNCTION_BLOCK (or PROGRAM) per spec table, BOOL inputs and
 // outputs named by the header -> identifier map, one assignment per output, and a header of
 // (* *) comments that says where the logic came from, how it was proven, and the caution.
-import { appendAll, toIdentifiers } from '../logic/index.js';
+import { appendAll, boundsWords, toIdentifiers } from '../logic/index.js';
 import type { TableAnalysis } from '../analysis/index.js';
 import { outputSignalsOf, outputViews, type FormView, type OutputView } from './output-view.js';
 import { CAUTION_LINES } from './caution.js';
@@ -67,7 +67,7 @@ export function chosenForm<O extends { andOr: unknown; xor: unknown; bestXor: un
 /** The form written for an output: the one chosen, or the AND/OR form when the chosen one is too long to print. */
 export function writtenForm(output: OutputView, form: FormChoice): { form: FormChoice; view: FormView } {
   const chosen = chosenForm(output, form);
-  return chosen.expr ? { form, view: chosen } : { form: 'andOr', view: output.andOr };
+  return chosen?.expr ? { form, view: chosen } : { form: 'andOr', view: output.andOr };
 }
 
 /** "proven minimum", or "heuristic" with the lower bound that was proven. */
@@ -90,7 +90,13 @@ export function proofText(output: OutputView, chosen: FormChoice): string {
   const checked =
     f.mismatchCount === 0n ? `equal to the spec on all ${f.combinations} combinations` : `DIFFERS from the spec on ${f.mismatchCount} of ${f.combinations} combinations`;
   const permits = f.permitsAlsoCount > 0n ? `; turns on ${plural(f.permitsAlsoCount, "don't-care combination")}` : '';
-  const instead = form === chosen ? '' : ` (the ${FORM_LABEL[chosen]} has ${plural(chosenForm(output, chosen).terms, 'term')}, too many to print)`;
+  const alternative = chosenForm(output, chosen);
+  const instead =
+    form === chosen
+      ? ''
+      : alternative
+        ? ` (the ${FORM_LABEL[chosen]} has ${plural(alternative.terms, 'term')}, too many to print)`
+        : ` (the ${FORM_LABEL[chosen]} was not derived: the table was analysed on its rows' cubes)`;
   return `${FORM_LABEL[form]}${instead} (${cost}): ${checked}${permits}`;
 }
 
@@ -107,8 +113,8 @@ export function headerLines(analysis: TableAnalysis, form: FormChoice, options: 
     'Proof:',
     ...outputs.map((o) => `  ${o.signal.identifier}: ${proofText(o, form)}`),
   ];
-  for (const o of outputs.filter((x) => x.gapCount > 0n || x.conflicts.length > 0)) {
-    const what = [o.gapCount > 0n ? plural(o.gapCount, 'unspecified combination') : '', o.conflicts.length > 0 ? plural(o.conflicts.length, 'conflicting row pair') : ''];
+  for (const o of outputs.filter((x) => x.gapCount.atMost > 0n || x.conflicts.length > 0)) {
+    const what = [o.gapCount.atMost > 0n ? boundsWords(o.gapCount, 'unspecified combination') : '', o.conflicts.length > 0 ? plural(o.conflicts.length, 'conflicting row pair') : ''];
     lines.push(`  ${o.signal.identifier}: ${what.filter((w) => w !== '').join(' and ')} take the safe value ${o.safe}`);
   }
   const errors = analysis.problems.filter((p) => p.severity === 'error').length;

@@ -43,3 +43,6 @@ export function wrap(s: string, chars: number): string[] {
 export function plural(count: number | bigint, one: string, many = `${one}s`): string {
   return `${count} ${count === 1 || count === 1n ? one : many}`;
 }
+
+/** Why a table analysed on its rows' cubes has no XOR form. */
+export const NO_XOR = "not derived: an XOR form is computed from the function's decision diagram, and this table's rows have none of workable size";

@@ -1,5 +1,5 @@
 // What a spec table is once read from a grid of cells, and what went wrong reading it.
-import type { BuiltFunction, Cube, OutputValue, SafeValue, Signal, WideCube } from '../logic/index.js';
+import type { BuiltFunction, Cube, LeftOut, OutputValue, SafeValue, Signal, WideCube } from '../logic/index.js';
 
 /** One cell as a host reads it. Dates keep their serial number; errors keep their text (#N/A). */
 export type CellValue = null | number | boolean | string | { readonly error: string } | { readonly date: number };
@@ -153,6 +153,9 @@ export interface WideSpec {
   readonly cubes: readonly WideCube[];
   /** The outputs with their safe values (`SpecTable.outputs` is empty for such a table). */
   readonly outputs: readonly { readonly signal: Signal; readonly safe: SafeValue }[];
-  /** Set when reading found the table too large for the symbolic engine (an error at the table says so). */
-  readonly tooLarge?: string;
+  /**
+   * Set when the rows' union has no decision diagram within the budget (why, in words): the
+   * table is then analysed on its rows' cubes (an info problem at the table says so).
+   */
+  readonly noDiagram?: { readonly why: string; readonly gaps: LeftOut };
 }

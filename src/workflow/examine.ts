@@ -102,7 +102,7 @@ export function workbookVerdictText(wb: Workbook): string {
   const differing = wb.tables
     .flatMap((t) => [...(t.analysis?.outputs ?? []), ...(t.analysis?.wide?.outputs ?? [])])
     .flatMap((o) => [o.andOr, o.xor, o.bestXor])
-    .filter((f) => Number(f.proof.mismatchCount) > 0).length;
+    .filter((f) => f !== null && Number(f.proof.mismatchCount) > 0).length;
   const why: string[] = [];
   if (errors > 0) why.push(`${plural(errors, 'error')} in the spec`);
   if (differing > 0) why.push(`${plural(differing, 'form')} differ from the spec`);

@@ -28,7 +28,7 @@ export function notAnalysed(problems: readonly Problem[]): Verdict | undefined {
 
 /** Either engine's output: proven needs every proof without a mismatch and a finished minimum search. */
 export function outputVerdict(o: OutputAnalysis | WideOutputAnalysis): Verdict {
-  const differing = Math.max(...[o.andOr, o.xor, o.bestXor].map((f) => Number(f.proof.mismatchCount)));
+  const differing = Math.max(...[o.andOr, o.xor, o.bestXor].map((f) => (f ? Number(f.proof.mismatchCount) : 0)));
   if (differing > 0) return { kind: 'differs', combinations: differing };
   return o.andOr.proven ? { kind: 'proven' } : { kind: 'heuristic' };
 }

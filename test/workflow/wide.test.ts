@@ -57,9 +57,9 @@ describe('a 40-cause OR trip through the workflow', () => {
     const [trip] = view.analysed!;
     expect([trip!.andOr.terms, trip!.andOr.literals, trip!.andOr.proven, trip!.andOr.mismatchCount, trip!.andOr.combinations]).toEqual([40n, 40, true, 0n, 2n ** 40n]);
     // OR of 40 CAUSES = XOR of every non-empty product of them: 2^40 - 1 terms.
-    expect([trip!.xor.terms, trip!.xor.expr, trip!.xor.text]).toEqual([2n ** 40n - 1n, null, '1099511627775 terms: not printed (more than 64)']);
+    expect([trip!.xor!.terms, trip!.xor!.expr, trip!.xor!.text]).toEqual([2n ** 40n - 1n, null, '1099511627775 terms: not printed (more than 64)']);
     // = TRUE XOR (NOT Cause_1 AND ... AND NOT Cause_40), every input complemented.
-    expect([trip!.bestXor.terms, trip!.bestXor.polarity, trip!.bestXor.mismatchCount]).toEqual([2n, 2n ** 40n - 1n, 0n]);
+    expect([trip!.bestXor!.terms, trip!.bestXor!.polarity, trip!.bestXor!.mismatchCount]).toEqual([2n, 2n ** 40n - 1n, 0n]);
     expect(trip!.steps).toHaveLength(41);
   });
 
