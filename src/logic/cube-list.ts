@@ -15,7 +15,7 @@ export type Unknown = typeof UNKNOWN;
 /** Fixed patterns of inputs (all 0, all 1, alternating, and two mixed ones) guessed first. */
 const GUESSES = [0n, 0xffffffffffffffffn, 0x5555555555555555n, 0xaaaaaaaaaaaaaaaan, 0x3c96e1d2a5f0875bn, 0xc3691e2d5a0f78a4n];
 
-/** The search reads the clock once in this many steps. */
+/** A search reads the clock at its first step and then once in this many. */
 const CLOCK_EVERY = 64;
 
 /** Cubes looked at for the branching input. */
@@ -92,7 +92,7 @@ class Search {
   constructor(private readonly deadline: Deadline) {}
 
   tick(): boolean {
-    if (++this.steps % CLOCK_EVERY === 0 && this.deadline.passed()) this.timedOut = true;
+    if (this.steps++ % CLOCK_EVERY === 0 && this.deadline.passed()) this.timedOut = true;
     return this.timedOut;
   }
 

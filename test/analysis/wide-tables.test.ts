@@ -73,15 +73,21 @@ describe('a table of more than 24 inputs', () => {
     expect(out!.conflicts).toEqual([{ rows: ['A3:AA3', 'A4:AA4'], example: '1' + '0'.repeat(24) + '1', combinations: 2 ** 24 }]);
   });
 
-  it('too large for the symbolic engine in column order: an error at the table, nothing proven', () => {
+  it('with no decision diagram of workable size in column order: analysed on its rows, its form proven equal, no XOR form', () => {
     // a1 b1 + a2 b2 + ... with all a's left of all b's: 2^32 nodes in this order (a textbook case).
     const inputs = [...names(32, 'A'), ...names(32, 'B')];
     const rows = names(32, 'A').map((_, i) => [...inputs.map((_, j) => (j === i || j === 32 + i ? 1 : '-')), 1]);
     const t = onlyTable(inputs, 'Y', rows);
-    const error = t.problems.find((p) => p.severity === 'error')!;
-    expect(error).toMatchObject({ cell: t.range });
-    expect(error.message).toMatch(/too large for the symbolic engine .* nothing about it was checked or proven/);
+    expect(t.problems.filter((p) => p.severity === 'error')).toEqual([]);
+    expect(t.problems.find((p) => p.code === 'row-cube-engine')).toMatchObject({ cell: t.range, severity: 'info' });
     const analysis = analyseTable(t);
-    expect(analysis.wide?.outputs).toEqual([]);
+    const y = analysis.wide!.outputs[0]!;
+    expect(analysis.wide!.engine).toBe('rows');
+    // The 32 rows are the primes, each holding a combination no other holds: 32 terms at least.
+    expect([y.andOr.terms, y.andOr.literals, y.andOr.lowerBound.terms, y.andOr.proof.mismatchCount, y.andOr.proof.combinations]).toEqual([32, 64, 32, 0n, 2n ** 64n]);
+    expect([y.xor, y.bestXor, y.degree]).toEqual([null, null, null]);
+    // Gaps: every combination with no pair a_i = b_i = 1, 3^32 of them (3 of the 4 values of each pair).
+    const { atLeast, atMost } = analysis.wide!.gapCount;
+    expect(atLeast <= 3n ** 32n && 3n ** 32n <= atMost).toBe(true);
   });
 });
