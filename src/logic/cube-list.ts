@@ -21,16 +21,46 @@ const CLOCK_EVERY = 64;
 /** Cubes looked at for the branching input. */
 const SCANNED = 24;
 
+/** Cubes restricted to a cube, with what a search needs to know of them (one pass). */
+interface Restricted {
+  readonly list: readonly WideCube[];
+  /** One-literal cubes: the inputs they fix, the values a point outside them must take. */
+  readonly unitMask: bigint;
+  readonly unitBits: bigint;
+  /** Two one-literal cubes on one input with both values: nothing lies outside both. */
+  readonly clash: boolean;
+  /** Inputs some cube asks to be 1, and to be 0. */
+  readonly positive: bigint;
+  readonly negative: bigint;
+}
+
 /** Cubes (their literals outside `fixedMask`) restricted to a cube; null when one holds it whole. */
-function restrict(cubes: readonly WideCube[], fixedMask: bigint, fixedBits: bigint): WideCube[] | null {
-  const out: WideCube[] = [];
+function restrict(cubes: readonly WideCube[], fixedMask: bigint, fixedBits: bigint): Restricted | null {
+  const list: WideCube[] = [];
+  let unitMask = 0n;
+  let unitBits = 0n;
+  let clash = false;
+  let positive = 0n;
+  let negative = 0n;
   for (const c of cubes) {
     if (((c.bits ^ fixedBits) & c.mask & fixedMask) !== 0n) continue;
     const mask = c.mask & ~fixedMask;
     if (mask === 0n) return null;
-    out.push(mask === c.mask ? c : { mask, bits: c.bits & mask });
+    const bits = c.bits & mask;
+    list.push(mask === c.mask ? c : { mask, bits });
+    positive |= bits;
+    negative |= mask ^ bits;
+    if ((mask & (mask - 1n)) === 0n) {
+      // A one-literal cube: a point outside it takes the input's other value.
+      const want = bits === 0n ? mask : 0n;
+      if (unitMask & mask) clash ||= (unitBits & mask) !== want;
+      else {
+        unitMask |= mask;
+        unitBits |= want;
+      }
+    }
   }
-  return out;
+  return { list, unitMask, unitBits, clash, positive, negative };
 }
 
 function lowestBit(m: bigint): bigint {
@@ -55,37 +85,6 @@ function shortest(cubes: readonly WideCube[]): WideCube {
   return best;
 }
 
-/**
- * What every combination outside the cubes must take (one-literal cubes: the input's other
- * value), null when two of them disagree; with `pure`, when there is none, the inputs every
- * cube asks the same of, set against it (no cube gains by them: fine for finding one point,
- * not for counting).
- */
-function forced(cubes: readonly WideCube[], pure: boolean): { mask: bigint; bits: bigint } | null {
-  let mask = 0n;
-  let bits = 0n;
-  for (const c of cubes) {
-    if ((c.mask & (c.mask - 1n)) !== 0n) continue;
-    const want = c.bits === 0n ? c.mask : 0n;
-    if (mask & c.mask) {
-      if ((bits & c.mask) !== want) return null;
-    } else {
-      mask |= c.mask;
-      bits |= want;
-    }
-  }
-  if (mask !== 0n || !pure) return { mask, bits };
-  let positive = 0n;
-  let negative = 0n;
-  for (const c of cubes) {
-    positive |= c.bits;
-    negative |= c.mask & ~c.bits;
-  }
-  const onlyPositive = positive & ~negative;
-  const onlyNegative = negative & ~positive;
-  return { mask: onlyPositive | onlyNegative, bits: onlyNegative };
-}
-
 class Search {
   private steps = 0;
   timedOut = false;
@@ -96,27 +95,32 @@ class Search {
     return this.timedOut;
   }
 
-  /** A point outside every cube, agreeing with `bits` on the inputs of `mask`; null: none. */
-  point(cubes: readonly WideCube[], mask: bigint, bits: bigint): WideCombination | null {
+  /** A point outside every cube of `r`, agreeing with `bits` on the inputs of `mask`; null: none. */
+  point(r: Restricted, mask: bigint, bits: bigint): WideCombination | null {
     if (this.tick()) return null;
-    let list: readonly WideCube[] = cubes;
     for (;;) {
-      if (list.length === 0) return bits;
-      const f = forced(list, true);
-      if (f === null) return null;
-      if (f.mask === 0n) break;
-      mask |= f.mask;
-      bits |= f.bits;
-      const rest = restrict(list, f.mask, f.bits);
+      if (r.list.length === 0) return bits;
+      if (r.clash) return null;
+      // Units first, else the inputs every cube asks the same of, set against it: no cube gains by them.
+      let fixMask = r.unitMask;
+      let fixBits = r.unitBits;
+      if (fixMask === 0n) {
+        fixMask = r.positive ^ r.negative;
+        fixBits = r.negative & ~r.positive;
+      }
+      if (fixMask === 0n) break;
+      mask |= fixMask;
+      bits |= fixBits;
+      const rest = restrict(r.list, fixMask, fixBits);
       if (rest === null) return null;
-      list = rest;
+      r = rest;
     }
-    const branch = shortest(list);
+    const branch = shortest(r.list);
     const bit = lowestBit(branch.mask);
     const literal = branch.bits & bit;
     // First the value that makes the short cube false.
     for (const value of [literal ^ bit, literal]) {
-      const rest = restrict(list, bit, value);
+      const rest = restrict(r.list, bit, value);
       if (rest === null) continue;
       const found = this.point(rest, mask | bit, bits | value);
       if (found !== null || this.timedOut) return found;
@@ -179,30 +183,30 @@ export function countOutside(n: number, cubes: readonly WideCube[], deadline: De
   const search = new Search(deadline);
   const found: WideCube[] = [];
   let atLeast = 0n;
-  type Part = { readonly list: readonly WideCube[]; readonly mask: bigint; readonly bits: bigint; readonly free: number };
+  type Part = { readonly r: Restricted; readonly mask: bigint; readonly bits: bigint; readonly free: number };
   const start = restrict(cubes, 0n, 0n);
-  const parts: Part[] = start === null ? [] : [{ list: start, mask: 0n, bits: 0n, free: n }];
+  const parts: Part[] = start === null ? [] : [{ r: start, mask: 0n, bits: 0n, free: n }];
   let head = 0;
   let broad = true;
   while (head < parts.length && !search.tick()) {
     broad &&= !halfway.passed();
-    const { list, mask, bits, free } = broad ? parts[head++]! : parts.pop()!;
-    if (list.length === 0) {
+    const { r, mask, bits, free } = broad ? parts[head++]! : parts.pop()!;
+    if (r.list.length === 0) {
       atLeast += 1n << BigInt(free);
       if (found.length < listed) found.push({ mask, bits });
       continue;
     }
-    const f = forced(list, false);
-    if (f === null) continue;
-    if (f.mask !== 0n) {
-      const rest = restrict(list, f.mask, f.bits);
-      if (rest !== null) parts.push({ list: rest, mask: mask | f.mask, bits: bits | f.bits, free: free - literalCount(f.mask) });
+    // A one-literal cube covers its half at once: only the other half is left.
+    if (r.clash) continue;
+    if (r.unitMask !== 0n) {
+      const rest = restrict(r.list, r.unitMask, r.unitBits);
+      if (rest !== null) parts.push({ r: rest, mask: mask | r.unitMask, bits: bits | r.unitBits, free: free - literalCount(r.unitMask) });
       continue;
     }
-    const bit = lowestBit(shortest(list).mask);
+    const bit = lowestBit(shortest(r.list).mask);
     for (const value of [bit, 0n]) {
-      const rest = restrict(list, bit, value);
-      if (rest !== null) parts.push({ list: rest, mask: mask | bit, bits: bits | value, free: free - 1 });
+      const rest = restrict(r.list, bit, value);
+      if (rest !== null) parts.push({ r: rest, mask: mask | bit, bits: bits | value, free: free - 1 });
     }
   }
   let unsettled = 0n;

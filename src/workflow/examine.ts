@@ -96,8 +96,11 @@ export function allCleared(wb: Workbook): boolean {
 /** The verdict line of a whole run. */
 export function workbookVerdictText(wb: Workbook): string {
   if (wb.tables.length === 0) return 'No spec table was found: nothing was proven.';
-  const forms = wb.tables.reduce((n, t) => n + t.outputs.length * 3, 0);
-  if (allCleared(wb)) return `Every form (${forms}) was proven against its spec table, every input combination checked.`;
+  const outputs = wb.tables.flatMap((t) => [...(t.analysis?.outputs ?? []), ...(t.analysis?.wide?.outputs ?? [])]);
+  const forms = outputs.reduce((n, o) => n + [o.andOr, o.xor, o.bestXor].filter((f) => f !== null).length, 0);
+  const withoutXor = outputs.filter((o) => o.xor === null).length;
+  const missing = withoutXor === 0 ? '' : `; no XOR forms for ${plural(withoutXor, 'output')} analysed on its rows' cubes (no decision diagram)`;
+  if (allCleared(wb)) return `Every form derived (${forms}) was proven against its spec table, every input combination checked${missing}.`;
   const errors = errorsOf([...wb.problems, ...wb.tables.flatMap((t) => t.problems)]).length;
   const differing = wb.tables
     .flatMap((t) => [...(t.analysis?.outputs ?? []), ...(t.analysis?.wide?.outputs ?? [])])
