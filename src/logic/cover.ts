@@ -82,7 +82,7 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
       best = cheapest.columns;
       boundCost += cheapest.bound;
       finished &&= cheapest.finished;
-    } else boundCost += search(problem.costs, Infinity).rootBound(block);
+    } else boundCost += search(problem.costs, Infinity).rootBound(block, best);
     appendAll(chosen, best);
   }
   let columns = [...new Set(chosen)].sort((a, b) => a - b);
@@ -94,6 +94,9 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
 
 /** Subgradient steps at the root of a search (40 per node below it, warm-started). */
 const ROOT_STEPS = 600;
+
+/** Subgradient steps a root bound still takes past the deadline (a bounded overrun). */
+const LATE_STEPS = 100;
 
 /** A bound that costs are integers lets round up (less a margin for rounding errors). */
 function integerBound(value: number): number {
@@ -187,15 +190,21 @@ class Search {
     return { columns: this.best, finished, bound: finished ? this.bestCost : Math.min(this.bestCost, this.rootLow) };
   }
 
-  /** The root's bound alone (no cover known, no branching): no cover costs less. */
-  rootBound(block: Block): number {
+  /**
+   * The root's bound alone (no branching): no cover costs less. The known cover's cost is the
+   * goal of the subgradient steps. Past the deadline (the search before it used the time up)
+   * still LATE_STEPS steps: from the starting prices alone the bound is far weaker.
+   */
+  rootBound(block: Block, known: number[]): number {
     const rowOn = block.rowOn.slice();
     const colOn = block.colOn.slice();
     const picked: number[] = [];
     if (!this.reduce(rowOn, colOn, picked)) throw new Error('bug: a block row no column covers');
     const cost = picked.reduce((k, c) => k + this.costs[c]!, 0);
     if (!rowOn.includes(1)) return cost;
-    return integerBound(cost + this.lagrange(rowOn, colOn, cost, undefined, this.aborted ? 0 : ROOT_STEPS, Infinity).rounded);
+    this.bestCost = known.reduce((k, c) => k + this.costs[c]!, 0);
+    const steps = this.aborted ? LATE_STEPS : ROOT_STEPS;
+    return integerBound(cost + this.lagrange(rowOn, colOn, cost, undefined, steps, Infinity, LATE_STEPS).rounded);
   }
 
   private branch(rowOn: Uint8Array, colOn: Uint8Array, chosen: number[], cost: number, start: Prices | undefined): void {
@@ -301,9 +310,10 @@ class Search {
    * independent set of rows). Every set of prices also suggests a cover: the columns they make
    * profitable, each open row's lowest-reduced-cost column, less columns made redundant.
    * `rounded` adds that, costs being integers, at least ceil(bound / dearest cost) columns are
-   * needed, each at least the cheapest cost.
+   * needed, each at least the cheapest cost. Once the deadline passes, the steps stop (at the
+   * latest after `late` of them).
    */
-  private lagrange(rowOn: Uint8Array, colOn: Uint8Array, cost: number, start: Prices | undefined, steps: number, capLeft: number): Bound {
+  private lagrange(rowOn: Uint8Array, colOn: Uint8Array, cost: number, start: Prices | undefined, steps: number, capLeft: number, late = 0): Bound {
     const costs = this.costs;
     const capped = Number.isFinite(capLeft);
     const activeRows: number[] = [];
@@ -394,7 +404,7 @@ class Search {
       if (step % 8 === 7) {
         primal();
         // Past the deadline the prices so far still give a valid bound.
-        if (this.outOfTime()) steps = 0;
+        if (this.outOfTime()) steps = Math.min(steps, late);
       }
       if (value > best + 1e-9) {
         best = value;
