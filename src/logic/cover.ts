@@ -85,7 +85,8 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
     } else boundCost += search(problem.costs, Infinity).rootBound(block, best);
     appendAll(chosen, best);
   }
-  let columns = [...new Set(chosen)].sort((a, b) => a - b);
+  // Each block's cover is irredundant within it; once more over every row, to be sure.
+  let columns = irredundant(colRows, problem.costs, [...new Set(chosen)], new Uint8Array(problem.rows.length).fill(1)).sort((a, b) => a - b);
   if (compareCovers(problem, start, columns) < 0) columns = [...start].sort((a, b) => a - b);
   const lowerBound = { columns: boundColumns, cost: boundCost };
   const proven = finished && boundColumns === columns.length && boundCost === coverCost(problem, columns);
@@ -150,6 +151,18 @@ function coverWithin(rows: CoverProblem['rows'], block: Block, start: readonly n
   return [...chosen];
 }
 
+/** `columns` less those whose rows (of the rows on) the others cover too, dearest first. */
+function irredundant(colRows: number[][], costs: readonly number[], columns: readonly number[], rowOn: Uint8Array): number[] {
+  const times = new Int32Array(rowOn.length);
+  for (const c of columns) for (const r of colRows[c]!) times[r]!++;
+  const kept: number[] = [];
+  for (const c of [...columns].sort((a, b) => costs[b]! - costs[a]! || b - a)) {
+    if (colRows[c]!.every((r) => !rowOn[r] || times[r]! >= 2)) for (const r of colRows[c]!) times[r]!--;
+    else kept.push(c);
+  }
+  return kept;
+}
+
 /** Prices of the Lagrangian bound, one per row. */
 interface Prices {
   readonly u: Float64Array;
@@ -160,6 +173,8 @@ class Search {
   aborted = false;
   private best: number[] = [];
   private bestCost = Infinity;
+  /** During `run`: the rows of the block. */
+  private blockRows: Uint8Array = new Uint8Array(0);
   private readonly stamp: Int32Array;
   private stampValue = 0;
   /** During `run`: the bound proven at the root so far. */
@@ -182,6 +197,7 @@ class Search {
    * else the bound proven at the root).
    */
   run(block: Block, start: number[]): BlockResult {
+    this.blockRows = block.rowOn;
     this.best = start;
     this.bestCost = start.reduce((k, c) => k + this.costs[c]!, 0);
     this.rootLow = 0;
@@ -227,17 +243,13 @@ class Search {
       appendAll(all, picked);
       if (all.length > this.cap || cost > this.limit()) return settled();
       if (!rowOn.includes(1)) {
-        this.best = all;
-        this.bestCost = cost;
+        this.offer(all);
         return settled();
       }
       if (!root && this.aborted) return;
       lead = this.lagrange(rowOn, colOn, cost, prices, root ? (this.aborted ? 0 : ROOT_STEPS) : 40, this.cap - all.length);
       prices = lead.prices;
-      if (lead.cover && cost + lead.coverCost < this.bestCost) {
-        this.best = all.concat(lead.cover);
-        this.bestCost = cost + lead.coverCost;
-      }
+      if (lead.cover) this.offer(all.concat(lead.cover));
       // Fixing below only removes columns of no cover better than the best: bounds found
       // later hold for those covers, hence min(best, bound).
       if (root) this.rootLow = Math.max(this.rootLow, Math.min(this.bestCost, integerBound(cost + lead.rounded)));
@@ -275,6 +287,16 @@ class Search {
       this.branch(rowsLeft, cols.slice(), all.concat(c), cost + costs[c]!, prices);
       if (this.aborted || cost + lead.rounded > this.limit()) return;
     }
+  }
+
+  /**
+   * A cover of the block becomes the best when, its redundant columns dropped, it is better
+   * (taking columns at branches and from the prices' cover, a column can end up redundant).
+   */
+  private offer(cols: number[]): void {
+    const kept = irredundant(this.colRows, this.costs, cols, this.blockRows);
+    const cost = kept.reduce((k, c) => k + this.costs[c]!, 0);
+    if (kept.length <= this.cap && cost < this.bestCost) [this.best, this.bestCost] = [kept, cost];
   }
 
   private outOfTime(): boolean {

@@ -161,6 +161,16 @@ describe('exact covering', () => {
     );
   });
 
+  it('cut at any reading of the clock, returns a cover with no redundant column', () => {
+    fc.assert(
+      fc.property(randomProblem, fc.nat({ max: 400 }), (problem, k) => {
+        const { columns } = exactCover(problem, deadlineAt(k, steppingClock().clock), heuristicCover(problem));
+        for (const c of columns) expect(isCover(problem, columns.filter((d) => d !== c))).toBe(false);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
   it('out of time, returns the known cover unproven', () => {
     const problem = { rows: [[0, 1], [1, 2], [2, 3], [3, 0]], costs: [1, 1, 1, 1] };
     const result = exactCover(problem, deadlineAt(-Infinity), [0, 1, 2, 3]);
