@@ -96,7 +96,7 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
 /** Subgradient steps at the root of a search (40 per node below it, warm-started). */
 const ROOT_STEPS = 600;
 
-/** Subgradient steps a root bound still takes past the deadline (a bounded overrun). */
+/** Subgradient steps the root of a search still takes past the deadline (a bounded overrun). */
 const LATE_STEPS = 100;
 
 /** A bound that costs are integers lets round up (less a margin for rounding errors). */
@@ -237,7 +237,8 @@ class Search {
     for (;;) {
       const picked: number[] = [];
       // At the root the reductions and bounds run even past the deadline (they stop early,
-      // leaving a consistent smaller problem), so that a bound is always known.
+      // leaving a consistent smaller problem; the bound after LATE_STEPS), so that a bound is
+      // always known.
       if (!this.reduce(rowOn, colOn, picked)) return settled();
       for (const c of picked) cost += costs[c]!;
       appendAll(all, picked);
@@ -247,7 +248,8 @@ class Search {
         return settled();
       }
       if (!root && this.aborted) return;
-      lead = this.lagrange(rowOn, colOn, cost, prices, root ? (this.aborted ? 0 : ROOT_STEPS) : 40, this.cap - all.length);
+      const steps = root ? (this.aborted ? LATE_STEPS : ROOT_STEPS) : 40;
+      lead = this.lagrange(rowOn, colOn, cost, prices, steps, this.cap - all.length, root ? LATE_STEPS : 0);
       prices = lead.prices;
       if (lead.cover) this.offer(all.concat(lead.cover));
       // Fixing below only removes columns of no cover better than the best: bounds found
