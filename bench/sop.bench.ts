@@ -1,9 +1,10 @@
 // Minimal AND/OR forms: time and share proven within the default budget on random functions
 // with 10 % don't-cares and on tables of cube rows, beside sympy's SOPform on the same 6- and
 // 8-input functions (run once in python3 through scripts/sympy_reference.py --time, timed
-// inside Python). For every form not proven: its lower bound beside its cost. Baseline for the
-// share proven: the heuristic cover with the bound of rows sharing no prime (a maximal
-// independent set of rows: each needs a term of its own, at its cheapest prime's literals).
+// inside Python). For every form not proven: its lower bound beside its cost, and per group the
+// median gap between them. Baseline for the share proven and the gap: the heuristic cover with
+// the bound of rows sharing no prime (a maximal independent set of rows: each needs a term of
+// its own, at its cheapest prime's literals).
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { add, emptySet, members, popcount } from '../src/logic/bits.js';
@@ -69,14 +70,23 @@ export function cubeTables(n: number, count: number, rows: number, seed: number)
   });
 }
 
-/** The baseline: heuristic cover and independent-row bound; proven when they meet. */
-function baselineProven(f: BoolFunction): boolean {
+/** The baseline: heuristic cover and independent-row bound (proven when they meet), and the gap. */
+function baseline(f: BoolFunction): { proven: boolean; gap: Gap } {
   const primes = primeImplicants(f);
   const problem = coverProblem(setToCubes(f.n, f.on), primes)!;
   const cover = heuristicCover(problem);
   const bound = independentRowBound(problem);
-  return bound.terms === cover.length && bound.literals === coverCost(problem, cover);
+  const gap = { terms: cover.length - bound.terms, literals: coverCost(problem, cover) - bound.literals };
+  return { proven: gap.terms === 0 && gap.literals === 0, gap };
 }
+
+/** Cost less lower bound: what is left to prove. */
+interface Gap {
+  terms: number;
+  literals: number;
+}
+
+const medianGap = (gaps: Gap[]): string => `${median(gaps.map((g) => g.terms))}/${median(gaps.map((g) => g.literals))}`;
 
 function independentRowBound(problem: CoverProblem): { terms: number; literals: number } {
   const used = new Uint8Array(problem.costs.length);
@@ -123,8 +133,13 @@ export async function run(): Promise<void> {
     const proven = forms.filter((f) => f.proven).length;
     const share = (k: number): string => `${k}/${count} (${Math.round((100 * k) / count)} %)`;
     let line = `${label}: ${count} functions, median ${median(times).toFixed(1)} ms, proven ${share(proven)}, median terms ${median(forms.map((f) => f.terms))}`;
+    const gaps = forms.map((f) => ({ terms: f.terms - f.lowerBound.terms, literals: f.literals - f.lowerBound.literals }));
+    line += `\n   median gap cost - lower bound (terms/literals): ${medianGap(gaps)}`;
     // The baseline needs every prime and the whole matrix: only where they come quickly.
-    if (n <= 10 || label.includes('rows')) line += `; baseline (heuristic + independent rows) proven ${share(fns.filter(baselineProven).length)}`;
+    if (n <= 12 || label.includes('rows')) {
+      const base = fns.map(baseline);
+      line += `; baseline (heuristic + independent rows): ${medianGap(base.map((b) => b.gap))}, proven ${share(base.filter((b) => b.proven).length)}`;
+    }
     const open = forms.filter((f) => !f.proven).map((f) => `${f.terms}/${f.literals} >= ${f.lowerBound.terms}/${f.lowerBound.literals}`);
     if (open.length > 0) line += `\n   not proven, cost >= lower bound (terms/literals): ${open.join(', ')}`;
     if (n <= 8) {

@@ -82,10 +82,11 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
       best = cheapest.columns;
       boundCost += cheapest.bound;
       finished &&= cheapest.finished;
-    } else boundCost += search(problem.costs, Infinity).rootBound(block);
+    } else boundCost += search(problem.costs, Infinity).rootBound(block, best);
     appendAll(chosen, best);
   }
-  let columns = [...new Set(chosen)].sort((a, b) => a - b);
+  // Each block's cover is irredundant within it; once more over every row, to be sure.
+  let columns = irredundant(colRows, problem.costs, [...new Set(chosen)], new Uint8Array(problem.rows.length).fill(1)).sort((a, b) => a - b);
   if (compareCovers(problem, start, columns) < 0) columns = [...start].sort((a, b) => a - b);
   const lowerBound = { columns: boundColumns, cost: boundCost };
   const proven = finished && boundColumns === columns.length && boundCost === coverCost(problem, columns);
@@ -94,6 +95,9 @@ export function exactCover(problem: CoverProblem, deadline: Deadline, start: rea
 
 /** Subgradient steps at the root of a search (40 per node below it, warm-started). */
 const ROOT_STEPS = 600;
+
+/** Subgradient steps the root of a search still takes past the deadline (a bounded overrun). */
+const LATE_STEPS = 100;
 
 /** A bound that costs are integers lets round up (less a margin for rounding errors). */
 function integerBound(value: number): number {
@@ -147,6 +151,18 @@ function coverWithin(rows: CoverProblem['rows'], block: Block, start: readonly n
   return [...chosen];
 }
 
+/** `columns` less those whose rows (of the rows on) the others cover too, dearest first. */
+function irredundant(colRows: number[][], costs: readonly number[], columns: readonly number[], rowOn: Uint8Array): number[] {
+  const times = new Int32Array(rowOn.length);
+  for (const c of columns) for (const r of colRows[c]!) times[r]!++;
+  const kept: number[] = [];
+  for (const c of [...columns].sort((a, b) => costs[b]! - costs[a]! || b - a)) {
+    if (colRows[c]!.every((r) => !rowOn[r] || times[r]! >= 2)) for (const r of colRows[c]!) times[r]!--;
+    else kept.push(c);
+  }
+  return kept;
+}
+
 /** Prices of the Lagrangian bound, one per row. */
 interface Prices {
   readonly u: Float64Array;
@@ -157,6 +173,8 @@ class Search {
   aborted = false;
   private best: number[] = [];
   private bestCost = Infinity;
+  /** During `run`: the rows of the block. */
+  private blockRows: Uint8Array = new Uint8Array(0);
   private readonly stamp: Int32Array;
   private stampValue = 0;
   /** During `run`: the bound proven at the root so far. */
@@ -179,6 +197,7 @@ class Search {
    * else the bound proven at the root).
    */
   run(block: Block, start: number[]): BlockResult {
+    this.blockRows = block.rowOn;
     this.best = start;
     this.bestCost = start.reduce((k, c) => k + this.costs[c]!, 0);
     this.rootLow = 0;
@@ -187,15 +206,21 @@ class Search {
     return { columns: this.best, finished, bound: finished ? this.bestCost : Math.min(this.bestCost, this.rootLow) };
   }
 
-  /** The root's bound alone (no cover known, no branching): no cover costs less. */
-  rootBound(block: Block): number {
+  /**
+   * The root's bound alone (no branching): no cover costs less. The known cover's cost is the
+   * goal of the subgradient steps. Past the deadline (the search before it used the time up)
+   * still LATE_STEPS steps: from the starting prices alone the bound is far weaker.
+   */
+  rootBound(block: Block, known: number[]): number {
     const rowOn = block.rowOn.slice();
     const colOn = block.colOn.slice();
     const picked: number[] = [];
     if (!this.reduce(rowOn, colOn, picked)) throw new Error('bug: a block row no column covers');
     const cost = picked.reduce((k, c) => k + this.costs[c]!, 0);
     if (!rowOn.includes(1)) return cost;
-    return integerBound(cost + this.lagrange(rowOn, colOn, cost, undefined, this.aborted ? 0 : ROOT_STEPS, Infinity).rounded);
+    this.bestCost = known.reduce((k, c) => k + this.costs[c]!, 0);
+    const steps = this.aborted ? LATE_STEPS : ROOT_STEPS;
+    return integerBound(cost + this.lagrange(rowOn, colOn, cost, undefined, steps, Infinity, LATE_STEPS).rounded);
   }
 
   private branch(rowOn: Uint8Array, colOn: Uint8Array, chosen: number[], cost: number, start: Prices | undefined): void {
@@ -212,23 +237,21 @@ class Search {
     for (;;) {
       const picked: number[] = [];
       // At the root the reductions and bounds run even past the deadline (they stop early,
-      // leaving a consistent smaller problem), so that a bound is always known.
+      // leaving a consistent smaller problem; the bound after LATE_STEPS), so that a bound is
+      // always known.
       if (!this.reduce(rowOn, colOn, picked)) return settled();
       for (const c of picked) cost += costs[c]!;
       appendAll(all, picked);
       if (all.length > this.cap || cost > this.limit()) return settled();
       if (!rowOn.includes(1)) {
-        this.best = all;
-        this.bestCost = cost;
+        this.offer(all);
         return settled();
       }
       if (!root && this.aborted) return;
-      lead = this.lagrange(rowOn, colOn, cost, prices, root ? (this.aborted ? 0 : ROOT_STEPS) : 40, this.cap - all.length);
+      const steps = root ? (this.aborted ? LATE_STEPS : ROOT_STEPS) : 40;
+      lead = this.lagrange(rowOn, colOn, cost, prices, steps, this.cap - all.length, root ? LATE_STEPS : 0);
       prices = lead.prices;
-      if (lead.cover && cost + lead.coverCost < this.bestCost) {
-        this.best = all.concat(lead.cover);
-        this.bestCost = cost + lead.coverCost;
-      }
+      if (lead.cover) this.offer(all.concat(lead.cover));
       // Fixing below only removes columns of no cover better than the best: bounds found
       // later hold for those covers, hence min(best, bound).
       if (root) this.rootLow = Math.max(this.rootLow, Math.min(this.bestCost, integerBound(cost + lead.rounded)));
@@ -268,6 +291,16 @@ class Search {
     }
   }
 
+  /**
+   * A cover of the block becomes the best when, its redundant columns dropped, it is better
+   * (taking columns at branches and from the prices' cover, a column can end up redundant).
+   */
+  private offer(cols: number[]): void {
+    const kept = irredundant(this.colRows, this.costs, cols, this.blockRows);
+    const cost = kept.reduce((k, c) => k + this.costs[c]!, 0);
+    if (kept.length <= this.cap && cost < this.bestCost) [this.best, this.bestCost] = [kept, cost];
+  }
+
   private outOfTime(): boolean {
     if (!this.aborted && this.deadline.passed()) this.aborted = true;
     return this.aborted;
@@ -301,9 +334,10 @@ class Search {
    * independent set of rows). Every set of prices also suggests a cover: the columns they make
    * profitable, each open row's lowest-reduced-cost column, less columns made redundant.
    * `rounded` adds that, costs being integers, at least ceil(bound / dearest cost) columns are
-   * needed, each at least the cheapest cost.
+   * needed, each at least the cheapest cost. Once the deadline passes, the steps stop (at the
+   * latest after `late` of them).
    */
-  private lagrange(rowOn: Uint8Array, colOn: Uint8Array, cost: number, start: Prices | undefined, steps: number, capLeft: number): Bound {
+  private lagrange(rowOn: Uint8Array, colOn: Uint8Array, cost: number, start: Prices | undefined, steps: number, capLeft: number, late = 0): Bound {
     const costs = this.costs;
     const capped = Number.isFinite(capLeft);
     const activeRows: number[] = [];
@@ -394,7 +428,7 @@ class Search {
       if (step % 8 === 7) {
         primal();
         // Past the deadline the prices so far still give a valid bound.
-        if (this.outOfTime()) steps = 0;
+        if (this.outOfTime()) steps = Math.min(steps, late);
       }
       if (value > best + 1e-9) {
         best = value;

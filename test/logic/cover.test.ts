@@ -135,6 +135,43 @@ describe('exact covering', () => {
     }
   });
 
+  it('out of time, still bounds by the relaxation, above the bound of rows sharing no column', () => {
+    // Hand-computed: five rows on a ring of five unit-cost columns, row i covered by columns i
+    // and i+1. Two rows at most share no column (bound 2); halves on every column cover each
+    // row once, so the relaxation's optimum is 2.5 and every cover has at least 3 columns and
+    // costs at least 3 (as {0, 2, 4}, which the prices suggest).
+    const problem = { rows: [[0, 1], [1, 2], [2, 3], [3, 4], [4, 0]], costs: [1, 1, 1, 1, 1] };
+    const result = exactCover(problem, deadlineAt(-Infinity), [0, 1, 2, 3, 4]);
+    expect(result.proven).toBe(false);
+    expect(result.lowerBound).toEqual({ columns: 3, cost: 3 });
+    expect(result.columns.length).toBe(3);
+  });
+
+  it('cut at any reading of the clock, its bounds never pass the best cover, and proven only at the best', () => {
+    fc.assert(
+      fc.property(randomProblem, fc.nat({ max: 400 }), (problem, k) => {
+        const best = bruteForceBest(problem);
+        const stepping = steppingClock();
+        const result = exactCover(problem, deadlineAt(k, stepping.clock), heuristicCover(problem));
+        expect(isCover(problem, result.columns)).toBe(true);
+        expect(result.lowerBound.columns).toBeLessThanOrEqual(best.length);
+        expect(result.lowerBound.cost).toBeLessThanOrEqual(coverCost(problem, best));
+        if (result.proven) expect(compareCovers(problem, result.columns, best)).toBe(0);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('cut at any reading of the clock, returns a cover with no redundant column', () => {
+    fc.assert(
+      fc.property(randomProblem, fc.nat({ max: 400 }), (problem, k) => {
+        const { columns } = exactCover(problem, deadlineAt(k, steppingClock().clock), heuristicCover(problem));
+        for (const c of columns) expect(isCover(problem, columns.filter((d) => d !== c))).toBe(false);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
   it('out of time, returns the known cover unproven', () => {
     const problem = { rows: [[0, 1], [1, 2], [2, 3], [3, 0]], costs: [1, 1, 1, 1] };
     const result = exactCover(problem, deadlineAt(-Infinity), [0, 1, 2, 3]);
