@@ -67,6 +67,35 @@ describe('a point outside a union of cubes', () => {
   });
 });
 
+/** The same small problems with their 8 inputs spread over 64 (both 32-bit words inside the search). */
+const spread = fc.record({
+  problem: cubes,
+  places: fc.uniqueArray(fc.integer({ min: 0, max: 63 }), { minLength: 8, maxLength: 8 }),
+});
+const placed = (places: readonly number[], x: bigint): bigint =>
+  places.reduce((k, p, i) => ((x >> BigInt(i)) & 1n ? k | (1n << BigInt(p)) : k), 0n);
+const placedCube = (places: readonly number[], c: WideCube): WideCube => wideCube(placed(places, c.mask), placed(places, c.bits));
+
+describe('questions over 64 inputs', () => {
+  it('get the answers of the same questions over 8 inputs, wherever the 8 sit among the 64', () => {
+    fc.assert(
+      fc.property(spread, ({ problem: { n, cubes, within }, places }) => {
+        const wide = cubes.map((c) => placedCube(places, c));
+        const k = pointOutside(64, placedCube(places, within), wide, NEVER);
+        const left = all(n).filter((x) => wideContains(within, x) && !inAny(cubes, x));
+        if (k === null) expect(left).toEqual([]);
+        else {
+          expect(k === UNKNOWN).toBe(false);
+          expect(wideContains(placedCube(places, within), k as bigint) && !inAny(wide, k as bigint)).toBe(true);
+        }
+        const count = countOutside(64, wide, NEVER, 0);
+        const truth = BigInt(all(n).filter((x) => !inAny(cubes, x)).length) << BigInt(64 - n);
+        expect([count.atLeast, count.atMost]).toEqual([truth, truth]);
+      }),
+    );
+  });
+});
+
 describe('counting what a union of cubes leaves out', () => {
   it('is exact when it finishes: a=1 OR b=1 over 3 inputs leaves 2 combinations', () => {
     const left = countOutside(3, [cubeOf('1--'), cubeOf('-1-')], NEVER, 10);
