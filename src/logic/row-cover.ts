@@ -31,24 +31,22 @@ function expand(n: number, c: WideCube, on: readonly WideCube[], deadline: Deadl
 }
 
 /**
- * A cover of the union of `on` (rows' cubes) by primes of it. Null when the deadline passed
- * before the cover was known to be one; the bound is what was shown by then.
+ * A cover of the union of `on` (rows' cubes) by primes of it. Past the deadline a question
+ * left open keeps what is there (a literal, a row, a term): still a cover of the rows, less
+ * small, its bound what was shown by then.
  */
-export function rowCover(n: number, on: readonly WideCube[], deadline: Deadline): RowCover | null {
+export function rowCover(n: number, on: readonly WideCube[], deadline: Deadline): RowCover {
   if (on.length === 0) return result(n, [], { terms: 0, literals: 0 });
   if (on.some((c) => c.mask === 0n)) return result(n, [ANY], { terms: 1, literals: 0 });
   const rows = [...on].sort((a, b) => wideLiterals(a) - wideLiterals(b));
   const taken: WideCube[] = [];
   for (const r of rows) {
     if (taken.some((t) => wideWithin(r, t))) continue;
-    const covered = coveredBy(n, r, taken, deadline);
-    if (covered === UNKNOWN) return null;
-    if (covered) continue;
+    if (coveredBy(n, r, taken, deadline) === true) continue;
     const prime = expand(n, r, on, deadline);
     if (!taken.some((t) => wideWithin(prime, t))) taken.push(prime);
   }
   const kept = irredundant(n, taken, on, deadline);
-  if (kept === null) return null;
   const bound = independentWitnesses(n, kept.witnesses, on, deadline);
   return result(n, kept.terms, { terms: bound, literals: bound });
 }
@@ -61,32 +59,27 @@ function result(n: number, cubes: WideCube[], lowerBound: FormBound): RowCover {
 
 /**
  * Drop, dearest first, each term whose rows the other terms cover; for each term kept, an ON
- * combination only it holds (the witness the bound is built from).
+ * combination only it holds (the witnesses the bound is built from; none where the clock ran out).
  */
-function irredundant(n: number, terms: readonly WideCube[], on: readonly WideCube[], deadline: Deadline): { terms: WideCube[]; witnesses: WideCombination[] } | null {
+function irredundant(n: number, terms: readonly WideCube[], on: readonly WideCube[], deadline: Deadline): { terms: WideCube[]; witnesses: WideCombination[] } {
   const order = terms.map((_, i) => i).sort((a, b) => wideLiterals(terms[b]!) - wideLiterals(terms[a]!));
   const kept = new Set(terms.map((_, i) => i));
   const witness = new Map<number, WideCombination>();
   for (const i of order) {
     kept.delete(i);
     const others = [...kept].map((j) => terms[j]!);
-    let alone: WideCombination | null = null;
+    let alone: WideCombination | Unknown | null = null;
     for (const r of on) {
       if (((r.bits ^ terms[i]!.bits) & r.mask & terms[i]!.mask) !== 0n) continue;
-      const k = pointOutside(n, r, others, deadline);
-      if (k === UNKNOWN) return null;
-      if (k !== null) {
-        alone = k;
-        break;
-      }
+      alone = pointOutside(n, r, others, deadline);
+      if (alone !== null) break;
     }
-    if (alone !== null) {
-      kept.add(i);
-      witness.set(i, alone);
-    }
+    if (alone === null) continue;
+    kept.add(i);
+    if (alone !== UNKNOWN) witness.set(i, alone);
   }
   const ids = [...kept].sort((a, b) => a - b);
-  return { terms: ids.map((i) => terms[i]!), witnesses: ids.map((i) => witness.get(i)!) };
+  return { terms: ids.map((i) => terms[i]!), witnesses: ids.flatMap((i) => (witness.has(i) ? [witness.get(i)!] : [])) };
 }
 
 /**

@@ -126,13 +126,13 @@ describe('counting what a union of cubes leaves out', () => {
 
 describe('the AND/OR form of a union of rows, on the cubes', () => {
   it('merges a=1 b=1 and a=1 b=0 into a=1, proven (one term of one literal)', () => {
-    const cover = rowCover(2, [cubeOf('11'), cubeOf('10')], NEVER)!;
+    const cover = rowCover(2, [cubeOf('11'), cubeOf('10')], NEVER);
     expect([cover.cubes, cover.proven, cover.lowerBound]).toEqual([[cubeOf('1-')], true, { terms: 1, literals: 1 }]);
   });
 
   it('keeps the consensus-free union a.b OR NOT a.c as two terms, bound 2 terms', () => {
     // a.b + a'.c: the consensus b.c is not needed (textbook consensus theorem, common practice).
-    const cover = rowCover(3, [cubeOf('11-'), cubeOf('0-1')], NEVER)!;
+    const cover = rowCover(3, [cubeOf('11-'), cubeOf('0-1')], NEVER);
     expect(cover.cubes).toEqual([cubeOf('11-'), cubeOf('0-1')]);
     expect(cover.lowerBound.terms).toBe(2);
   });
@@ -140,7 +140,7 @@ describe('the AND/OR form of a union of rows, on the cubes', () => {
   it('equals the union on every combination, uses only primes, and its bound never passes the exact minimum', () => {
     fc.assert(
       fc.property(cubes, ({ n, cubes: on }) => {
-        const cover = rowCover(n, on, NEVER)!;
+        const cover = rowCover(n, on, NEVER);
         for (const x of all(n)) expect(inAny(cover.cubes, x)).toBe(inAny(on, x));
         for (const t of cover.cubes)
           for (let i = 0; i < n; i++) {
@@ -156,6 +156,16 @@ describe('the AND/OR form of a union of rows, on the cubes', () => {
         expect(cover.lowerBound.terms).toBeLessThanOrEqual(exact.terms);
         expect(cover.terms).toBeGreaterThanOrEqual(exact.terms);
         if (cover.proven) expect([cover.terms, cover.literals]).toEqual([exact.terms, exact.literals]);
+      }),
+    );
+  });
+
+  it('cut short at once, is still a cover of the rows, its bound no more than the terms of the cover found in full time', () => {
+    fc.assert(
+      fc.property(cubes, ({ n, cubes: on }) => {
+        const cover = rowCover(n, on, PASSED);
+        for (const x of all(n)) expect(inAny(cover.cubes, x)).toBe(inAny(on, x));
+        expect(cover.lowerBound.terms).toBeLessThanOrEqual(rowCover(n, on, NEVER).terms);
       }),
     );
   });
@@ -197,7 +207,7 @@ describe('test steps on the rows', () => {
   it('expect the union of the ON rows at every step, an ON step inside every term', () => {
     fc.assert(
       fc.property(cubes, ({ n, cubes: on }) => {
-        const cover = rowCover(n, on, NEVER)!;
+        const cover = rowCover(n, on, NEVER);
         const steps = rowUniqueCauseSteps(n, cover.cubes, on, signals(n), NEVER);
         for (const s of steps) expect(s.expected).toBe(inAny(on, s.combination) ? 1 : 0);
         for (const t of cover.cubes) expect(steps.some((s) => s.expected === 1 && wideContains(t, s.combination))).toBe(true);
