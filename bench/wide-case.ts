@@ -68,8 +68,11 @@ function summary(a: TableAnalysis): string {
   const w = a.wide?.outputs[0];
   if (o) return `${o.andOr.terms} terms${o.andOr.proven ? ' proven' : ''}, XOR ${o.xor.terms} terms, gaps ${o.gapCount}`;
   if (w) {
-    const { gapCount, engine } = a.wide!;
-    const gaps = gapCount.atLeast === gapCount.atMost ? `${gapCount.atLeast}` : `${gapCount.atLeast}..${gapCount.atMost}`;
+    const { engine } = a.wide!;
+    // The baseline's engine counted gaps as one BigInt, before counts could be bounds.
+    const gapCount: unknown = a.wide!.gapCount;
+    const { atLeast, atMost } = typeof gapCount === 'bigint' ? { atLeast: gapCount, atMost: gapCount } : a.wide!.gapCount;
+    const gaps = atLeast === atMost ? `${atLeast}` : `${atLeast}..${atMost}`;
     const form = `${w.andOr.terms} terms${w.andOr.proven ? ' proven' : ` heuristic, at least ${w.andOr.lowerBound.terms}`}`;
     const xor = w.xor && w.bestXor ? `XOR ${w.xor.terms} terms, best ${w.bestXor.terms}` : 'no XOR form';
     return `${form}, ${xor}, gaps ${gaps}${engine === 'rows' ? ', on the rows\' cubes' : ''}`;
