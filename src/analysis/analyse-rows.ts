@@ -14,6 +14,7 @@ import {
   StepsTimedOut,
   widePattern,
   wideContains,
+  wideDisjoint,
   wideSopToExpr,
   printSt,
   type WideCube,
@@ -41,7 +42,7 @@ export function analyseRows(table: SpecTable, wide: WideSpec & { noDiagram: NonN
     if (values.includes('-')) return fail("on the rows' cubes don't-care rows are not analysed; write 0 or 1 in them, or split the table");
     const on = wide.cubes.filter((_, i) => values[i] === 1);
     const off = wide.cubes.filter((_, i) => values[i] === 0);
-    if (on.some((a) => off.some((b) => ((a.bits ^ b.bits) & a.mask & b.mask) === 0n))) return fail('its rows conflict (see the conflict errors)');
+    if (on.some((a) => off.some((b) => !wideDisjoint(a, b)))) return fail('its rows conflict (see the conflict errors)');
     const cover = rowCover(n, on, deadlineAt(now() + budget));
     const proof = proveRowCover(n, cover.cubes, on, deadlineAt(now() + budget));
     if (proof === 'unknown') return fail(`the proof of its AND/OR form did not finish in ${budget / 1000} s`);

@@ -28,7 +28,7 @@ export { DEFAULT_BUDGET_MS, minimiseSop, type FormBound } from './sop.js';
 export { uniqueCauseSteps, type TestStep } from './steps.js';
 export { analyseWideOutput, wideResolved, wideSopToExpr, type WideOutputForms, type WideXor } from './wide-analysis.js';
 export { XOR_PRINT_LIMIT } from './wide-anf.js';
-export { combinationPattern, countJson, inputBit, jsonCounts, SYMBOLIC_FROM_INPUTS, toNarrow, toWide, WIDE_MAX_INPUTS, wideContains, wideCube, widePattern, type WideCombination, type WideCube } from './wide-cube.js';
+export { combinationPattern, countJson, inputBit, jsonCounts, SYMBOLIC_FROM_INPUTS, toNarrow, toWide, WIDE_MAX_INPUTS, wideContains, wideCube, wideDisjoint, widePattern, type WideCombination, type WideCube } from './wide-cube.js';
 export { buildWide, overlapCube, type WideBuilt, type WideConflict, type WideFunction } from './wide-fn.js';
 export { exprToBdd, proveWide, type WideProof } from './wide-proof.js';
 export { kindOf, sideSentence, wideSideForm, type CounterexampleKind, type SideSentence } from './difference.js';

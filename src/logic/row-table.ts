@@ -2,7 +2,7 @@
 // pair of rows, ON against OFF, whose cubes meet, with its whole overlap (the gaps are counted
 // by cube-list.ts `countOutside`).
 import { wideDisjoint, wideLiterals } from './wide-cube.js';
-import type { WideConflict, WideRow } from './wide-fn.js';
+import { overlapCube, type WideConflict, type WideRow } from './wide-fn.js';
 
 /** The first `limit` row pairs that ask for 1 and 0 on common combinations, in row order. */
 export function rowConflicts(n: number, rows: readonly WideRow[], limit = 50): WideConflict[] {
@@ -11,7 +11,7 @@ export function rowConflicts(n: number, rows: readonly WideRow[], limit = 50): W
     for (let a = 0; a < b && out.length < limit; a++) {
       const [x, y] = [rows[a]!, rows[b]!];
       if (x.value === '-' || y.value === '-' || x.value === y.value || wideDisjoint(x.cube, y.cube)) continue;
-      const overlap = { mask: x.cube.mask | y.cube.mask, bits: x.cube.bits | y.cube.bits };
+      const overlap = overlapCube(x.cube, y.cube);
       out.push({ rowA: a, rowB: b, example: overlap.bits, combinations: 1n << BigInt(n - wideLiterals(overlap)) });
     }
   return out;
