@@ -99,3 +99,24 @@ describe('a typed expression checked at 40 inputs', () => {
     expect([...first.querySelectorAll('td')].map((td) => td.textContent)).toEqual([...ids.map(() => '0'), '0', '1', 'unsafe']);
   });
 });
+
+describe('the result card of a 64-input table analysed on its rows (no decision diagram in column order)', () => {
+  // a1 b1 + ... + a32 b32 with all a's left of all b's.
+  const names = [...Array.from({ length: 32 }, (_, i) => `A${i + 1}`), ...Array.from({ length: 32 }, (_, i) => `B${i + 1}`)];
+  const rows = [
+    [...names.map(() => 'input'), 'output'],
+    [...names, 'Run'],
+    ...Array.from({ length: 32 }, (_, i) => [...names.map((_, j) => (j === i || j === 32 + i ? 1 : '-')), 1]),
+  ];
+
+  it('shows the AND/OR form as a heuristic with its bound and its proof, and says no XOR form was derived', async () => {
+    const { view, table } = await paneOn('Pairs', rows);
+    const el = mount();
+    render(<SpecTableView table={table} handOver={view.handOver} />, el);
+    const andOr = form(el, 'AND/OR form');
+    expect(andOr.querySelector('.meta')!.textContent).toMatch(/^sum of products: 32 product terms, 64 literals; heuristic/);
+    expect(andOr.querySelector('.proof')!.textContent).toBe('proof: all 18,446,744,073,709,551,616 combinations checked, every one agrees with the spec');
+    expect(el.querySelector('[data-form="XOR form"]')).toBeNull();
+    expect(el.textContent).toContain("XOR forms: not derived: an XOR form is computed from the function's decision diagram");
+  });
+});
