@@ -17,6 +17,7 @@ import { POLICY_WORDS, type AnalyseOptions } from './analyse.js';
 import type { TableAnalysis } from './analysis-types.js';
 import { analyseRows } from './analyse-rows.js';
 import {
+  GAP_CUBES_LISTED,
   settingName,
   tooLarge,
   wideBuilt,
@@ -27,9 +28,6 @@ import {
   type WideSpec,
 } from '../table/index.js';
 import type { WideOutputAnalysis, WideStepFacts } from './wide-types.js';
-
-/** Disjoint gap cubes listed in an analysis (the count is complete). */
-export const WIDE_GAP_CUBES_LISTED = 1000;
 
 export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOptions = {}): TableAnalysis {
   const n = table.inputs.length;
@@ -50,7 +48,7 @@ export function analyseWide(table: SpecTable, wide: WideSpec, options: AnalyseOp
   }
   const { dd, built } = made;
   const gapSet = built[0]?.gaps ?? 0;
-  const gaps = dd.pathCubes(gapSet, WIDE_GAP_CUBES_LISTED).cubes;
+  const gaps = dd.pathCubes(gapSet, GAP_CUBES_LISTED).cubes;
   const gapCount = dd.satCount(gapSet);
   progress('gaps');
   const resolvedOf: Node[] = [];

@@ -5,7 +5,7 @@ export { cellAddress, columnLetters, gridCell, gridOrigin, gridWidth, intersectR
 export { combinationCube, patternTable } from './patterns.js';
 export { describeCube, describePattern } from './describe.js';
 export { readSpecTables } from './read-tables.js';
-export { tooLarge, wideBuilt } from './read-wide.js';
+export { GAP_CUBES_LISTED, tooLarge, wideBuilt } from './read-wide.js';
 export { settingName } from './settings.js';
 export { type AnnotationColumn, type CellValue, type DontCarePolicy, type Grid, type HostKind, type OutputSpec, type PatternTable, type Problem, type ProblemCode, type RoleRule, type Setting, type Severity, type SpecOptions, type SpecTable, type ValueReading, type WideSpec, type XReading } from './types.js';
 export { gapCubes } from './uncovered.js';
